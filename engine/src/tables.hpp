@@ -1,0 +1,37 @@
+// The small embedded CSV tables: standard atomic weights and species aliases. Private.
+#pragma once
+
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace rxnheat::detail {
+
+struct Element {
+    std::string symbol;  ///< "Cl"
+    int z = 0;
+    std::string name;    ///< "chlorine"
+    double weight = 0;   ///< standard atomic weight, g/mol
+};
+
+/// A common name for a substance, mapping to the NASA record names per phase.
+struct Alias {
+    std::string name;     ///< "ethanol" (matched case-insensitively)
+    std::string gas;      ///< NASA record name of the gas, or empty
+    std::string liquid;   ///< NASA record name of the liquid, or empty
+    std::vector<std::string> solid;  ///< NASA record names of the solid forms, or empty
+};
+
+/// Parse the CSV text of data/elements.csv / data/aliases.csv (comment lines start with '#').
+/// Throw std::runtime_error("elements.csv line N: ...") when malformed.
+std::vector<Element> parse_elements_csv(std::string_view text);
+std::vector<Alias> parse_aliases_csv(std::string_view text);
+
+/// The embedded file texts (generated at build time from data/).
+std::string_view embedded_thermo_inp();
+std::string_view embedded_elements_csv();
+std::string_view embedded_aliases_csv();
+/// Provenance line of the embedded NASA file (from data/nasa-glenn/PROVENANCE).
+std::string_view embedded_nasa_provenance();
+
+}  // namespace rxnheat::detail

@@ -1,0 +1,70 @@
+// The grammar's interface to the rest of rxnheat: reaction text in, syntax tree out.
+// The grammar knows chemical notation only (coefficients, formulas, groups, hydrates, charges,
+// phases, arrows); it knows nothing of thermodynamics or of which element symbols exist.
+#pragma once
+
+#include <boost/multiprecision/cpp_int.hpp>
+
+#include <cstddef>
+#include <stdexcept>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace rxnheat::grammar {
+
+using Rational = boost::multiprecision::cpp_rational;
+
+/// One element symbol occurrence, counts multiplied out through groups and hydrate parts.
+struct Atom {
+    std::string symbol;     ///< as written, e.g. "Cl" (validity is checked by the engine)
+    Rational count;         ///< total count in the formula unit
+    std::size_t position;   ///< 1-based character position of the symbol's first occurrence
+};
+
+struct Species {
+    bool is_name = false;   ///< true for a name such as "ethanol" or "n-octane" (starts lowercase)
+    std::string name;       ///< the name as written (is_name only), inner spaces folded to one
+    std::string formula;    ///< formula as ASCII without phase/charge: "CuSO4*5H2O", "Ca(OH)2"
+    std::vector<Atom> atoms;  ///< element counts, one entry per distinct symbol, in order of first appearance
+    int charge = 0;         ///< net charge, e.g. -2 for "SO4^2-"
+    std::string phase;      ///< "", "g", "l", "s" (also for "(cr)"), "aq"
+    std::string written;    ///< the species exactly as written (UTF-8, trimmed), phase included
+    std::size_t position = 0;  ///< 1-based character position of the species' first character
+};
+
+struct Term {
+    Rational coefficient{1};
+    bool coefficient_written = false;
+    Species species;
+    std::size_t position = 0;  ///< 1-based character position of the term (coefficient or species)
+};
+
+struct Reaction {
+    std::vector<Term> reactants;
+    std::vector<Term> products;
+    std::string arrow;         ///< as written, e.g. "->" or "→"
+};
+
+/// A syntax error: where (1-based character, not byte, position) and what was expected.
+/// what() is the full message, e.g. "position 14: expected a species after '+'".
+class ParseError : public std::runtime_error {
+public:
+    ParseError(std::size_t position, const std::string& message);
+    std::size_t position() const noexcept { return position_; }
+    const std::string& detail() const noexcept { return detail_; }  ///< message without the position prefix
+private:
+    std::size_t position_;
+    std::string detail_;
+};
+
+/// Parses a whole reaction. Throws ParseError. Input must be valid UTF-8.
+Reaction parse_reaction(std::string_view utf8);
+
+/// Parses one species with optional phase, no coefficient (SPECIESHF, --per, RXNLOAD key).
+Species parse_species(std::string_view utf8);
+
+/// Parses a number: integer, decimal, a/b, or a vulgar fraction (½ ⅓ ⅔ ¼ ¾), exactly.
+Rational parse_number(std::string_view utf8);
+
+}  // namespace rxnheat::grammar
