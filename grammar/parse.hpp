@@ -46,8 +46,15 @@ struct Reaction {
     std::string arrow;         ///< as written, e.g. "->" or "→"
 };
 
+/// Limits the parse functions enforce (a ParseError otherwise); see grammar/SYNTAX.md.
+inline constexpr std::size_t max_input_characters = 4096;  ///< longer input is refused unparsed
+inline constexpr std::size_t max_group_depth = 16;         ///< nesting of (), [] and {}
+inline constexpr std::size_t max_number_digits = 12;       ///< digits in any one number
+
 /// A syntax error: where (1-based character, not byte, position) and what was expected.
 /// what() is the full message, e.g. "position 14: expected a species after '+'".
+/// Position 0 means the error concerns the whole text (only "input longer than 4096
+/// characters"); what() is then the message alone.
 class ParseError : public std::runtime_error {
 public:
     ParseError(std::size_t position, const std::string& message);

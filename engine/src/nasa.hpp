@@ -40,6 +40,7 @@ struct Record {
     double t_single = 0;     ///< zero-interval records only: the one temperature h298 applies at
     bool reactant_only = false;  ///< listed after "END PRODUCTS"
     std::size_t line = 0;    ///< 1-based line of the record's first line in the file
+    std::vector<std::size_t> merged_lines;  ///< first lines of the continuation records merged in
     double tmin() const { return intervals.empty() ? t_single : intervals.front().tmin; }
     double tmax() const { return intervals.empty() ? t_single : intervals.back().tmax; }
 };
@@ -49,6 +50,9 @@ struct Record {
 /// overlap between them is an error. Throws std::runtime_error("thermo.inp line N: ...") on
 /// anything malformed.
 std::vector<Record> parse_nasa_glenn(std::string_view text);
+
+/// The interval of r that holds T (either one at a shared boundary), or nullptr outside r's range.
+const Interval* find_interval(const Record& r, double T);
 
 /// Cp°/R, H°/(R·T) and S°/R of one interval at T (closed forms of TP-2002-211556 eqs. 1-3).
 double cp_over_R(const Interval& iv, double T);

@@ -27,6 +27,10 @@ struct Alias {
 std::vector<Element> parse_elements_csv(std::string_view text);
 std::vector<Alias> parse_aliases_csv(std::string_view text);
 
+/// True when n is usable as an alias name: a small letter first, then only small letters, digits,
+/// '-', ',' and single spaces (no space at the end).
+bool valid_alias_name(std::string_view n);
+
 /// The embedded file texts (generated at build time from data/).
 std::string_view embedded_thermo_inp();
 std::string_view embedded_elements_csv();

@@ -1,0 +1,444 @@
+// The embedded data set, indexed, and species resolution (SPEC 3.2-3.3).
+#include "database.hpp"
+
+#include "rxnheat/rxnheat.hpp"
+#include "usertable.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <limits>
+#include <set>
+
+namespace rxnheat::detail {
+
+std::string lower(std::string_view s) {
+    std::string out(s);
+    for (char& c : out)
+        if (c >= 'A' && c <= 'Z') c = static_cast<char>(c - 'A' + 'a');
+    return out;
+}
+
+std::string rational_text(const Rational& r) {
+    using boost::multiprecision::denominator;
+    using boost::multiprecision::numerator;
+    if (denominator(r) == 1) return numerator(r).str();
+    return numerator(r).str() + "/" + denominator(r).str();
+}
+
+double to_double(const Rational& r) { return r.convert_to<double>(); }
+
+namespace {
+
+std::string count_text(double x) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.6f", x);
+    std::string s(buf);
+    while (!s.empty() && s.back() == '0') s.pop_back();
+    if (!s.empty() && s.back() == '.') s.pop_back();
+    return s;
+}
+
+std::string number_text(double x) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.10g", x);
+    return buf;
+}
+
+Rational rational_from_count(double x) {
+    // NASA element counts are written with at most 5 decimals.
+    const long long scaled = std::llround(x * 100000.0);
+    return Rational(scaled, 100000);
+}
+
+std::string key_of(std::vector<std::pair<std::string, double>> atoms, int charge) {
+    std::sort(atoms.begin(), atoms.end());
+    std::string key;
+    for (std::size_t i = 0; i < atoms.size(); ++i) {
+        double n = atoms[i].second;
+        while (i + 1 < atoms.size() && atoms[i + 1].first == atoms[i].first) n += atoms[++i].second;
+        if (std::fabs(n) < 1e-9) continue;
+        key += atoms[i].first + count_text(n);
+    }
+    key += "|q" + std::to_string(charge);
+    return key;
+}
+
+// The substance part of a record's name: for condensed records the final phase tag is
+// removed ("Ca(OH)2(cr)" -> "Ca(OH)2", "C8H18(L),n-octa" -> "C8H18"); the isomer tag after a
+// comma is returned separately.
+std::pair<std::string, std::string> base_and_tag(const Record& r) {
+    std::string main = r.name, tag;
+    if (auto comma = main.find(','); comma != std::string::npos) {
+        tag = main.substr(comma + 1);
+        main = main.substr(0, comma);
+    }
+    if (r.phase != PhaseKind::gas) {
+        if (auto open = main.rfind('('); open != std::string::npos && open > 0) main = main.substr(0, open);
+    }
+    return {main, tag};
+}
+
+bool tags_compatible(const std::string& a, const std::string& b) {
+    if (a.empty() || b.empty()) return a.empty() && b.empty();
+    const auto n = std::min(a.size(), b.size());
+    return a.compare(0, n, b, 0, n) == 0;  // the file truncates long names
+}
+
+char phase_char(PhaseKind p) { return p == PhaseKind::gas ? 'g' : p == PhaseKind::liquid ? 'l' : 's'; }
+
+const char* phase_word(char p) {
+    switch (p) {
+    case 'g': return "gas";
+    case 'l': return "liquid";
+    case 's': return "solid";
+    default: return "aqueous";
+    }
+}
+
+bool covers(const Record& r, double T) {
+    if (r.intervals.empty()) return std::fabs(T - r.t_single) < 0.005;
+    return T >= r.tmin() - 1e-6 && T <= r.tmax() + 1e-6;
+}
+
+const Interval& interval_at(const Record& r, double T) {
+    for (const auto& iv : r.intervals)
+        if (T <= iv.tmax + 1e-6) return iv;
+    return r.intervals.back();
+}
+
+std::uint64_t fnv1a(std::string_view s, std::uint64_t h = 1469598103934665603ull) {
+    for (unsigned char c : s) {
+        h ^= c;
+        h *= 1099511628211ull;
+    }
+    return h;
+}
+
+}  // namespace
+
+std::string Composition::key() const {
+    std::vector<std::pair<std::string, double>> d;
+    d.reserve(atoms.size());
+    for (const auto& [s, n] : atoms) d.emplace_back(s, to_double(n));
+    return key_of(std::move(d), charge);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Substance
+
+std::string Substance::identity() const {
+    if (user) return "user:" + user->formula + "(" + phase + ")";
+    std::string id(1, phase);
+    for (const Record* r : records) id += "|" + r->name;
+    return id;
+}
+
+namespace {
+
+const Record& record_at(const Substance& s, double T) {
+    if (!std::isfinite(T) || T <= 0)
+        throw Error(ErrorKind::argument, "temperature must be a positive number of kelvin");
+    for (const Record* r : s.records)
+        if (covers(*r, T)) return *r;
+    std::string msg = s.display + ": the data cover " + s.range_text() + "; " + number_text(T) +
+                      " K is outside them (rxnheat never extrapolates)";
+    if (s.phase_assumed)
+        msg += ". No phase was written, so the phase stable at 298.15 K was taken; write the phase, e.g. " +
+               s.display.substr(0, s.display.size() - 3) + (s.phase == 'g' ? "(l)" : "(g)");
+    throw Error(ErrorKind::out_of_range, msg);
+}
+
+void need_polynomial(const Substance& s, const Record& r, const char* what) {
+    if (r.intervals.empty())
+        throw Error(ErrorKind::out_of_range, s.display + ": the NASA Glenn record '" + r.name +
+                                                 "' gives only the enthalpy at " + number_text(r.t_single) +
+                                                 " K, no " + what);
+}
+
+}  // namespace
+
+double Substance::H(double T) const {
+    if (user) return user->H(T, display);
+    const Record& r = record_at(*this, T);
+    if (r.intervals.empty()) return r.h298;
+    return h_over_RT(interval_at(r, T), T) * R_nasa * T;
+}
+
+double Substance::S(double T) const {
+    if (user) return user->S(T, display);
+    const Record& r = record_at(*this, T);
+    need_polynomial(*this, r, "entropy");
+    return s_over_R(interval_at(r, T), T) * R_nasa;
+}
+
+double Substance::Cp(double T) const {
+    if (user) return user->Cp(T, display);
+    const Record& r = record_at(*this, T);
+    need_polynomial(*this, r, "heat capacity");
+    return cp_over_R(interval_at(r, T), T) * R_nasa;
+}
+
+std::string Substance::range_text() const {
+    if (user) return user->range_text();
+    std::string out;
+    for (const Record* r : records) {
+        if (!out.empty()) out += ", ";
+        if (r->intervals.empty())
+            out += number_text(r->t_single) + " K only";
+        else
+            out += number_text(r->tmin()) + "–" + number_text(r->tmax()) + " K";
+        if (records.size() > 1 || true) out += " ('" + r->name + "')";
+    }
+    return out;
+}
+
+std::string Substance::source() const {
+    if (user) return display + ": user species table row " + std::to_string(user->row) +
+                     (user->source.empty() ? "" : " (" + user->source + ")");
+    std::string out = display + ": NASA Glenn record";
+    out += records.size() > 1 ? "s " : " ";
+    for (std::size_t i = 0; i < records.size(); ++i) {
+        const Record* r = records[i];
+        if (i) out += "; ";
+        out += "'" + r->name + "' [" + r->date_code + "] " + r->comment;
+    }
+    out += " — McBride, Zehe & Gordon, NASA/TP-2002-211556";
+    return out;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Database
+
+const Database& Database::get() {
+    static const Database db(embedded_thermo_inp(), embedded_elements_csv(), embedded_aliases_csv());
+    return db;
+}
+
+Database::Database(std::string_view thermo, std::string_view elements, std::string_view aliases)
+    : records_(parse_nasa_glenn(thermo)),
+      elements_(parse_elements_csv(elements)),
+      aliases_(parse_aliases_csv(aliases)) {
+    for (const auto& e : elements_) by_symbol_.emplace(e.symbol, &e);
+    for (const auto& r : records_) {
+        by_name_.emplace(r.name, &r);
+        by_composition_[key_of(r.elements, r.charge)].push_back(&r);
+        if (r.comment.find("Ref-Elm") != std::string::npos && r.elements.size() == 1 && r.charge == 0)
+            reference_forms_[r.elements.front().first].push_back(&r);
+    }
+    for (auto& [sym, list] : reference_forms_)
+        std::sort(list.begin(), list.end(), [](const Record* a, const Record* b) { return a->tmin() < b->tmin(); });
+    for (const auto& a : aliases_) {
+        by_alias_.emplace(lower(a.name), &a);
+        std::vector<std::string> names = a.solid;
+        names.push_back(a.gas);
+        names.push_back(a.liquid);
+        for (const auto& n : names)
+            if (const Record* r = record(n)) alias_of_.emplace(r, a.name);
+    }
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%016llx",
+                  static_cast<unsigned long long>(fnv1a(aliases, fnv1a(elements, fnv1a(thermo)))));
+    identity_ = std::string("data set ") + buf + " (NASA Glenn thermo.inp, " + std::to_string(records_.size()) +
+                " records; " + std::to_string(elements_.size()) + " atomic weights; " +
+                std::to_string(aliases_.size()) + " names)";
+}
+
+const Element* Database::element(std::string_view symbol) const {
+    auto it = by_symbol_.find(std::string(symbol));
+    return it == by_symbol_.end() ? nullptr : it->second;
+}
+
+const Alias* Database::alias(std::string_view name) const {
+    auto it = by_alias_.find(lower(name));
+    return it == by_alias_.end() ? nullptr : it->second;
+}
+
+const Record* Database::record(std::string_view name) const {
+    if (name.empty()) return nullptr;
+    auto it = by_name_.find(std::string(name));
+    return it == by_name_.end() ? nullptr : it->second;
+}
+
+const std::vector<const Record*>& Database::reference_forms(const std::string& symbol) const {
+    static const std::vector<const Record*> none;
+    auto it = reference_forms_.find(symbol);
+    return it == reference_forms_.end() ? none : it->second;
+}
+
+namespace {
+Composition composition_of(const Record& r) {
+    Composition c;
+    for (const auto& [s, n] : r.elements) c.atoms.emplace_back(s, rational_from_count(n));
+    std::sort(c.atoms.begin(), c.atoms.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
+    c.charge = r.charge;
+    return c;
+}
+
+const Alias& known_alias(const Database& db, const grammar::Species& sp) {
+    const Alias* a = db.alias(sp.name);
+    if (!a)
+        throw Error(ErrorKind::unknown_species,
+                    "position " + std::to_string(sp.position) + ": '" + sp.name +
+                        "' is not a name rxnheat knows (names are listed in data/aliases.csv); write the formula instead");
+    return *a;
+}
+}  // namespace
+
+Composition Database::composition(const grammar::Species& sp) const {
+    if (sp.is_name) {
+        const Alias& a = known_alias(*this, sp);
+        for (const std::string* n : {&a.gas, &a.liquid})
+            if (const Record* r = record(*n)) return composition_of(*r);
+        for (const auto& n : a.solid)
+            if (const Record* r = record(n)) return composition_of(*r);
+        throw Error(ErrorKind::internal, "alias '" + a.name + "' names no record");
+    }
+    Composition c;
+    for (const auto& atom : sp.atoms) {
+        if (!element(atom.symbol))
+            throw Error(ErrorKind::syntax, "position " + std::to_string(atom.position) + ": '" + atom.symbol +
+                                               "' is not an element symbol (symbols are case-sensitive: Co is cobalt, CO is carbon monoxide)");
+        if (atom.count <= 0) continue;
+        c.atoms.emplace_back(atom.symbol, atom.count);
+    }
+    std::sort(c.atoms.begin(), c.atoms.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
+    c.charge = sp.charge;
+    return c;
+}
+
+double Database::molar_mass(const Composition& c) const {
+    double m = 0;
+    for (const auto& [s, n] : c.atoms) {
+        const Element* e = element(s);
+        if (!e) throw Error(ErrorKind::syntax, "'" + s + "' is not an element symbol");
+        m += e->weight * to_double(n);
+    }
+    return m;
+}
+
+std::string Database::describe(const Record* r) const {
+    auto it = alias_of_.find(r);
+    if (it != alias_of_.end()) return it->second;
+    return r->name;
+}
+
+Substance Database::resolve(const grammar::Species& sp, const SpeciesTable* table) const {
+    const std::string shown = sp.is_name ? sp.name : sp.formula;
+    if (table && table->impl()) {
+        if (auto user = find_user_species(*table->impl(), sp)) {
+            Substance s;
+            s.user = user;
+            s.phase = user->phase;
+            s.display = shown + "(" + (s.phase == 'a' ? std::string("aq") : std::string(1, s.phase)) + ")";
+            s.composition = composition(user->parsed);
+            s.molar_mass = molar_mass(s.composition);
+            return s;
+        }
+    }
+    if (sp.phase == "aq")
+        throw Error(ErrorKind::unknown_species,
+                    sp.written + ": the built-in data of this version have no aqueous (aq) species; "
+                                 "give them in a user species table (formula, phase aq, dHf)");
+    std::vector<const Record*> found;
+    if (sp.is_name) {
+        const Alias& a = known_alias(*this, sp);
+        auto add = [&](const std::string& n) {
+            if (const Record* r = record(n)) found.push_back(r);
+        };
+        if (sp.phase.empty() || sp.phase == "g") add(a.gas);
+        if (sp.phase.empty() || sp.phase == "l") add(a.liquid);
+        if (sp.phase.empty() || sp.phase == "s")
+            for (const auto& n : a.solid) add(n);
+        if (found.empty())
+            throw Error(ErrorKind::phase, sp.written + ": the data have no " + phase_word(sp.phase[0]) +
+                                              " form of " + a.name);
+        return resolve_records(sp, std::move(found), shown);
+    }
+    const Composition comp = composition(sp);
+    auto it = by_composition_.find(comp.key());
+    if (it == by_composition_.end())
+        throw Error(ErrorKind::unknown_species,
+                    "position " + std::to_string(sp.position) + ": no data for " + sp.written +
+                        " (no NASA Glenn record has this composition" + (comp.charge ? " and charge" : "") + ")");
+    std::set<char> phases_there;
+    for (const Record* r : it->second) {
+        phases_there.insert(phase_char(r->phase));
+        if (sp.phase.empty() || sp.phase[0] == phase_char(r->phase)) found.push_back(r);
+    }
+    if (found.empty()) {
+        std::string have;
+        for (char p : phases_there) have += std::string(have.empty() ? "" : ", ") + phase_word(p);
+        throw Error(ErrorKind::phase, "position " + std::to_string(sp.position) + ": no " +
+                                          phase_word(sp.phase[0]) + " data for " + sp.formula +
+                                          "; the data have it as: " + have);
+    }
+    std::vector<const Record*> named;
+    for (const Record* r : found)
+        if (lower(base_and_tag(*r).first) == lower(sp.formula)) named.push_back(r);
+    if (!named.empty()) found = std::move(named);
+    return resolve_records(sp, std::move(found), shown);
+}
+
+Substance Database::resolve_records(const grammar::Species& sp, std::vector<const Record*> found,
+                                    const std::string& shown) const {
+    // Group the records into substances: one substance may have several phases or polymorphs.
+    struct Group {
+        std::string base, tag;
+        std::vector<const Record*> records;
+    };
+    std::vector<Group> groups;
+    for (const Record* r : found) {
+        auto [base, tag] = base_and_tag(*r);
+        auto g = std::find_if(groups.begin(), groups.end(), [&](const Group& g) {
+            return lower(g.base) == lower(base) && tags_compatible(g.tag, tag);
+        });
+        if (g == groups.end()) {
+            groups.push_back({base, tag, {}});
+            g = groups.end() - 1;
+        } else if (tag.size() > g->tag.size()) {
+            g->tag = tag;
+        }
+        g->records.push_back(r);
+    }
+    if (groups.size() > 1) {
+        std::string names;
+        for (const auto& g : groups) names += std::string(names.empty() ? "" : ", ") + describe(g.records.front());
+        std::string example = describe(groups.front().records.front());
+        throw Error(ErrorKind::ambiguous_species,
+                    sp.written + " is ambiguous: " + names + ". Name the one you mean, e.g. " + example +
+                        (sp.phase.empty() ? "" : "(" + sp.phase + ")"));
+    }
+    auto& recs = groups.front().records;
+    char phase = 0;
+    if (!sp.phase.empty()) {
+        phase = sp.phase[0];
+    } else {
+        // No phase written: the phase stable at 298.15 K and 1 bar, i.e. the lowest G° there.
+        double best = std::numeric_limits<double>::infinity();
+        for (const Record* r : recs) {
+            if (r->intervals.empty() || !covers(*r, T_ref)) continue;
+            const Interval& iv = interval_at(*r, T_ref);
+            const double G = R_nasa * T_ref * (h_over_RT(iv, T_ref) - s_over_R(iv, T_ref));
+            if (G < best) {
+                best = G;
+                phase = phase_char(r->phase);
+            }
+        }
+        if (!phase)
+            throw Error(ErrorKind::phase, sp.written + ": write its phase, (g), (l) or (s); no data at 298.15 K "
+                                                       "tell which phase is stable");
+    }
+    Substance s;
+    s.phase = phase;
+    s.phase_assumed = sp.phase.empty();
+    s.display = shown + "(" + std::string(1, phase) + ")";
+    for (const Record* r : recs)
+        if (phase_char(r->phase) == phase) s.records.push_back(r);
+    std::sort(s.records.begin(), s.records.end(), [](const Record* a, const Record* b) { return a->tmin() < b->tmin(); });
+    s.composition = sp.is_name ? composition_of(*s.records.front()) : composition(sp);
+    s.molar_mass = molar_mass(s.composition);
+    return s;
+}
+
+}  // namespace rxnheat::detail

@@ -1,0 +1,96 @@
+// The embedded data set, indexed, and species resolution (SPEC 3.2-3.3). Private.
+#pragma once
+
+#include "grammar/parse.hpp"
+#include "nasa.hpp"
+#include "tables.hpp"
+
+#include <memory>
+#include <string>
+#include <string_view>
+#include <unordered_map>
+#include <vector>
+
+namespace rxnheat { class SpeciesTable; }
+
+namespace rxnheat::detail {
+
+using grammar::Rational;
+
+/// Element counts of a formula unit, sorted by symbol, plus the net charge.
+struct Composition {
+    std::vector<std::pair<std::string, Rational>> atoms;
+    int charge = 0;
+    std::string key() const;  ///< canonical text key, equal for equal compositions
+};
+
+/// Thermodynamic model of one phase over one temperature range: a NASA record or a user row.
+struct UserSpecies;  // usertable.hpp
+
+/// A species in a reaction, resolved to its data: one phase, one or more records (several
+/// only for solid polymorphs, picked by temperature), or a user-table row.
+struct Substance {
+    std::string display;          ///< "CH4(g)": formula or name as written + the resolved phase
+    char phase = 'g';             ///< 'g', 'l', 's' or 'a' (aqueous)
+    bool phase_assumed = false;   ///< no phase written: the stable one at 298.15 K was taken
+    Composition composition;
+    double molar_mass = 0;        ///< g/mol from standard atomic weights
+    std::vector<const Record*> records;  ///< sorted by temperature
+    std::shared_ptr<const UserSpecies> user;  ///< set instead of records for a user-table row
+    std::string identity() const; ///< equal for the same data (used to net and match species)
+
+    /// Thermodynamic functions at T (throw Error(out_of_range) outside the data, never extrapolate).
+    double H(double T) const;     ///< assigned enthalpy, J/mol (= ΔfH° at 298.15 K)
+    double S(double T) const;     ///< J/(mol·K)
+    double Cp(double T) const;    ///< J/(mol·K)
+    std::string range_text() const;
+    std::string source() const;   ///< one citation line
+};
+
+class Database {
+public:
+    /// The embedded data, parsed and indexed on first use (thread-safe).
+    static const Database& get();
+    explicit Database(std::string_view thermo, std::string_view elements, std::string_view aliases);
+
+    const Element* element(std::string_view symbol) const;
+    const Alias* alias(std::string_view name) const;
+    const Record* record(std::string_view name) const;
+
+    /// Composition of a parsed species (element symbols checked; names via the alias table).
+    Composition composition(const grammar::Species& sp) const;
+    double molar_mass(const Composition& c) const;
+
+    /// Resolves a parsed species per SPEC 3.2-3.3 (user table rows first).
+    Substance resolve(const grammar::Species& sp, const SpeciesTable* table) const;
+
+    /// Records of the reference form of an element (NASA "Ref-Elm"), sorted by temperature.
+    const std::vector<const Record*>& reference_forms(const std::string& symbol) const;
+
+    const std::vector<Record>& records() const { return records_; }
+    std::string identity() const { return identity_; }  ///< data-set identity text
+
+private:
+    std::vector<Record> records_;
+    std::vector<Element> elements_;
+    std::vector<Alias> aliases_;
+    std::unordered_map<std::string, const Element*> by_symbol_;
+    std::unordered_map<std::string, const Alias*> by_alias_;
+    std::unordered_map<std::string, const Record*> by_name_;
+    std::unordered_map<std::string, std::vector<const Record*>> by_composition_;
+    std::unordered_map<std::string, std::vector<const Record*>> reference_forms_;
+    std::unordered_map<const Record*, std::string> alias_of_;  ///< a common name for a record
+    std::string identity_;
+
+    Substance resolve_records(const grammar::Species& sp, std::vector<const Record*> found,
+                              const std::string& shown) const;
+    std::string describe(const Record* r) const;
+};
+
+/// Lower-case ASCII copy.
+std::string lower(std::string_view s);
+/// Rational to text: "2", "1/2", "-3/4".
+std::string rational_text(const Rational& r);
+double to_double(const Rational& r);
+
+}  // namespace rxnheat::detail

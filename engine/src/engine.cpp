@@ -1,0 +1,328 @@
+// rxnheat::Engine: the public functions, thin over prepared reactions and resolved species.
+#include "rxnheat/rxnheat.hpp"
+
+#include "chem.hpp"
+#include "database.hpp"
+#include "reaction.hpp"
+#include "units.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <set>
+
+#ifndef RXNHEAT_VERSION
+#define RXNHEAT_VERSION "0.0.0"
+#endif
+
+namespace rxnheat {
+
+using detail::Database;
+using detail::Prepared;
+using detail::Rational;
+using detail::Substance;
+
+struct Engine::Impl {};
+
+Engine::Engine() : impl_(std::make_unique<Impl>()) {}
+Engine::~Engine() = default;
+
+Engine& Engine::shared() {
+    static Engine engine;
+    return engine;
+}
+
+namespace {
+
+std::string num(double x) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.10g", x);
+    return buf;
+}
+
+void check_temperature(double T) {
+    if (!std::isfinite(T) || T <= 0)
+        throw Error(ErrorKind::argument, "the temperature must be a positive number of kelvin (got " + num(T) + ")");
+}
+
+grammar::Species parse_one_species(std::string_view text, const char* what) {
+    detail::check_input_text(text, what);
+    try {
+        return grammar::parse_species(text);
+    } catch (const grammar::ParseError& e) {
+        throw Error(ErrorKind::syntax, std::string(what) + ": " + e.what());
+    }
+}
+
+Substance resolve_one(std::string_view text, const SpeciesTable* table) {
+    const auto sp = parse_one_species(text, "the species");
+    return Database::get().resolve(sp, table);
+}
+
+/// Value per mole of extent -> per mole (or mass) of the `per` species, in `unit`.
+double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view unit, std::string_view per,
+                          const SpeciesTable* table) {
+    if (per.empty()) return detail::from_J_per_mol(J_per_mol, unit);
+    const auto key = parse_one_species(per, "the 'per' species");
+    std::size_t idx = 0;
+    const Rational nu = p.key_coefficient(key, table, &idx);
+    const double n = std::fabs(detail::to_double(nu));
+    return detail::from_J_per_mol(J_per_mol / n, unit, p.substances[idx].molar_mass);
+}
+
+Rational rational_from_double(double x) {
+    // The simplest fraction that is the double to 12 significant digits (0.5 -> 1/2,
+    // 0.333333333333 -> 1/3); otherwise the decimal itself.
+    long long h0 = 0, h1 = 1, k0 = 1, k1 = 0;
+    double v = x;
+    for (int i = 0; i < 40; ++i) {
+        const double a = std::floor(v);
+        if (std::fabs(a) > 1e12) break;
+        const long long ai = static_cast<long long>(a);
+        const long long h2 = ai * h1 + h0, k2 = ai * k1 + k0;
+        if (k2 > 1000000) break;
+        h0 = h1, h1 = h2, k0 = k1, k1 = k2;
+        if (std::fabs(static_cast<double>(h1) / static_cast<double>(k1) - x) <= 1e-12 * std::fabs(x)) return Rational(h1, k1);
+        const double frac = v - a;
+        if (frac < 1e-15) break;
+        v = 1.0 / frac;
+    }
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.12g", x);
+    return grammar::parse_number(buf);
+}
+
+std::string scaled(std::string_view reaction, const Rational& factor) {
+    if (factor <= 0)
+        throw Error(ErrorKind::argument, "the factor must be above zero (use RXNREVERSE to exchange the sides)");
+    const auto p = detail::prepare(reaction, nullptr);
+    std::vector<Rational> l, r;
+    for (const auto& t : p->ast.reactants) l.push_back(t.coefficient * factor);
+    for (const auto& t : p->ast.products) r.push_back(t.coefficient * factor);
+    return detail::reaction_text(p->ast, l, r);
+}
+
+const char* kind_word(double dH_kJ, double tolerance_kJ) {
+    if (std::fabs(dH_kJ) <= tolerance_kJ) return "thermoneutral";
+    return dH_kJ < 0 ? "exothermic" : "endothermic";
+}
+
+bool looks_like_reaction(std::string_view s) {
+    for (const char* arrow : {"->", "=", "\xE2\x86\x92", "\xE2\x9F\xB6", "\xE2\x87\x8C"})
+        if (s.find(arrow) != std::string_view::npos) return true;
+    return false;
+}
+
+/// ΔfH° of a species at T: its H°(T) minus that of its elements in their reference forms.
+double formation_enthalpy(const Substance& s, double T) {
+    check_temperature(T);
+    if (std::fabs(T - T_ref) < 1e-9) return s.H(T_ref);
+    const Database& db = Database::get();
+    double h = s.H(T);
+    auto element_h = [&](const std::string& sym) {
+        for (const detail::Record* r : db.reference_forms(sym)) {
+            if (r->intervals.empty() || T < r->tmin() - 1e-6 || T > r->tmax() + 1e-6) continue;
+            double atoms = 0;
+            for (const auto& e : r->elements) atoms += e.second;
+            for (const auto& iv : r->intervals)
+                if (T <= iv.tmax + 1e-6) return detail::h_over_RT(iv, T) * detail::R_nasa * T / atoms;
+        }
+        throw Error(ErrorKind::out_of_range, "no reference-state data for the element " + sym + " at " + num(T) +
+                                                 " K, so ΔfH° there cannot be formed");
+    };
+    for (const auto& [sym, n] : s.composition.atoms) h -= detail::to_double(n) * element_h(sym);
+    if (s.composition.charge) {
+        const detail::Record* e = db.record("e-");
+        if (!e) throw Error(ErrorKind::internal, "no electron record");
+        Substance el;
+        el.display = "e-";
+        el.records = {e};
+        h -= -s.composition.charge * el.H(T);
+    }
+    return h;
+}
+
+}  // namespace
+
+double Engine::dh(std::string_view reaction, double T, std::string_view unit, std::string_view per,
+                  const SpeciesTable* table) {
+    check_temperature(T);
+    const auto p = detail::prepare(reaction, table);
+    return per_extent_in_unit(*p, p->dH(T), unit, per, table);
+}
+
+double Engine::du(std::string_view reaction, double T, std::string_view unit, std::string_view per,
+                  const SpeciesTable* table) {
+    check_temperature(T);
+    const auto p = detail::prepare(reaction, table);
+    const double dU = p->dH(T) - p->dn_gas() * detail::R * T;
+    return per_extent_in_unit(*p, dU, unit, per, table);
+}
+
+double Engine::load(std::string_view reaction, double quantity, std::string_view quantity_unit,
+                    std::string_view key, std::string_view result_unit, double T, const SpeciesTable* table) {
+    check_temperature(T);
+    if (!std::isfinite(quantity)) throw Error(ErrorKind::argument, "the quantity must be a finite number");
+    if (quantity < 0)
+        throw Error(ErrorKind::argument, "the quantity must not be negative (give the amount that reacts or forms)");
+    const auto p = detail::prepare(reaction, table);
+    const double dH = p->dH(T);
+    if (key.empty()) throw Error(ErrorKind::argument, "name the key species whose quantity is given");
+    const auto sp = parse_one_species(key, "the key species");
+    std::size_t idx = 0;
+    const double nu = std::fabs(detail::to_double(p->key_coefficient(sp, table, &idx)));
+    const auto qu = detail::quantity_unit(quantity_unit);
+    const double mol = detail::quantity_to_mol(quantity, quantity_unit, p->substances[idx].molar_mass);
+    return detail::load_result(dH * mol / nu, result_unit, qu.is_rate(), quantity_unit);
+}
+
+std::string Engine::kind(std::string_view reaction, double T, double tolerance_kJ, const SpeciesTable* table) {
+    if (!std::isfinite(tolerance_kJ) || tolerance_kJ < 0)
+        throw Error(ErrorKind::argument, "the tolerance must be a number of kJ/mol, zero or more");
+    return kind_word(dh(reaction, T, "kJ/mol", {}, table), tolerance_kJ);
+}
+
+std::string Engine::check(std::string_view reaction, double T, const SpeciesTable* table) noexcept {
+    try {
+        check_temperature(T);
+        detail::prepare(reaction, table)->dH(T);
+        return "ok";
+    } catch (const std::exception& e) {
+        return e.what();
+    } catch (...) {
+        return "internal error";
+    }
+}
+
+std::string Engine::balance(std::string_view reaction, const SpeciesTable* table) {
+    (void)table;  // balancing needs compositions only, which a user table does not change
+    return detail::balanced_text(*detail::prepare(reaction, nullptr));
+}
+
+std::string Engine::reverse(std::string_view reaction) {
+    const auto p = detail::prepare(reaction, nullptr);
+    grammar::Reaction r;
+    r.reactants = p->ast.products;
+    r.products = p->ast.reactants;
+    r.arrow = p->ast.arrow;
+    std::vector<Rational> l, rr;
+    for (const auto& t : r.reactants) l.push_back(t.coefficient);
+    for (const auto& t : r.products) rr.push_back(t.coefficient);
+    return detail::reaction_text(r, l, rr);
+}
+
+std::string Engine::scale(std::string_view reaction, std::string_view factor) {
+    detail::check_input_text(factor, "the factor");
+    Rational f;
+    try {
+        f = grammar::parse_number(factor);
+    } catch (const grammar::ParseError& e) {
+        throw Error(ErrorKind::argument, std::string("the factor: ") + e.what());
+    }
+    return scaled(reaction, f);
+}
+
+std::string Engine::scale(std::string_view reaction, double factor) {
+    if (!std::isfinite(factor) || factor <= 0)
+        throw Error(ErrorKind::argument, "the factor must be a number above zero (use RXNREVERSE to exchange the sides)");
+    return scaled(reaction, rational_from_double(factor));
+}
+
+ReactionReport Engine::report(std::string_view reaction, double T, const SpeciesTable* table) {
+    check_temperature(T);
+    const auto p = detail::prepare(reaction, table);
+    ReactionReport r;
+    r.temperature_K = T;
+    const double dH = p->dH(T);
+    r.dH_kJ_per_mol = dH / 1000.0;
+    r.dn_gas = p->dn_gas();
+    r.dU_kJ_per_mol = (dH - r.dn_gas * detail::R * T) / 1000.0;
+    r.canonical = p->canonical();
+    r.kind = kind_word(r.dH_kJ_per_mol, 0.1);
+    std::set<std::string> seen;
+    for (const auto& s : p->substances) {
+        if (!seen.insert(s.identity()).second) continue;
+        r.sources.push_back({s.display, s.records.empty() ? std::string("user table") : s.records.front()->name,
+                             s.source()});
+    }
+    return r;
+}
+
+double Engine::species_hf(std::string_view species, double T, std::string_view unit, const SpeciesTable* table) {
+    const Substance s = resolve_one(species, table);
+    return detail::from_J_per_mol(formation_enthalpy(s, T), unit, s.molar_mass);
+}
+
+double Engine::species_cp(std::string_view species, double T, const SpeciesTable* table) {
+    check_temperature(T);
+    return resolve_one(species, table).Cp(T);
+}
+
+double Engine::species_h(std::string_view species, double T, double Tref, const SpeciesTable* table) {
+    check_temperature(T);
+    check_temperature(Tref);
+    const Substance s = resolve_one(species, table);
+    return (s.H(T) - s.H(Tref)) / 1000.0;
+}
+
+double Engine::species_s(std::string_view species, double T, const SpeciesTable* table) {
+    check_temperature(T);
+    return resolve_one(species, table).S(T);
+}
+
+SpeciesReport Engine::species_report(std::string_view species, double T, const SpeciesTable* table) {
+    check_temperature(T);
+    const Substance s = resolve_one(species, table);
+    SpeciesReport r;
+    r.species = s.display;
+    r.record = s.records.empty() ? "user table" : s.records.front()->name;
+    r.temperature_K = T;
+    r.dHf_kJ_per_mol = s.H(T_ref) / 1000.0;
+    r.H_kJ_per_mol = s.H(T) / 1000.0;
+    r.dH_sensible_kJ_per_mol = (s.H(T) - s.H(T_ref)) / 1000.0;
+    r.Cp_J_per_molK = s.Cp(T);
+    r.S_J_per_molK = s.S(T);
+    r.molar_mass_g_per_mol = s.molar_mass;
+    for (const auto* rec : s.records)
+        if (rec->tmin() <= T + 1e-6 && T <= rec->tmax() + 1e-6) {
+            r.record = rec->name;
+            r.tmin_K = rec->tmin();
+            r.tmax_K = rec->tmax();
+        }
+    r.source = s.source();
+    return r;
+}
+
+double Engine::molar_mass(std::string_view formula) {
+    const auto sp = parse_one_species(formula, "the formula");
+    const Database& db = Database::get();
+    return db.molar_mass(db.composition(sp));
+}
+
+std::string Engine::source(std::string_view text, const SpeciesTable* table) {
+    std::string out;
+    if (looks_like_reaction(text)) {
+        const auto p = detail::prepare(text, table);
+        p->require_thermo();
+        std::set<std::string> seen;
+        for (const auto& s : p->substances)
+            if (seen.insert(s.identity()).second) out += s.source() + "\n";
+    } else {
+        out += resolve_one(text, table).source() + "\n";
+    }
+    out += "Molar masses: standard atomic weights, data/elements.csv. " + Database::get().identity() + ".";
+    return out;
+}
+
+std::string Engine::version() {
+    std::string v = std::string("rxnheat ") + RXNHEAT_VERSION + "; " + Database::get().identity();
+    const std::string_view prov = detail::embedded_nasa_provenance();
+    for (std::string_view key : {"origin: ", "sha256: "}) {
+        auto at = prov.find(key);
+        if (at == std::string_view::npos) continue;
+        auto end = prov.find('\n', at);
+        v += "; NASA file " + std::string(prov.substr(at, end - at));
+    }
+    return v;
+}
+
+}  // namespace rxnheat

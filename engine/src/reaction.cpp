@@ -1,0 +1,292 @@
+// Preparing reactions: parse, compositions, balance, resolution; and the cache of prepared
+// reactions keyed by the exact text (and user table), so a sheet that repeats a reaction pays
+// the parse and the look-ups once.
+#include "reaction.hpp"
+
+#include "chem.hpp"
+#include "units.hpp"
+#include "usertable.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <list>
+#include <set>
+#include <map>
+#include <mutex>
+#include <unordered_map>
+
+namespace rxnheat::detail {
+
+namespace {
+
+Error from_parse_error(const grammar::ParseError& e) { return Error(ErrorKind::syntax, e.what()); }
+
+std::string side_text(const std::vector<grammar::Term>& terms, const std::vector<Rational>& coefs,
+                      bool use_resolved, const std::vector<Substance>* subs, std::size_t offset) {
+    std::string out;
+    for (std::size_t i = 0; i < terms.size(); ++i) {
+        if (i) out += " + ";
+        if (coefs[i] != 1) out += rational_text(coefs[i]) + " ";
+        out += use_resolved ? (*subs)[offset + i].display : terms[i].species.written;
+    }
+    return out;
+}
+
+std::string atom_count_text(const Rational& r) {
+    using boost::multiprecision::denominator;
+    if (denominator(r) == 1) return rational_text(r);
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.6g", to_double(r));
+    return buf;
+}
+
+void check_balance(Prepared& p) {
+    std::map<std::string, std::pair<Rational, Rational>> totals;  // element -> (left, right)
+    Rational q_left = 0, q_right = 0;
+    for (std::size_t i = 0; i < p.terms.size(); ++i) {
+        const bool product = p.nu[i] > 0;
+        const Rational n = product ? p.nu[i] : Rational(-p.nu[i]);
+        for (const auto& [sym, count] : p.compositions[i].atoms) {
+            auto& t = totals[sym];
+            (product ? t.second : t.first) += n * count;
+        }
+        (product ? q_right : q_left) += n * p.compositions[i].charge;
+    }
+    std::string bad;
+    for (const auto& [sym, t] : totals)
+        if (t.first != t.second)
+            bad += std::string(bad.empty() ? "" : "; ") + sym + " " + atom_count_text(t.first) + " on the left, " +
+                   atom_count_text(t.second) + " on the right";
+    if (q_left != q_right)
+        bad += std::string(bad.empty() ? "" : "; ") + "charge " + atom_count_text(q_left) + " on the left, " +
+               atom_count_text(q_right) + " on the right";
+    if (bad.empty()) return;
+    std::string msg = "the reaction is not balanced: " + bad;
+    try {
+        msg += ". Balanced, it would read: " + balanced_text(p);
+    } catch (const Error&) {
+        // no unique balance: say nothing more
+    }
+    p.balance_error = Error(ErrorKind::unbalanced, msg);
+}
+
+class PreparedCache {
+public:
+    explicit PreparedCache(std::size_t capacity) : capacity_(capacity) {}
+    std::shared_ptr<const Prepared> find(const std::string& key) {
+        std::lock_guard<std::mutex> lock(mutex_);
+        auto it = map_.find(key);
+        if (it == map_.end()) return nullptr;
+        lru_.splice(lru_.begin(), lru_, it->second);
+        return it->second->second;
+    }
+    void put(const std::string& key, std::shared_ptr<const Prepared> value) {
+        std::lock_guard<std::mutex> lock(mutex_);
+        if (auto it = map_.find(key); it != map_.end()) return;
+        lru_.emplace_front(key, std::move(value));
+        map_.emplace(key, lru_.begin());
+        if (map_.size() > capacity_) {
+            map_.erase(lru_.back().first);
+            lru_.pop_back();
+        }
+    }
+
+private:
+    using Entry = std::pair<std::string, std::shared_ptr<const Prepared>>;
+    std::size_t capacity_;
+    std::mutex mutex_;
+    std::list<Entry> lru_;
+    std::unordered_map<std::string, std::list<Entry>::iterator> map_;
+};
+
+PreparedCache& cache() {
+    static PreparedCache c(4096);
+    return c;
+}
+
+
+}  // namespace
+
+void check_input_text(std::string_view text, const char* what) {
+    std::size_t chars = 0;
+    for (unsigned char c : text)
+        if ((c & 0xC0) != 0x80) ++chars;
+    if (chars > max_input_chars)
+        throw Error(ErrorKind::too_long, std::string(what) + " is " + std::to_string(chars) +
+                                             " characters long; rxnheat reads at most " +
+                                             std::to_string(max_input_chars));
+}
+
+void Prepared::require_compositions() const {
+    if (composition_error) throw *composition_error;
+}
+
+void Prepared::require_thermo() const {
+    require_compositions();
+    if (balance_error) throw *balance_error;
+    if (resolve_error) throw *resolve_error;
+}
+
+double Prepared::dH(double T) const {
+    require_thermo();
+    double h = 0;
+    for (std::size_t i = 0; i < terms.size(); ++i) h += to_double(nu[i]) * substances[i].H(T);
+    return h;
+}
+
+double Prepared::dS(double T) const {
+    require_thermo();
+    double s = 0;
+    for (std::size_t i = 0; i < terms.size(); ++i) s += to_double(nu[i]) * substances[i].S(T);
+    return s;
+}
+
+double Prepared::dn_gas() const {
+    require_thermo();
+    double n = 0;
+    for (std::size_t i = 0; i < terms.size(); ++i)
+        if (substances[i].phase == 'g') n += to_double(nu[i]);
+    return n;
+}
+
+std::string Prepared::canonical() const {
+    require_thermo();
+    std::vector<Rational> l, r;
+    for (const auto& t : ast.reactants) l.push_back(t.coefficient);
+    for (const auto& t : ast.products) r.push_back(t.coefficient);
+    return side_text(ast.reactants, l, true, &substances, 0) + " -> " +
+           side_text(ast.products, r, true, &substances, ast.reactants.size());
+}
+
+Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTable* table,
+                                   std::size_t* term_index) const {
+    require_thermo();
+    const Database& db = Database::get();
+    const Composition want = db.composition(key);
+    const std::string want_key = want.key();
+    const char want_phase = key.phase.empty() ? 0 : key.phase == "aq" ? 'a' : key.phase[0];
+    (void)table;
+    Rational net = 0;
+    std::string identity;
+    bool found = false;
+    for (std::size_t i = 0; i < terms.size(); ++i) {
+        if (compositions[i].key() != want_key) continue;
+        if (want_phase && substances[i].phase != want_phase) continue;
+        if (found && substances[i].identity() != identity)
+            throw Error(ErrorKind::argument, "'" + key.written + "' fits more than one species of the reaction (" +
+                                                 substances[*term_index].display + ", " + substances[i].display +
+                                                 "); write its phase");
+        if (!found) {
+            identity = substances[i].identity();
+            *term_index = i;
+        }
+        found = true;
+        net += nu[i];
+    }
+    if (!found) throw Error(ErrorKind::argument, "'" + key.written + "' is not a species of the reaction");
+    if (net == 0)
+        throw Error(ErrorKind::argument, "'" + key.written + "' appears on both sides with the same amount, so "
+                                                             "nothing of it reacts or forms");
+    return net;
+}
+
+std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
+                          const std::vector<Rational>& product_coefs) {
+    return side_text(r.reactants, reactant_coefs, false, nullptr, 0) + " " + r.arrow + " " +
+           side_text(r.products, product_coefs, false, nullptr, 0);
+}
+
+std::string balanced_text(const Prepared& prepared) {
+    const Prepared* p = &prepared;
+    p->require_compositions();
+    std::vector<std::string> symbols;
+    {
+        std::set<std::string> seen;
+        for (const auto& c : p->compositions)
+            for (const auto& a : c.atoms)
+                if (seen.insert(a.first).second) symbols.push_back(a.first);
+    }
+    const std::size_t n = p->terms.size();
+    std::vector<std::vector<Rational>> m;
+    for (const auto& sym : symbols) {
+        std::vector<Rational> row(n, Rational(0));
+        for (std::size_t j = 0; j < n; ++j)
+            for (const auto& a : p->compositions[j].atoms)
+                if (a.first == sym) row[j] = (p->nu[j] < 0 ? a.second : Rational(-a.second));
+        m.push_back(std::move(row));
+    }
+    std::vector<Rational> charge(n, Rational(0));
+    bool charged = false;
+    for (std::size_t j = 0; j < n; ++j) {
+        const int q = p->compositions[j].charge;
+        charged = charged || q != 0;
+        charge[j] = p->nu[j] < 0 ? Rational(q) : Rational(-q);
+    }
+    if (charged) m.push_back(charge);
+    const auto basis = null_space(m, n);
+    if (basis.empty())
+        throw Error(ErrorKind::unbalanced, "no coefficients balance these species: check the formulas, or a species is missing");
+    if (basis.size() > 1)
+        throw Error(ErrorKind::unbalanced,
+                    "these species balance in " + std::to_string(basis.size()) +
+                        " independent ways, so no single balance exists; give the coefficients yourself or split the reaction");
+    auto v = smallest_integers(basis.front());
+    bool any_neg = false, any_pos = false;
+    for (const auto& x : v) {
+        any_neg = any_neg || x < 0;
+        any_pos = any_pos || x > 0;
+    }
+    if (any_neg && !any_pos)
+        for (auto& x : v) x = -x;
+    for (std::size_t j = 0; j < n; ++j)
+        if (v[j] <= 0)
+            throw Error(ErrorKind::unbalanced, "no balance with these species on these sides: " +
+                                                   p->terms[j]->species.written +
+                                                   (v[j] == 0 ? " would get a coefficient of zero"
+                                                              : " belongs on the other side"));
+    const std::size_t nl = p->ast.reactants.size();
+    return reaction_text(p->ast, std::vector<Rational>(v.begin(), v.begin() + nl),
+                                 std::vector<Rational>(v.begin() + nl, v.end()));
+}
+
+std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table) {
+    check_input_text(text, "the reaction");
+    std::string key(text);
+    if (table && table->impl()) key = table_identity(*table->impl()) + "\x1d" + key;
+    if (auto hit = cache().find(key)) return hit;
+
+    auto p = std::make_shared<Prepared>();
+    try {
+        p->ast = grammar::parse_reaction(text);
+    } catch (const grammar::ParseError& e) {
+        throw from_parse_error(e);
+    }
+    for (const auto& t : p->ast.reactants) {
+        p->terms.push_back(&t);
+        p->nu.push_back(-t.coefficient);
+    }
+    for (const auto& t : p->ast.products) {
+        p->terms.push_back(&t);
+        p->nu.push_back(t.coefficient);
+    }
+    const Database& db = Database::get();
+    try {
+        for (const auto* t : p->terms) p->compositions.push_back(db.composition(t->species));
+    } catch (const Error& e) {
+        p->composition_error = e;
+        p->compositions.clear();
+    }
+    if (!p->composition_error) {
+        check_balance(*p);
+        try {
+            for (const auto* t : p->terms) p->substances.push_back(db.resolve(t->species, table));
+        } catch (const Error& e) {
+            p->resolve_error = e;
+            p->substances.clear();
+        }
+    }
+    cache().put(key, p);
+    return p;
+}
+
+}  // namespace rxnheat::detail

@@ -1,0 +1,55 @@
+// A reaction parsed, checked and resolved once, then evaluated at any temperature. Private.
+#pragma once
+
+#include "database.hpp"
+#include "rxnheat/rxnheat.hpp"
+
+#include <memory>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace rxnheat::detail {
+
+/// A reaction prepared for evaluation. Stages that failed keep their error, so a cached bad
+/// reaction fails the same way every time without being parsed again.
+struct Prepared {
+    grammar::Reaction ast;
+    std::vector<const grammar::Term*> terms;  ///< reactants then products
+    std::vector<Rational> nu;                 ///< signed: reactants < 0, products > 0
+    std::vector<Composition> compositions;    ///< per term (empty if composition_error)
+    std::optional<Error> composition_error;   ///< a bad element symbol or unknown name
+    std::optional<Error> balance_error;       ///< unbalanced elements or charge
+    std::vector<Substance> substances;        ///< per term (empty if resolve_error)
+    std::optional<Error> resolve_error;       ///< no data, ambiguous, missing phase
+
+    /// Throws the first error of the stages a function needs.
+    void require_compositions() const;
+    void require_thermo() const;              ///< compositions, balance and data
+
+    double dH(double T) const;                ///< J/mol of extent
+    double dS(double T) const;                ///< J/(mol·K)
+    double dn_gas() const;                    ///< products minus reactants, gas species
+    std::string canonical() const;            ///< with resolved phases, "->"
+    /// Net signed coefficient of the species `key` in the reaction (matched by composition,
+    /// and by phase when `key` has one). Throws when absent, netted to zero or ambiguous.
+    Rational key_coefficient(const grammar::Species& key, const SpeciesTable* table, std::size_t* term_index) const;
+};
+
+/// Parses and prepares (parse errors throw); cached by exact text and table.
+std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table);
+
+/// The reaction with the smallest whole-number coefficients that balance elements and charge
+/// (exact rational null space), species as written. Throws Error(unbalanced) when there is no
+/// balance, more than one independent one, or a species would need a zero or negative coefficient.
+std::string balanced_text(const Prepared& p);
+
+/// Text of the reaction with new coefficients, species as written, the arrow as written.
+std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
+                          const std::vector<Rational>& product_coefs);
+
+/// Throws Error(too_long / syntax) for input the grammar must not see.
+void check_input_text(std::string_view text, const char* what);
+
+}  // namespace rxnheat::detail

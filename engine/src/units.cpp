@@ -1,0 +1,477 @@
+// Units of rxnheat: tables, lookups, conversions and parse_temperature(). See units.hpp for the
+// definitions and where each factor comes from.
+#include "units.hpp"
+
+#include "rxnheat/rxnheat.hpp"
+
+#include <array>
+#include <charconv>
+#include <cmath>
+#include <string>
+#include <system_error>
+
+namespace rxnheat::detail {
+namespace {
+
+using namespace unit_def;
+
+// ---- text helpers -------------------------------------------------------------------------------
+
+// Length of the whitespace character at the start of s: ASCII blanks, NO-BREAK SPACE (U+00A0) and
+// NARROW NO-BREAK SPACE (U+202F), which pasted numbers often carry. 0 if none.
+std::size_t space_at(std::string_view s) noexcept {
+    if (s.empty()) return 0;
+    const char c = s[0];
+    if (c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v') return 1;
+    if (s.size() >= 2 && s[0] == '\xC2' && s[1] == '\xA0') return 2;
+    if (s.size() >= 3 && s[0] == '\xE2' && s[1] == '\x80' && s[2] == '\xAF') return 3;
+    return 0;
+}
+
+std::size_t space_before_end(std::string_view s) noexcept {
+    if (s.empty()) return 0;
+    const char c = s.back();
+    if (c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v') return 1;
+    if (s.size() >= 2 && s.substr(s.size() - 2) == "\xC2\xA0") return 2;
+    if (s.size() >= 3 && s.substr(s.size() - 3) == "\xE2\x80\xAF") return 3;
+    return 0;
+}
+
+std::string_view trim(std::string_view s) noexcept {
+    while (std::size_t n = space_at(s)) s.remove_prefix(n);
+    while (std::size_t n = space_before_end(s)) s.remove_suffix(n);
+    return s;
+}
+
+// Trims both ends and drops blanks around every '/': " kg / h " -> "kg/h".
+std::string normalise(std::string_view s) {
+    s = trim(s);
+    std::string out;
+    out.reserve(s.size());
+    for (std::size_t i = 0; i < s.size();) {
+        if (s[i] == '/') {
+            while (!out.empty() && (out.back() == ' ' || out.back() == '\t')) out.pop_back();
+            out += '/';
+            ++i;
+            while (i < s.size() && (s[i] == ' ' || s[i] == '\t')) ++i;
+        } else {
+            out += s[i++];
+        }
+    }
+    return out;
+}
+
+// The user's text for a message: at most 40 bytes (cut at a UTF-8 boundary), control characters
+// shown as '?', in single quotes.
+std::string quote(std::string_view s) {
+    constexpr std::size_t limit = 40;
+    bool cut = false;
+    if (s.size() > limit) {
+        std::size_t n = limit;
+        while (n > 0 && (static_cast<unsigned char>(s[n]) & 0xC0) == 0x80) --n;
+        s = s.substr(0, n);
+        cut = true;
+    }
+    std::string out = "'";
+    for (char c : s) out += (static_cast<unsigned char>(c) < 0x20 || c == 0x7F) ? '?' : c;
+    if (cut) out += "...";
+    out += "'";
+    return out;
+}
+
+char ascii_lower(char c) noexcept { return (c >= 'A' && c <= 'Z') ? static_cast<char>(c - 'A' + 'a') : c; }
+
+// True if s starts with `word` (lowercase ASCII), ignoring ASCII case.
+bool starts_with_ignoring_ascii_case(std::string_view s, std::string_view word) noexcept {
+    if (s.size() < word.size()) return false;
+    for (std::size_t i = 0; i < word.size(); ++i)
+        if (ascii_lower(s[i]) != word[i]) return false;
+    return true;
+}
+
+// A number for a message, independent of the C locale, to 6 significant digits.
+std::string format_number(double v) {
+    char buf[64];
+    const auto r = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::general, 6);
+    return r.ec == std::errc() ? std::string(buf, r.ptr) : std::string("?");
+}
+
+bool equal_ignoring_ascii_case(std::string_view a, std::string_view b) noexcept {
+    if (a.size() != b.size()) return false;
+    for (std::size_t i = 0; i < a.size(); ++i) {
+        if (ascii_lower(a[i]) != ascii_lower(b[i])) return false;
+    }
+    return true;
+}
+
+void require_finite(double v, const char* what) {
+    if (!std::isfinite(v)) throw Error(ErrorKind::argument, std::string(what) + " is not a finite number");
+}
+
+double checked_molar_mass(std::optional<double> m) {
+    // Callers test has_value() first.
+    if (!std::isfinite(*m) || *m <= 0)
+        throw Error(ErrorKind::argument, "the molar mass must be a finite number above 0 g/mol");
+    return *m;
+}
+
+// ---- tables ------------------------------------------------------------------------------------
+
+struct Named {
+    std::string_view name;
+    double factor;
+};
+
+// Energy per mole: J/mol per unit.
+constexpr std::array<Named, 6> molar_units{{
+    {"J/mol", 1.0},
+    {"kJ/mol", 1e3},
+    {"MJ/kmol", 1e3},
+    {"kcal/mol", 1e3 * cal_J},
+    {"cal/mol", cal_J},
+    {"BTU/lbmol", btu_J / lbmol_mol},
+}};
+// Energy per mass: J/g per unit.
+constexpr std::array<Named, 5> mass_units{{
+    {"kJ/kg", 1.0},
+    {"MJ/kg", 1e3},
+    {"kJ/g", 1e3},
+    {"kcal/kg", cal_J},
+    {"BTU/lb", btu_J / (lb_kg * 1e3)},
+}};
+// Load totals: J per unit.
+constexpr std::array<Named, 10> total_units{{
+    {"J", 1.0},
+    {"kJ", 1e3},
+    {"MJ", 1e6},
+    {"GJ", 1e9},
+    {"kWh", 3.6e6},
+    {"MWh", 3.6e9},
+    {"kcal", 1e3 * cal_J},
+    {"BTU", btu_J},
+    {"MMBTU", 1e6 * btu_J},
+    {"therm", therm_J},
+}};
+// Load rates: W per unit.
+constexpr std::array<Named, 7> rate_units{{
+    {"W", 1.0},
+    {"kW", 1e3},
+    {"MW", 1e6},
+    {"kcal/h", 1e3 * cal_J / 3600.0},
+    {"BTU/h", btu_J / 3600.0},
+    {"MMBTU/h", 1e6 * btu_J / 3600.0},
+    {"TR", 12000.0 * btu_J / 3600.0},
+}};
+
+struct QuantityBase {
+    std::string_view name;
+    QuantityKind kind;
+    double factor;      // mol, g, or m³
+    double mol_per_m3;  // volume only
+};
+constexpr std::array<QuantityBase, 11> quantity_bases{{
+    {"mol", QuantityKind::amount, 1.0, 0},
+    {"kmol", QuantityKind::amount, 1e3, 0},
+    {"lbmol", QuantityKind::amount, lbmol_mol, 0},
+    {"g", QuantityKind::mass, 1.0, 0},
+    {"kg", QuantityKind::mass, 1e3, 0},
+    {"t", QuantityKind::mass, 1e6, 0},
+    {"lb", QuantityKind::mass, lb_kg * 1e3, 0},
+    {"Nm3", QuantityKind::volume, 1.0, normal_mol_per_m3},
+    {"Nm\xC2\xB3", QuantityKind::volume, 1.0, normal_mol_per_m3},  // Nm³
+    {"Nm^3", QuantityKind::volume, 1.0, normal_mol_per_m3},
+    {"scf", QuantityKind::volume, ft3_m3, scf_mol_per_m3},
+}};
+constexpr std::array<Named, 4> time_units{{{"s", 1.0}, {"min", 60.0}, {"h", 3600.0}, {"d", 86400.0}}};
+
+template <std::size_t N>
+const Named* find(const std::array<Named, N>& table, std::string_view name) noexcept {
+    for (const Named& u : table)
+        if (u.name == name) return &u;
+    return nullptr;
+}
+
+template <std::size_t N>
+std::string join(const std::array<Named, N>& table) {
+    std::string out;
+    for (const Named& u : table) {
+        if (!out.empty()) out += ", ";
+        out += u.name;
+    }
+    return out;
+}
+
+// " (unit names are case-sensitive: did you mean 'MJ/kg'?)" when a known name matches but for
+// letter case; else empty.
+template <std::size_t N>
+void add_case_hint(std::string& hint, const std::array<Named, N>& table, std::string_view name) {
+    for (const Named& u : table)
+        if (hint.empty() && u.name != name && equal_ignoring_ascii_case(u.name, name))
+            hint = " (unit names are case-sensitive: did you mean '" + std::string(u.name) + "'?)";
+}
+
+const std::string& molar_known_text() {
+    static const std::string text = "energy per mole " + join(molar_units) +
+                                    "; per mass of the `per` species " + join(mass_units);
+    return text;
+}
+
+const std::string& quantity_known_text() {
+    static const std::string text =
+        "amount mol, kmol, lbmol; mass g, kg, t, lb; normal gas volume Nm3 (0 \xC2\xB0" "C, "
+        "101.325 kPa), scf (60 \xC2\xB0" "F, 14.696 psia); each alone for a total or followed by "
+        "/s, /min, /h or /d for a flow (e.g. kg/h)";
+    return text;
+}
+
+// The factor of a per-mole or per-mass energy unit; `per_mass` tells which.
+double energy_factor(std::string_view unit_text, bool& per_mass) {
+    const std::string unit = normalise(unit_text);
+    const std::string_view name = unit.empty() ? std::string_view("kJ/mol") : std::string_view(unit);
+    if (const Named* u = find(molar_units, name)) {
+        per_mass = false;
+        return u->factor;
+    }
+    if (const Named* u = find(mass_units, name)) {
+        per_mass = true;
+        return u->factor;
+    }
+    std::string hint;
+    add_case_hint(hint, molar_units, name);
+    add_case_hint(hint, mass_units, name);
+    if (hint.empty() && (find(total_units, name) || find(rate_units, name)))
+        hint = " (that is a load unit; this result is an energy per amount, e.g. kJ/mol)";
+    throw Error(ErrorKind::unit, "unknown energy unit " + quote(unit_text) + hint +
+                                     "; known units: " + molar_known_text());
+}
+
+double energy_to_J_per_mol_factor(std::string_view unit, std::optional<double> molar_mass) {
+    bool per_mass = false;
+    const double f = energy_factor(unit, per_mass);
+    if (!per_mass) return f;
+    if (!molar_mass)
+        throw Error(ErrorKind::unit,
+                    "unit " + quote(trim(unit)) +
+                        " is per mass: give `per`, the species whose mass it is per (or use an "
+                        "energy per mole such as kJ/mol)");
+    return f * checked_molar_mass(molar_mass);  // (J/g per unit) × (g/mol) = J/mol per unit
+}
+
+}  // namespace
+
+// ---- energy per amount --------------------------------------------------------------------------
+
+double from_J_per_mol(double J_per_mol, std::string_view unit, std::optional<double> molar_mass) {
+    const double f = energy_to_J_per_mol_factor(unit, molar_mass);
+    require_finite(J_per_mol, "the value");
+    return J_per_mol / f;
+}
+
+double to_J_per_mol(double value, std::string_view unit, std::optional<double> molar_mass) {
+    const double f = energy_to_J_per_mol_factor(unit, molar_mass);
+    require_finite(value, "the value");
+    return value * f;
+}
+
+bool is_per_mass_unit(std::string_view unit) noexcept {
+    try {
+        return find(mass_units, normalise(unit)) != nullptr;
+    } catch (...) {  // std::bad_alloc from normalise()
+        return false;
+    }
+}
+
+// ---- quantities ---------------------------------------------------------------------------------
+
+QuantityUnit quantity_unit(std::string_view unit_text) {
+    const std::string unit = normalise(unit_text);
+    std::string_view base = unit, per;
+    if (const std::size_t slash = base.find('/'); slash != std::string_view::npos) {
+        per = base.substr(slash + 1);
+        base = base.substr(0, slash);
+    }
+    const QuantityBase* b = nullptr;
+    for (const QuantityBase& q : quantity_bases)
+        if (q.name == base) b = &q;
+    const Named* t = per.empty() ? nullptr : find(time_units, per);
+    const bool bad_time = unit.find('/') != std::string::npos && !t;
+    if (!b || bad_time) {
+        std::string msg = unit.empty() ? std::string("the quantity unit is empty")
+                                       : "unknown quantity unit " + quote(unit_text);
+        std::string hint;
+        if (b && bad_time) {
+            hint = " (the time after '/' must be s, min, h or d)";
+        } else if (base == "m3" || base == "m\xC2\xB3" || base == "m^3") {
+            hint = " (a gas volume needs its conditions: Nm3 at 0 \xC2\xB0" "C and 101.325 kPa, or "
+                   "scf at 60 \xC2\xB0" "F and 14.696 psia)";
+        } else {
+            for (const QuantityBase& q : quantity_bases)
+                if (hint.empty() && equal_ignoring_ascii_case(q.name, base))
+                    hint = " (unit names are case-sensitive: did you mean '" + std::string(q.name) + "'?)";
+        }
+        throw Error(ErrorKind::unit, msg + hint + "; known units: " + quantity_known_text());
+    }
+    QuantityUnit q;
+    q.kind = b->kind;
+    q.factor = b->factor;
+    q.mol_per_m3 = b->mol_per_m3;
+    q.seconds = t ? t->factor : 0.0;
+    return q;
+}
+
+double quantity_to_mol(double quantity, std::string_view unit, std::optional<double> molar_mass) {
+    const QuantityUnit q = quantity_unit(unit);
+    require_finite(quantity, "the quantity");
+    double mol = 0;
+    switch (q.kind) {
+    case QuantityKind::amount:
+        mol = quantity * q.factor;
+        break;
+    case QuantityKind::mass:
+        if (!molar_mass)
+            throw Error(ErrorKind::unit, "the quantity unit " + quote(trim(unit)) +
+                                             " is a mass: it needs the key species' molar mass");
+        mol = quantity * q.factor / checked_molar_mass(molar_mass);
+        break;
+    case QuantityKind::volume:
+        mol = quantity * q.factor * q.mol_per_m3;
+        break;
+    }
+    if (q.is_rate()) mol /= q.seconds;
+    if (!std::isfinite(mol)) throw Error(ErrorKind::argument, "the quantity is too large");
+    return mol;
+}
+
+// ---- load results -------------------------------------------------------------------------------
+
+double load_result(double J_or_W, std::string_view unit_text, bool rate, std::string_view quantity_unit_text) {
+    const std::string unit = normalise(unit_text);
+    const std::string_view name =
+        unit.empty() ? (rate ? default_rate_unit : default_total_unit) : std::string_view(unit);
+    const Named* same = rate ? find(rate_units, name) : find(total_units, name);
+    if (!same) {
+        const std::string q = quantity_unit_text.empty() ? std::string() : quote(trim(quantity_unit_text));
+        if (rate && find(total_units, name)) {
+            throw Error(ErrorKind::unit,
+                        (q.empty() ? std::string("the quantity") : q) +
+                            " is a flow: give a power unit such as kW, MW, BTU/h, TR (not the "
+                            "energy unit " + quote(unit_text) + "); power units: " + join(rate_units));
+        }
+        if (!rate && find(rate_units, name)) {
+            throw Error(ErrorKind::unit,
+                        (q.empty() ? std::string("the quantity") : q) +
+                            " is a total, not a flow: give an energy unit such as kJ, MJ, kWh, BTU "
+                            "(not the power unit " + quote(unit_text) +
+                            "), or give the quantity per time (e.g. kg/h) for a power; energy "
+                            "units: " + join(total_units));
+        }
+        std::string hint;
+        add_case_hint(hint, total_units, name);
+        add_case_hint(hint, rate_units, name);
+        if (hint.empty() && (find(molar_units, name) || find(mass_units, name)))
+            hint = " (that is an energy per amount; a load is an energy, e.g. kJ, or a power, e.g. kW)";
+        throw Error(ErrorKind::unit, "unknown result unit " + quote(unit_text) + hint +
+                                         "; known units: totals " + join(total_units) +
+                                         "; flows (power) " + join(rate_units));
+    }
+    require_finite(J_or_W, "the value");
+    const double v = J_or_W / same->factor;
+    return v;
+}
+
+}  // namespace rxnheat::detail
+
+// ---- temperature --------------------------------------------------------------------------------
+
+namespace rxnheat {
+namespace {
+
+const char* const temperature_forms =
+    "a number in kelvin, or a number and a unit: K, C, \xC2\xB0" "C, degC, F, \xC2\xB0" "F, degF, "
+    "R, \xC2\xB0R, degR (R is Rankine), e.g. '350 C', '662 F', '623.15 K'";
+
+enum class Scale { kelvin, celsius, fahrenheit, rankine };
+
+// The unit after the number; false if it is none of the accepted forms.
+bool temperature_scale(std::string_view u, Scale& scale) {
+    if (u.empty() || u == "K") return scale = Scale::kelvin, true;
+    // Degree sign (U+00B0), the masculine ordinal (U+00BA) and the ring above (U+02DA), which
+    // pasted text often has in its place; "deg".
+    for (std::string_view deg : {"\xC2\xB0", "\xC2\xBA", "\xCB\x9A", "deg"}) {
+        if (u.size() == deg.size() + 1 && u.substr(0, deg.size()) == deg) {
+            u = u.substr(deg.size());
+            break;
+        }
+    }
+    if (u == "C" || u == "\xE2\x84\x83") return scale = Scale::celsius, true;     // also U+2103 ℃
+    if (u == "F" || u == "\xE2\x84\x89") return scale = Scale::fahrenheit, true;  // also U+2109 ℉
+    if (u == "R") return scale = Scale::rankine, true;
+    return false;
+}
+
+}  // namespace
+
+double parse_temperature(std::string_view text) {
+    using detail::quote;
+    const std::string_view s = detail::trim(text);
+    if (s.empty())
+        throw Error(ErrorKind::argument, "the temperature is empty; give " + std::string(temperature_forms));
+
+    // Sign: '+', '-' or the Unicode minus sign U+2212 (pasted text).
+    std::string_view rest = s;
+    bool negative = false;
+    if (rest[0] == '+' || rest[0] == '-') {
+        negative = rest[0] == '-';
+        rest.remove_prefix(1);
+    } else if (rest.size() >= 3 && rest.substr(0, 3) == "\xE2\x88\x92") {
+        negative = true;
+        rest.remove_prefix(3);
+    }
+    bool starts_numeric = !rest.empty() && ((rest[0] >= '0' && rest[0] <= '9') || rest[0] == '.');
+    double x = 0;
+    const char* end = rest.data();
+    if (starts_numeric) {
+        const auto r = std::from_chars(rest.data(), rest.data() + rest.size(), x, std::chars_format::general);
+        if (r.ec == std::errc::result_out_of_range)
+            throw Error(ErrorKind::argument, "the temperature " + quote(text) + " is not a finite number");
+        if (r.ec != std::errc()) starts_numeric = false;
+        end = r.ptr;
+    }
+    if (!starts_numeric) {
+        const bool looks_non_finite = detail::starts_with_ignoring_ascii_case(rest, "nan") ||
+                                       detail::starts_with_ignoring_ascii_case(rest, "inf");
+        throw Error(ErrorKind::argument,
+                    "the temperature " + quote(text) +
+                        (looks_non_finite ? " is not a finite number" : " does not start with a number") +
+                        "; give " + temperature_forms);
+    }
+    if (negative) x = -x;
+    std::string_view unit = rest.substr(static_cast<std::size_t>(end - rest.data()));
+    unit = detail::trim(unit);
+
+    Scale scale = Scale::kelvin;
+    if (!temperature_scale(unit, scale)) {
+        std::string hint;
+        if (!unit.empty() && unit[0] == ',')
+            hint = " (use '.' as the decimal point)";
+        else if (unit == "k" || unit == "c" || unit == "f" || unit == "r")
+            hint = " (units are case-sensitive: write it in capitals)";
+        throw Error(ErrorKind::unit, "unknown temperature unit " + quote(unit) + " in " + quote(text) +
+                                         hint + "; give " + temperature_forms);
+    }
+    double T = x;
+    switch (scale) {
+    case Scale::kelvin: break;
+    case Scale::celsius: T = x + detail::unit_def::T_zero_C; break;
+    case Scale::fahrenheit: T = (x + 459.67) * 5.0 / 9.0; break;
+    case Scale::rankine: T = x * 5.0 / 9.0; break;
+    }
+    if (!std::isfinite(T))
+        throw Error(ErrorKind::argument, "the temperature " + quote(text) + " is too large");
+    if (T < 0)
+        throw Error(ErrorKind::argument, "the temperature " + quote(text) + " is below absolute zero (" +
+                                             detail::format_number(T) + " K)");
+    return T + 0.0;  // -0 -> +0
+}
+
+}  // namespace rxnheat

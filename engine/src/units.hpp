@@ -1,0 +1,125 @@
+// Units of rxnheat: energy per amount, quantities and flows (RXNLOAD), load results, and the
+// gas constant. Private to the engine; parse_temperature() is public (rxnheat.hpp).
+//
+// ---- Unit definitions (every factor is checked against GNU units in tests/base/test_units.cpp)
+//
+//  Gas constant   R = k·N_A = 1.380649e-23 J/K × 6.02214076e23 /mol = 8.31446261815324 J/(mol·K),
+//                 exact since the 2019 SI (CODATA 2018; printed there as 8.314 462 618...).
+//                 GNU units: `gasconstant` (alias `R`) = k N_A, the same number. (The NASA Glenn
+//                 coefficients were fitted with 8.314510; nasa.hpp keeps that one for them.)
+//  cal, kcal      thermochemical calorie, 1 cal = 4.184 J exactly, as thermochemical tables use.
+//                 GNU units: `cal` = `calorie_th` = 4.184 J (not the 4.1868 J IT calorie).
+//  BTU            International Table BTU, 1055.05585262 J exactly (= cal_IT·lb·°F/(g·K)).
+//                 GNU units: `btu` = `btu_IT`. MMBTU = 10^6 BTU. BTU/lb = 2.326 J/g exactly.
+//  therm          the US therm, 105 480 400 J exactly, as GNU units' `therm` (= `UStherm`).
+//                 It is not 10^5 IT BTU (105 505 585.262 J) nor the EC therm (10^5 × 1055.06 J):
+//                 the three differ by up to 0.025 %.
+//  lb, lbmol      avoirdupois pound 0.45359237 kg exactly; lbmol = 453.59237 mol.
+//  t              metric tonne, 1000 kg (not the short or long ton).
+//  psi            lbf/in² = 0.45359237 kg × 9.80665 m/s² / (0.0254 m)² = 6894.757293168... Pa.
+//  Nm3 (Nm³)      1 m³ of ideal gas at 0 °C (273.15 K) and 101.325 kPa:
+//                 n = p·V/(R·T) = 44.6150334054703 mol (molar volume 22.413969545 L/mol).
+//  scf            1 ft³ (0.028316846592 m³) of ideal gas at 60 °F (288.7055... K) and
+//                 14.696 psia (101325.353... Pa): 1.19529110617742 mol (379.4828 scf/lbmol).
+//                 Both are computed from R, not typed molar volumes.
+//  TR             ton of refrigeration, 12 000 BTU/h = 3516.8528420667 W (GNU units `tonref`).
+//  time           s, min = 60 s, h = 3600 s, d = 86 400 s.
+//  kWh, MWh       3.6e6 J, 3.6e9 J.
+//  temperature    K; C: T = t + 273.15; F: T = (t + 459.67)·5/9; R (Rankine): T = t·5/9.
+//
+// Unit names are case-sensitive (`MJ/kg` is accepted, `mJ/kg` and `mj/kg` are errors that list
+// the known units; a wrong-case name gets a "did you mean" hint, never a silent fix). Spaces at
+// either end of a unit and around its '/' are ignored. An empty energy or result unit means the
+// default (kJ/mol; kJ for totals, kW for rates). An empty quantity unit is an error.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <string_view>
+
+namespace rxnheat::detail {
+
+/// Boltzmann and Avogadro constants (exact, SI 2019).
+inline constexpr double boltzmann_J_per_K = 1.380649e-23;
+inline constexpr double avogadro_per_mol = 6.02214076e23;
+/// Molar gas constant R = k·N_A, J/(mol·K) (CODATA 2018, exact).
+inline constexpr double R = 8.31446261815324;
+
+/// Exact definitions used by the unit tables (see the block above).
+namespace unit_def {
+inline constexpr double cal_J = 4.184;                  // thermochemical calorie
+inline constexpr double btu_J = 1055.05585262;          // International Table BTU
+inline constexpr double therm_J = 105480400.0;          // US therm
+inline constexpr double lb_kg = 0.45359237;             // avoirdupois pound
+inline constexpr double lbmol_mol = 453.59237;
+inline constexpr double standard_gravity = 9.80665;     // m/s², for lbf
+inline constexpr double inch_m = 0.0254;
+inline constexpr double ft_m = 0.3048;
+inline constexpr double psi_Pa = lb_kg * standard_gravity / (inch_m * inch_m);
+inline constexpr double atm_Pa = 101325.0;
+inline constexpr double T_zero_C = 273.15;              // K at 0 °C
+inline constexpr double T_60_F = (60.0 + 459.67) * 5.0 / 9.0;  // K at 60 °F
+/// Ideal-gas molar densities p/(R·T) at the normal and standard conditions, mol/m³.
+inline constexpr double normal_mol_per_m3 = atm_Pa / (R * T_zero_C);        // Nm3
+inline constexpr double scf_mol_per_m3 = 14.696 * psi_Pa / (R * T_60_F);    // scf
+inline constexpr double ft3_m3 = ft_m * ft_m * ft_m;
+}  // namespace unit_def
+
+// ---- energy per amount: RXNDH, RXNDU, RXNDG, SPECIESHF (and FUELHV's per-mole/mass units) ----
+
+/// A value given in J per mole of reaction extent (or of species), returned in `unit`:
+/// per mole J/mol, kJ/mol, MJ/kmol, kcal/mol, cal/mol, BTU/lbmol; per mass (only when
+/// `molar_mass_g_per_mol` is given: the molar mass of the `per` species) kJ/kg, MJ/kg, kJ/g,
+/// kcal/kg, BTU/lb. Empty unit = kJ/mol.
+/// Throws Error(unit) for an unknown unit (the message lists all known ones) and for a per-mass
+/// unit without a molar mass (the message says to give `per`); Error(argument) for a non-finite
+/// value or a molar mass that is not finite and > 0.
+double from_J_per_mol(double J_per_mol, std::string_view unit,
+                      std::optional<double> molar_mass_g_per_mol = std::nullopt);
+/// The inverse: a value in `unit` to J/mol (e.g. RXNHESS step values). Same rules and errors.
+double to_J_per_mol(double value, std::string_view unit,
+                    std::optional<double> molar_mass_g_per_mol = std::nullopt);
+/// True when `unit` is one of the per-mass units above (so the caller needs a molar mass).
+/// Unknown units give false (from_J_per_mol() then reports them).
+bool is_per_mass_unit(std::string_view unit) noexcept;
+
+// ---- quantities and flows: RXNLOAD ------------------------------------------------------------
+
+enum class QuantityKind { amount, mass, volume };
+
+struct QuantityUnit {
+    QuantityKind kind = QuantityKind::amount;
+    /// One unit in mol (amount), g (mass), or m³ at the unit's own reference state (volume).
+    double factor = 0;
+    /// Volume units only: ideal-gas molar density p/(R·T) at the reference state, mol/m³;
+    /// 0 for amount and mass units.
+    double mol_per_m3 = 0;
+    /// Seconds per time unit of a flow ("kg/h": 3600); 0 for a total.
+    double seconds = 0;
+    bool is_rate() const noexcept { return seconds > 0; }
+};
+
+/// Parses a quantity unit: mol, kmol, lbmol, g, kg, t, lb, Nm3 (also Nm³, Nm^3), scf, each
+/// optionally followed by /s, /min, /h or /d. Throws Error(unit) listing the accepted forms.
+QuantityUnit quantity_unit(std::string_view unit);
+
+/// `quantity` in `unit` → mol (a total) or mol/s (a flow) of the key species. Mass units need
+/// the key's molar mass (g/mol). Throws Error(unit) for an unknown unit or a mass unit without
+/// a molar mass, Error(argument) for a non-finite quantity or a bad molar mass.
+double quantity_to_mol(double quantity, std::string_view unit,
+                       std::optional<double> molar_mass_g_per_mol = std::nullopt);
+
+// ---- load results: RXNLOAD ---------------------------------------------------------------------
+
+inline constexpr std::string_view default_total_unit = "kJ";
+inline constexpr std::string_view default_rate_unit = "kW";
+
+/// An energy in J (`rate` false) or a power in W (`rate` true) returned in `unit`:
+/// totals J, kJ, MJ, GJ, kWh, MWh, kcal, BTU, MMBTU, therm; rates W, kW, MW, kcal/h, BTU/h,
+/// MMBTU/h, TR. Empty unit = kJ or kW. `quantity_unit` (the RXNLOAD quantity's unit) only
+/// words the error when a total unit is given for a flow or a power unit for a total.
+/// Throws Error(unit) for an unknown or mismatched unit, Error(argument) for a non-finite value.
+double load_result(double J_or_W, std::string_view unit, bool rate,
+                   std::string_view quantity_unit = {});
+
+}  // namespace rxnheat::detail

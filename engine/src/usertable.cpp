@@ -1,0 +1,248 @@
+// User species tables (SPEC 3.4).
+#include "usertable.hpp"
+
+#include "database.hpp"
+
+#include <charconv>
+#include <cmath>
+#include <cstdio>
+#include <fstream>
+#include <sstream>
+
+namespace rxnheat {
+
+namespace {
+
+using detail::UserSpecies;
+
+std::string trim(std::string s) {
+    const char* ws = " \t\r\n";
+    const auto b = s.find_first_not_of(ws);
+    if (b == std::string::npos) return {};
+    const auto e = s.find_last_not_of(ws);
+    return s.substr(b, e - b + 1);
+}
+
+[[noreturn]] void table_error(std::size_t row, const std::string& column, const std::string& what) {
+    throw Error(ErrorKind::table, "species table row " + std::to_string(row) +
+                                      (column.empty() ? "" : ", column '" + column + "'") + ": " + what);
+}
+
+double number_cell(const std::string& text, std::size_t row, const std::string& column) {
+    const std::string t = trim(text);
+    double v = 0;
+    auto [p, ec] = std::from_chars(t.data(), t.data() + t.size(), v);
+    if (t.empty() || ec != std::errc() || p != t.data() + t.size() || !std::isfinite(v))
+        table_error(row, column, "'" + t + "' is not a number");
+    return v;
+}
+
+const char* const known_columns[] = {"formula", "phase", "dHf", "S", "cp", "a", "b", "c", "d", "e",
+                                     "tmin", "tmax", "name", "source"};
+
+std::string fmt(double x) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.10g", x);
+    return buf;
+}
+
+}  // namespace
+
+SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>& rows) {
+    auto impl = std::make_shared<Impl>();
+    if (rows.empty()) table_error(1, "", "the table is empty; its first row must name the columns");
+    std::vector<std::string> header;
+    for (const auto& h : rows.front()) header.push_back(trim(h));
+    int col_of[std::size(known_columns)];
+    for (auto& c : col_of) c = -1;
+    for (std::size_t j = 0; j < header.size(); ++j) {
+        if (header[j].empty()) continue;
+        bool known = false;
+        for (std::size_t k = 0; k < std::size(known_columns); ++k)
+            if (header[j] == known_columns[k]) {
+                if (col_of[k] >= 0) table_error(1, header[j], "the column is named twice");
+                col_of[k] = static_cast<int>(j);
+                known = true;
+            }
+        if (!known) {
+            std::string list;
+            for (const char* k : known_columns) list += std::string(list.empty() ? "" : ", ") + k;
+            table_error(1, header[j], "unknown column; the columns are " + list);
+        }
+    }
+    for (const char* required : {"formula", "phase", "dHf"})
+        for (std::size_t k = 0; k < std::size(known_columns); ++k)
+            if (std::string(known_columns[k]) == required && col_of[k] < 0)
+                table_error(1, required, "required column missing (formula, phase and dHf are required)");
+    auto cell = [&](const std::vector<std::string>& r, const char* name) -> std::string {
+        for (std::size_t k = 0; k < std::size(known_columns); ++k)
+            if (std::string(known_columns[k]) == name)
+                return col_of[k] >= 0 && static_cast<std::size_t>(col_of[k]) < r.size() ? trim(r[col_of[k]]) : "";
+        return {};
+    };
+    std::string identity;
+    for (std::size_t i = 1; i < rows.size(); ++i) {
+        const auto& r = rows[i];
+        const std::size_t row = i + 1;
+        bool blank = true;
+        for (const auto& c : r) blank = blank && trim(c).empty();
+        if (blank) continue;
+        for (const auto& c : r) identity += c + "\x1f";
+        identity += "\x1e";
+        auto u = std::make_shared<UserSpecies>();
+        u->row = row;
+        const std::string formula = cell(r, "formula");
+        if (formula.empty()) table_error(row, "formula", "empty");
+        try {
+            const auto sp = grammar::parse_species(formula);
+            if (sp.is_name) table_error(row, "formula", "'" + formula + "' is not a formula");
+            if (!sp.phase.empty()) table_error(row, "formula", "write the phase in the phase column");
+            u->formula = sp.formula;
+            u->parsed = sp;
+            if (sp.charge) u->formula += (sp.charge > 0 ? "+" : "-") + std::to_string(std::abs(sp.charge));
+        } catch (const grammar::ParseError& e) {
+            table_error(row, "formula", e.what());
+        }
+        const std::string phase = detail::lower(cell(r, "phase"));
+        if (phase == "g") u->phase = 'g';
+        else if (phase == "l") u->phase = 'l';
+        else if (phase == "s" || phase == "cr") u->phase = 's';
+        else if (phase == "aq") u->phase = 'a';
+        else table_error(row, "phase", "'" + phase + "' is not a phase; use g, l, s, cr or aq");
+        u->dHf = 1000.0 * number_cell(cell(r, "dHf"), row, "dHf");
+        if (auto s = cell(r, "S"); !s.empty()) u->S298 = number_cell(s, row, "S");
+        const std::string cp = cell(r, "cp");
+        bool any_shomate = false;
+        for (const char* k : {"a", "b", "c", "d", "e"}) any_shomate = any_shomate || !cell(r, k).empty();
+        if (!cp.empty() && any_shomate) table_error(row, "cp", "give either cp or the Shomate a..e, not both");
+        if (!cp.empty()) {
+            u->cp_form = UserSpecies::CpForm::constant;
+            u->cp = number_cell(cp, row, "cp");
+        } else if (any_shomate) {
+            u->cp_form = UserSpecies::CpForm::shomate;
+            double* dst[] = {&u->A, &u->B, &u->C, &u->D, &u->E};
+            const char* names[] = {"a", "b", "c", "d", "e"};
+            for (int k = 0; k < 5; ++k) {
+                const auto t = cell(r, names[k]);
+                *dst[k] = t.empty() ? 0.0 : number_cell(t, row, names[k]);
+            }
+        }
+        if (auto t = cell(r, "tmin"); !t.empty()) u->tmin = number_cell(t, row, "tmin");
+        if (auto t = cell(r, "tmax"); !t.empty()) u->tmax = number_cell(t, row, "tmax");
+        if (u->tmin <= 0) table_error(row, "tmin", "must be above 0 K");
+        if (u->tmax < u->tmin) table_error(row, "tmax", "is below tmin");
+        if (u->tmin > T_ref || u->tmax < T_ref)
+            table_error(row, "tmin", "the range must include 298.15 K (dHf is given there)");
+        if (u->cp_form == UserSpecies::CpForm::none && (u->tmin < T_ref || u->tmax > T_ref))
+            table_error(row, "cp", "a range beyond 298.15 K needs cp or the Shomate a..e");
+        u->name = cell(r, "name");
+        u->source = cell(r, "source");
+        impl->rows.push_back(std::move(u));
+    }
+    impl->identity = identity;
+    SpeciesTable t;
+    t.impl_ = std::move(impl);
+    return t;
+}
+
+SpeciesTable SpeciesTable::from_csv_file(const std::string& path) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) throw Error(ErrorKind::table, "cannot read the species table file '" + path + "'");
+    std::vector<std::vector<std::string>> rows;
+    std::string line;
+    while (std::getline(in, line)) {
+        if (!line.empty() && line.back() == '\r') line.pop_back();
+        std::vector<std::string> cells;
+        std::string cur;
+        bool quoted = false;
+        for (std::size_t i = 0; i < line.size(); ++i) {
+            const char c = line[i];
+            if (quoted) {
+                if (c == '"' && i + 1 < line.size() && line[i + 1] == '"') cur += '"', ++i;
+                else if (c == '"') quoted = false;
+                else cur += c;
+            } else if (c == '"') quoted = true;
+            else if (c == ',') cells.push_back(cur), cur.clear();
+            else cur += c;
+        }
+        cells.push_back(cur);
+        rows.push_back(std::move(cells));
+        if (rows.size() > 100000) throw Error(ErrorKind::table, "species table '" + path + "' has over 100000 rows");
+    }
+    return from_rows(rows);
+}
+
+namespace detail {
+
+namespace {
+void check_range(const UserSpecies& u, double T, const std::string& shown) {
+    if (!std::isfinite(T) || T <= 0) throw Error(ErrorKind::argument, "temperature must be a positive number of kelvin");
+    if (T < u.tmin - 1e-6 || T > u.tmax + 1e-6)
+        throw Error(ErrorKind::out_of_range, shown + ": the species table row " + std::to_string(u.row) + " covers " +
+                                                 u.range_text() + "; " + fmt(T) + " K is outside it");
+}
+// Shomate integrals (NIST form, t = T/1000): ∫Cp dT in kJ/mol and ∫Cp/T dT in J/(mol·K).
+double shomate_h(const UserSpecies& u, double T) {
+    const double t = T / 1000.0;
+    return u.A * t + u.B * t * t / 2 + u.C * t * t * t / 3 + u.D * t * t * t * t / 4 - u.E / t;
+}
+double shomate_s(const UserSpecies& u, double T) {
+    const double t = T / 1000.0;
+    return u.A * std::log(t) + u.B * t + u.C * t * t / 2 + u.D * t * t * t / 3 - u.E / (2 * t * t);
+}
+}  // namespace
+
+std::string UserSpecies::range_text() const { return fmt(tmin) + "–" + fmt(tmax) + " K"; }
+
+double UserSpecies::H(double T, const std::string& shown) const {
+    check_range(*this, T, shown);
+    switch (cp_form) {
+    case CpForm::constant: return dHf + cp * (T - T_ref);
+    case CpForm::shomate: return dHf + 1000.0 * (shomate_h(*this, T) - shomate_h(*this, T_ref));
+    default: return dHf;
+    }
+}
+
+double UserSpecies::S(double T, const std::string& shown) const {
+    check_range(*this, T, shown);
+    if (!S298) throw Error(ErrorKind::unknown_species, shown + ": the species table row " + std::to_string(row) + " gives no S");
+    switch (cp_form) {
+    case CpForm::constant: return *S298 + cp * std::log(T / T_ref);
+    case CpForm::shomate: return *S298 + shomate_s(*this, T) - shomate_s(*this, T_ref);
+    default: return *S298;
+    }
+}
+
+double UserSpecies::Cp(double T, const std::string& shown) const {
+    check_range(*this, T, shown);
+    const double t = T / 1000.0;
+    switch (cp_form) {
+    case CpForm::constant: return cp;
+    case CpForm::shomate: return A + B * t + C * t * t + D * t * t * t + E / (t * t);
+    default: throw Error(ErrorKind::unknown_species, shown + ": the species table row " + std::to_string(row) + " gives no cp");
+    }
+}
+
+std::shared_ptr<const UserSpecies> find_user_species(const SpeciesTable::Impl& table, const grammar::Species& sp) {
+    std::string formula = sp.formula;
+    if (sp.charge) formula += (sp.charge > 0 ? "+" : "-") + std::to_string(std::abs(sp.charge));
+    const char want = sp.phase.empty() ? 0 : sp.phase == "aq" ? 'a' : sp.phase[0];
+    std::shared_ptr<const UserSpecies> hit;
+    int hits = 0;
+    for (const auto& u : table.rows) {
+        const bool same = sp.is_name ? (!u->name.empty() && lower(u->name) == lower(sp.name)) : u->formula == formula;
+        if (!same) continue;
+        if (want && u->phase != want) continue;
+        if (want) return u;  // later rows do not override earlier ones: first match wins
+        hit = u;
+        ++hits;
+    }
+    if (hits > 1)
+        throw Error(ErrorKind::phase, sp.written + ": the species table has it in more than one phase; write the phase");
+    return hit;
+}
+
+const std::string& table_identity(const SpeciesTable::Impl& table) { return table.identity; }
+
+}  // namespace detail
+}  // namespace rxnheat

@@ -1,0 +1,750 @@
+// parse.hpp implemented over the X3 grammar (reaction.hpp): UTF-8 decoding, the limits checked
+// before parsing, the messages for failed expectations, and the conversion of the syntax tree
+// into the public Reaction / Species (exact numbers, atom totals, charge, phase).
+#include "grammar/parse.hpp"
+
+#include "grammar/ast.hpp"
+#include "grammar/reaction.hpp"
+
+#include <boost/spirit/home/x3.hpp>
+
+#include <cstdint>
+#include <cstdio>
+#include <optional>
+#include <utility>
+
+namespace rxnheat::grammar {
+
+ParseError::ParseError(std::size_t position, const std::string& message)
+    : std::runtime_error(position == 0 ? message
+                                       : "position " + std::to_string(position) + ": " + message),
+      position_(position),
+      detail_(message) {}
+
+namespace {
+
+namespace x3 = boost::spirit::x3;
+using ast::Text;
+using Iter = parser::iterator_type;
+
+enum class Mode { reaction, species, number };
+
+// ---- characters ------------------------------------------------------------------------------
+
+bool is_blank(char32_t c) {
+    return c == U' ' || c == U'\t' || c == U'\r' || c == U'\n' || c == U'\u00A0' ||
+           c == U'\u2009' || c == U'\u202F';
+}
+bool is_digit(char32_t c) { return c >= U'0' && c <= U'9'; }
+bool is_upper(char32_t c) { return c >= U'A' && c <= U'Z'; }
+bool is_lower(char32_t c) { return c >= U'a' && c <= U'z'; }
+bool is_letter(char32_t c) { return is_upper(c) || is_lower(c); }
+bool is_sign(char32_t c) { return c == U'+' || c == U'-' || c == U'\u2212'; }
+
+int subscript_value(char32_t c) { return c >= U'\u2080' && c <= U'\u2089' ? int(c - U'\u2080') : -1; }
+
+int superscript_value(char32_t c) {
+    switch (c) {
+        case U'\u2070': return 0;
+        case U'\u00B9': return 1;
+        case U'\u00B2': return 2;
+        case U'\u00B3': return 3;
+        default: return c >= U'\u2074' && c <= U'\u2079' ? int(c - U'\u2074') + 4 : -1;
+    }
+}
+
+/// Vulgar fraction characters: {numerator, denominator}, or {0, 0}.
+std::pair<int, int> vulgar_value(char32_t c) {
+    switch (c) {
+        case U'\u00BD': return {1, 2};
+        case U'\u2153': return {1, 3};
+        case U'\u2154': return {2, 3};
+        case U'\u00BC': return {1, 4};
+        case U'\u00BE': return {3, 4};
+        case U'\u2155': return {1, 5};
+        case U'\u2156': return {2, 5};
+        case U'\u2157': return {3, 5};
+        case U'\u2158': return {4, 5};
+        case U'\u2159': return {1, 6};
+        case U'\u215A': return {5, 6};
+        case U'\u2150': return {1, 7};
+        case U'\u215B': return {1, 8};
+        case U'\u215C': return {3, 8};
+        case U'\u215D': return {5, 8};
+        case U'\u215E': return {7, 8};
+        case U'\u2151': return {1, 9};
+        case U'\u2152': return {1, 10};
+        default: return {0, 0};
+    }
+}
+bool is_vulgar(char32_t c) { return vulgar_value(c).second != 0; }
+bool is_number_char(char32_t c) { return is_digit(c) || c == U'.' || c == U'/' || is_vulgar(c); }
+
+bool is_hydrate_dot(char32_t c) {
+    return c == U'\u00B7' || c == U'\u2022' || c == U'\u22C5' || c == U'*';
+}
+
+const Text arrows[] = {U"<=>", U"<->", U"->", U"=>", U"=", U"\u2192", U"\u27F6", U"\u21CC"};
+
+/// Every character the notation uses; anything else is reported as an unexpected character.
+bool in_alphabet(char32_t c) {
+    if (is_blank(c) || is_letter(c) || is_digit(c)) return true;
+    if (c < 0x80) return std::u32string_view(U"+-^{}()[]./*,=<>").find(c) != std::u32string_view::npos;
+    return c == U'\u2212' || subscript_value(c) >= 0 || superscript_value(c) >= 0 ||
+           c == U'\u207A' || c == U'\u207B' || is_vulgar(c) || is_hydrate_dot(c) ||
+           c == U'\u2192' || c == U'\u27F6' || c == U'\u21CC';
+}
+
+// ---- UTF-8 -----------------------------------------------------------------------------------
+
+void append_utf8(std::string& out, char32_t c) {
+    if (c < 0x80) {
+        out += char(c);
+    } else if (c < 0x800) {
+        out += char(0xC0 | (c >> 6));
+        out += char(0x80 | (c & 0x3F));
+    } else if (c < 0x10000) {
+        out += char(0xE0 | (c >> 12));
+        out += char(0x80 | ((c >> 6) & 0x3F));
+        out += char(0x80 | (c & 0x3F));
+    } else {
+        out += char(0xF0 | (c >> 18));
+        out += char(0x80 | ((c >> 12) & 0x3F));
+        out += char(0x80 | ((c >> 6) & 0x3F));
+        out += char(0x80 | (c & 0x3F));
+    }
+}
+
+std::string utf8(Iter first, Iter last) {
+    std::string out;
+    for (; first != last; ++first) append_utf8(out, *first);
+    return out;
+}
+std::string utf8(const Text& t) { return utf8(t.begin(), t.end()); }
+
+std::string hex_byte(unsigned char b) {
+    char buf[8];
+    std::snprintf(buf, sizeof buf, "0x%02X", unsigned(b));
+    return buf;
+}
+
+/// Strict decoding (no overlong forms, surrogates or values above U+10FFFF).
+Text decode(std::string_view s) {
+    Text out;
+    out.reserve(s.size());
+    std::size_t i = 0;
+    while (i < s.size()) {
+        auto const b = static_cast<unsigned char>(s[i]);
+        auto bad = [&](const std::string& why) {
+            return ParseError(out.size() + 1, "the text is not valid UTF-8 (" + why + ")");
+        };
+        if (b < 0x80) {
+            out.push_back(b);
+            ++i;
+            continue;
+        }
+        std::size_t len;
+        char32_t cp;
+        char32_t min;
+        if ((b & 0xE0) == 0xC0) {
+            len = 2, cp = b & 0x1F, min = 0x80;
+        } else if ((b & 0xF0) == 0xE0) {
+            len = 3, cp = b & 0x0F, min = 0x800;
+        } else if ((b & 0xF8) == 0xF0) {
+            len = 4, cp = b & 0x07, min = 0x10000;
+        } else {
+            throw bad("byte " + hex_byte(b) + " cannot start a character");
+        }
+        if (i + len > s.size()) throw bad("the last character is incomplete");
+        for (std::size_t k = 1; k < len; ++k) {
+            auto const c = static_cast<unsigned char>(s[i + k]);
+            if ((c & 0xC0) != 0x80) throw bad("byte " + hex_byte(c) + " cannot continue a character");
+            cp = (cp << 6) | (c & 0x3F);
+        }
+        if (cp < min) throw bad("overlong encoding");
+        if (cp > 0x10FFFF || (cp >= 0xD800 && cp <= 0xDFFF)) throw bad("not a Unicode character");
+        out.push_back(cp);
+        i += len;
+    }
+    return out;
+}
+
+/// "'x'" for printable characters, plus the code point for non-ASCII; "U+0007" for controls.
+std::string describe(char32_t c) {
+    char buf[16];
+    std::snprintf(buf, sizeof buf, "U+%04X", unsigned(c));
+    bool const invisible = c < 0x20 || c == 0x7F || (c >= 0x80 && c < 0xA0) || c == 0xFEFF ||
+                           (c >= 0x200B && c <= 0x200F) || (c >= 0x2028 && c <= 0x202E) ||
+                           (c >= 0x2060 && c <= 0x2064);
+    if (invisible) return std::string(buf) + " (invisible)";
+    std::string q = "'";
+    append_utf8(q, c);
+    q += "'";
+    return c < 0x80 ? q : q + " (" + buf + ")";
+}
+
+std::string in_quotes(const Text& t) { return "'" + utf8(t) + "'"; }
+
+// ---- checks before the grammar runs ----------------------------------------------------------
+
+const char* empty_message(Mode mode) {
+    switch (mode) {
+        case Mode::reaction: return "the reaction is empty";
+        case Mode::species: return "the species is empty";
+        case Mode::number: return "the number is empty";
+    }
+    return "the text is empty";
+}
+
+/// Length (before decoding), UTF-8, emptiness, bracket pairing and depth, digit counts.
+Text prepare(std::string_view utf8_text, Mode mode) {
+    std::size_t chars = 0;  // code points if valid UTF-8: bytes that do not continue a character
+    for (char b : utf8_text)
+        if ((static_cast<unsigned char>(b) & 0xC0) != 0x80) ++chars;
+    if (chars > max_input_characters)
+        throw ParseError(0, "input longer than " + std::to_string(max_input_characters) + " characters");
+
+    Text t = decode(utf8_text);
+    bool blank = true;
+    for (char32_t c : t) blank = blank && is_blank(c);
+    if (blank) throw ParseError(1, empty_message(mode));
+
+    struct Open {
+        char32_t ch;
+        std::size_t position;
+    };
+    std::vector<Open> open;
+    auto closer = [](char32_t c) { return c == U'(' ? U')' : c == U'[' ? U']' : U'}'; };
+    for (std::size_t i = 0; i < t.size(); ++i) {
+        char32_t const c = t[i];
+        if (c == U'(' || c == U'[' || c == U'{') {
+            open.push_back({c, i + 1});
+            if (open.size() > max_group_depth)
+                throw ParseError(i + 1, "groups nested deeper than " + std::to_string(max_group_depth) +
+                                            " levels");
+        } else if (c == U')' || c == U']' || c == U'}') {
+            if (open.empty()) throw ParseError(i + 1, "unmatched " + describe(c));
+            if (closer(open.back().ch) != c)
+                throw ParseError(i + 1, describe(c) + " does not match the " + describe(open.back().ch) +
+                                            " at position " + std::to_string(open.back().position));
+            open.pop_back();
+        } else if (is_digit(c) || subscript_value(c) >= 0 || superscript_value(c) >= 0) {
+            // one number: a run of digits of one kind, ASCII ones possibly with decimal points
+            auto const kind = [](char32_t d) {
+                return is_digit(d) ? 1 : subscript_value(d) >= 0 ? 2 : superscript_value(d) >= 0 ? 3 : 0;
+            };
+            int const k = kind(c);
+            std::size_t j = i, digits = 0;
+            while (j < t.size()) {
+                if (kind(t[j]) == k) {
+                    ++digits;
+                    ++j;
+                } else if (k == 1 && t[j] == U'.' && j + 1 < t.size() && is_digit(t[j + 1])) {
+                    ++j;
+                } else {
+                    break;
+                }
+            }
+            if (digits > max_number_digits)
+                throw ParseError(i + 1, "a number may have at most " + std::to_string(max_number_digits) +
+                                            " digits");
+            i = j - 1;
+        }
+    }
+    if (!open.empty()) throw ParseError(open.back().position, "unmatched " + describe(open.back().ch));
+    return t;
+}
+
+// ---- messages for failed expectations --------------------------------------------------------
+
+/// Is one of the arrows at t[i...]? Sets *which to it.
+bool arrow_at(const Text& t, std::size_t i, Text* which) {
+    for (const Text& a : arrows)
+        if (t.compare(i, a.size(), a) == 0) {
+            if (which) *which = a;
+            return true;
+        }
+    return false;
+}
+
+/// Does t[0, end) end with an arrow?
+bool arrow_before(const Text& t, std::size_t end, Text* which) {
+    for (const Text& a : arrows)
+        if (end >= a.size() && t.compare(end - a.size(), a.size(), a) == 0) {
+            if (which) *which = a;
+            return true;
+        }
+    return false;
+}
+
+
+bool starts_term(char32_t c) {
+    return is_letter(c) || is_digit(c) || c == U'(' || c == U'[' || is_vulgar(c);
+}
+
+/// The species text starting at i: up to whitespace, an arrow or a '+' that separates (one
+/// followed by the start of another term; a '+' before whitespace or the end is a charge).
+Text word_at(const Text& t, std::size_t i) {
+    std::size_t j = i;
+    while (j < t.size() && !is_blank(t[j]) && !(j > i && arrow_at(t, j, nullptr)) &&
+           !(j > i && t[j] == U'+' && j + 1 < t.size() && starts_term(t[j + 1])))
+        ++j;
+    return t.substr(i, j - i);
+}
+
+class Diagnosis {
+public:
+    Diagnosis(Mode mode, const Text& t, const parser::Tracker& tracker)
+        : mode_(mode), t_(t), tr_(tracker) {}
+
+    ParseError error() const {
+        if (!tr_.failed()) return ParseError(1, "the text could not be read");
+        std::size_t const i = std::size_t(tr_.where() - t_.begin());
+        bool const at_end = i >= t_.size();
+        char32_t const c = at_end ? 0 : t_[i];
+        const std::string& key = tr_.key();
+
+        if (!at_end && !in_alphabet(c)) return ParseError(i + 1, "unexpected character " + describe(c));
+        if (!at_end && is_lower(c) && i >= 2 && is_lower(t_[i - 1]) && is_upper(t_[i - 2]))
+            return ParseError(i + 1, "unexpected " + describe(c) + " after " + in_quotes(t_.substr(i - 2, 2)) +
+                                         ": an element symbol is one uppercase letter, optionally "
+                                         "followed by one lowercase letter (names such as 'ethanol' "
+                                         "are written all in lowercase)");
+
+        if (key == "species") return species_expected(i, c, at_end);
+        if (key == "arrow" || key == "end") return end_of_part(key, i, c, at_end);
+        if (key == "number") return ParseError(i + 1, "expected a number such as 2, 0.5, 3/2 or ½");
+        if (key == "digits after point") return ParseError(i + 1, "expected a digit after '.'");
+        if (key == "denominator") return ParseError(i + 1, "expected a whole number after '/'");
+        if (key == "group") {
+            std::string m = "expected an element symbol after " + describe(t_[i - 1]);
+            if (c == U'1' && i + 1 < t_.size() && t_[i + 1] == U')')
+                m += "; for the liquid phase write (l) with a lowercase L";
+            return ParseError(i + 1, m);
+        }
+        if (key == "group close") {
+            std::size_t const o = opening_bracket(i);
+            char32_t const close = t_[o] == U'[' ? U']' : U')';
+            return ParseError(i + 1, "expected " + describe(close) + " to close the " + describe(t_[o]) +
+                                         " at position " + std::to_string(o + 1));
+        }
+        if (key == "hydrate") {
+            std::size_t j = i;
+            while (j > 0 && is_blank(t_[j - 1])) --j;
+            return ParseError(i + 1, "expected a formula after " + describe(t_[j - 1]));
+        }
+        if (key == "caret charge") {
+            std::string m = "expected a charge such as ^2+ or ^- after '^'";
+            if (!at_end && is_sign(c) && i + 1 < t_.size() && is_digit(t_[i + 1]))
+                m += " (the digits come before the sign: ^" + utf8(Text(1, t_[i + 1])) + utf8(Text(1, c)) + ")";
+            return ParseError(i + 1, m);
+        }
+        if (key == "brace charge") return ParseError(i + 1, "expected a charge such as {2+} or {-} after '{'");
+        if (key == "brace close") return ParseError(i + 1, "expected '}' after the charge");
+        if (key == "superscript sign")
+            return ParseError(i + 1, "expected \u207A or \u207B after the superscript digits");
+        if (key == "phase")
+            return ParseError(i, "expected a phase: (g), (l), (s), (cr) or (aq)");
+        return ParseError(i + 1, at_end ? "unexpected end of the text" : "unexpected " + describe(c));
+    }
+
+private:
+    ParseError species_expected(std::size_t i, char32_t c, bool at_end) const {
+        static const char* generic = "expected a species (a formula such as H2O or a name such as ethanol)";
+        Text arrow;
+        if (mode_ == Mode::species) {
+            if (!at_end && (is_digit(c) || is_vulgar(c))) {
+                std::size_t j = i;
+                while (j < t_.size() && is_number_char(t_[j])) ++j;
+                return ParseError(i + 1, "expected a species without a coefficient, found " +
+                                             in_quotes(t_.substr(i, j - i)));
+            }
+            if (!at_end && arrow_at(t_, i, &arrow))
+                return ParseError(i + 1, "expected a species, found the arrow " + in_quotes(arrow));
+            return ParseError(i + 1, generic);
+        }
+        std::size_t j = i;  // end of what precedes, whitespace skipped
+        while (j > 0 && is_blank(t_[j - 1])) --j;
+        if (j == 0) {
+            if (!at_end && arrow_at(t_, i, &arrow))
+                return ParseError(i + 1, "expected a species before the arrow " + in_quotes(arrow));
+            if (c == U'+') return ParseError(i + 1, "expected a species before '+'");
+            return ParseError(i + 1, generic);
+        }
+        char32_t const p = t_[j - 1];
+        if (p == U'+') return ParseError(i + 1, "expected a species after '+'");
+        if (is_number_char(p)) {
+            std::size_t k = j;
+            while (k > 0 && is_number_char(t_[k - 1])) --k;
+            return ParseError(i + 1, "expected a species after the coefficient " + in_quotes(t_.substr(k, j - k)));
+        }
+        if (arrow_before(t_, j, &arrow))
+            return ParseError(i + 1, "expected a species after the arrow " + in_quotes(arrow));
+        return ParseError(i + 1, generic);
+    }
+
+    ParseError end_of_part(const std::string& key, std::size_t i, char32_t c, bool at_end) const {
+        if (auto e = sign_before_space(i, at_end)) return *e;
+        Text arrow;
+        std::string const after = last_species(i);
+        if (!at_end && is_sign(c) && c != U'+' && !arrow_at(t_, i, nullptr) && tr_.has_species() &&
+            tr_.species_last() == t_.begin() + i) {
+            if (is_lower(*tr_.species_first()))
+                return ParseError(i + 1, "unexpected " + describe(c) + " after the name " + after +
+                                             ": a name has no charge, and a '-' inside a name joins two "
+                                             "parts, as in 'n-octane'");
+            return ParseError(i + 1, "a '-' directly after " + after +
+                                         " is a charge only where the formula ends: before a space, "
+                                         "'(', an arrow or the end of the text");
+        }
+        if (mode_ == Mode::number)
+            return ParseError(i + 1, "expected the end of the text after the number");
+        if (mode_ == Mode::species) {
+            if (!at_end && arrow_at(t_, i, &arrow))
+                return ParseError(i + 1, "expected a single species, found the arrow " + in_quotes(arrow) +
+                                             " (a reaction)");
+            if (c == U'+') return ParseError(i + 1, "expected a single species, found '+'");
+            return ParseError(i + 1, "expected the end of the text after the species " + after);
+        }
+        if (key == "arrow")
+            return ParseError(i + 1, "expected an arrow (->, =, \u2192, \u21CC ...) between reactants and products");
+        if (!at_end && arrow_at(t_, i, &arrow))
+            return ParseError(i + 1, "found a second arrow " + in_quotes(arrow) + "; a reaction has exactly one arrow");
+        return ParseError(i + 1, "expected '+' or the end of the reaction after " + after);
+    }
+
+    /// "2H2+ O2": a sign directly after a formula and before whitespace is a charge, so the next
+    /// species has no '+' before it. Reported at the sign, with the two ways to write it.
+    /// Likewise "Fe+(OH)2": a sign before '(' is a charge, and '(' + uppercase is no phase.
+    std::optional<ParseError> sign_before_space(std::size_t i, bool at_end) const {
+        if (at_end || !tr_.has_species() || !starts_term(t_[i])) return std::nullopt;
+        auto const e = std::size_t(tr_.species_last() - t_.begin());  // one past the species
+        if (e == 0 || e > i || !is_sign(t_[e - 1]) || is_lower(*tr_.species_first())) return std::nullopt;
+        if (e == i) {
+            if (t_[i] != U'(' || t_[e - 1] != U'+') return std::nullopt;
+            Text const formula(tr_.species_first(), tr_.species_last() - 1);
+            Text const next = word_at(t_, i);
+            return ParseError(e, "'+' directly after " + in_quotes(formula) +
+                                     " and before '(' is read as a charge; write " +
+                                     in_quotes(formula + U" + " + next) + " to add the species");
+        }
+        for (std::size_t k = e; k < i; ++k)
+            if (!is_blank(t_[k])) return std::nullopt;
+        Text const sign = t_.substr(e - 1, 1);
+        Text const formula(tr_.species_first(), tr_.species_last() - 1);
+        Text const ion(tr_.species_first(), tr_.species_last());
+        Text const next = word_at(t_, i);
+        std::string m = "'" + utf8(sign) + "' directly after " + in_quotes(formula) +
+                        " and before a space is read as a charge, so " + in_quotes(next) +
+                        " has no '+' before it; ";
+        if (t_[e - 1] == U'+')
+            m += "write " + in_quotes(formula + U" + " + next) + " to add the species (or " +
+                 in_quotes(ion + U" + " + next) + " if " + in_quotes(ion) + " is an ion)";
+        else
+            m += "write " + in_quotes(ion + U" + " + next) + " to add the ion";
+        return ParseError(e, m);
+    }
+
+    std::string last_species(std::size_t i) const {
+        if (!tr_.has_species() || tr_.species_last() > t_.begin() + i) return "the species";
+        return in_quotes(Text(tr_.species_first(), tr_.species_last()));
+    }
+
+    /// The bracket opening the group that encloses t[i] (pairing was checked by prepare()).
+    std::size_t opening_bracket(std::size_t i) const {
+        std::size_t depth = 0;
+        for (std::size_t k = i; k > 0; --k) {
+            char32_t const c = t_[k - 1];
+            if (c == U')' || c == U']' || c == U'}') ++depth;
+            if (c == U'(' || c == U'[' || c == U'{') {
+                if (depth == 0) return k - 1;
+                --depth;
+            }
+        }
+        return 0;
+    }
+
+    Mode mode_;
+    const Text& t_;
+    const parser::Tracker& tr_;
+};
+
+// ---- syntax tree to public tree --------------------------------------------------------------
+
+/// num/den. (Built by division: GCC 12 reports a false -Wmaybe-uninitialized inside Boost for
+/// the two-argument cpp_rational constructor.)
+Rational ratio(std::int64_t num, std::int64_t den) {
+    Rational r(num);
+    r /= den;
+    return r;
+}
+
+/// Exact value of "12.5" (ASCII); *had_point tells whether a decimal point was written.
+/// prepare() has capped numbers at 12 digits, so the integers fit comfortably.
+Rational decimal_value(const Text& s, std::size_t& i, bool* had_point) {
+    std::int64_t num = 0, den = 1;
+    *had_point = false;
+    for (; i < s.size(); ++i) {
+        if (is_digit(s[i])) {
+            num = num * 10 + (s[i] - U'0');
+            if (*had_point) den *= 10;
+        } else if (s[i] == U'.' && !*had_point) {
+            *had_point = true;
+        } else {
+            break;
+        }
+    }
+    return ratio(num, den);
+}
+
+/// Subscript digits to ASCII; other characters unchanged.
+Text ascii_digits(const Text& s) {
+    Text out = s;
+    for (char32_t& c : out)
+        if (subscript_value(c) >= 0) c = U'0' + char32_t(subscript_value(c));
+    return out;
+}
+
+/// "0.5" for fractions with a terminating decimal, else "a/b".
+std::string rational_text(const Rational& r) {
+    using boost::multiprecision::cpp_int;
+    cpp_int const num = boost::multiprecision::numerator(r);
+    cpp_int const den = boost::multiprecision::denominator(r);
+    cpp_int d = den;
+    int twos = 0, fives = 0;
+    while (d % 2 == 0) d /= 2, ++twos;
+    while (d % 5 == 0) d /= 5, ++fives;
+    if (d != 1) return num.str() + "/" + den.str();
+    int const places = std::max(twos, fives);
+    cpp_int scaled = num;
+    for (int k = 0; k < places; ++k) scaled *= 10;
+    scaled /= den;
+    std::string digits = scaled.str();
+    if (places == 0) return digits;
+    if (digits.size() <= std::size_t(places)) digits.insert(0, std::size_t(places) + 1 - digits.size(), '0');
+    digits.insert(digits.size() - std::size_t(places), ".");
+    return digits;
+}
+
+class Builder {
+public:
+    Builder(const Text& t, const parser::Tracker& tracker) : t_(t), tr_(tracker) {}
+
+    /// A number as the grammar accepted it: [sign] decimal [/ decimal | vulgar] | [sign] vulgar.
+    Rational number(const Text& s, std::size_t position) const {
+        std::size_t i = 0;
+        bool negative = false;
+        if (i < s.size() && is_sign(s[i])) negative = s[i++] != U'+';
+        Rational value;
+        if (i < s.size() && is_vulgar(s[i])) {
+            auto const [n, d] = vulgar_value(s[i]);
+            value = ratio(n, d);
+        } else {
+            bool point = false;
+            Rational const whole = decimal_value(s, i, &point);
+            if (i < s.size() && s[i] == U'/') {
+                ++i;
+                bool den_point = false;
+                Rational const den = decimal_value(s, i, &den_point);
+                if (point || den_point)
+                    throw ParseError(position, "a fraction a/b needs whole numbers: " + in_quotes(s));
+                if (den == 0) throw ParseError(position, "division by zero in " + in_quotes(s));
+                value = whole / den;
+            } else if (i < s.size() && is_vulgar(s[i])) {
+                if (point)
+                    throw ParseError(position, "a mixed number such as 1½ needs a whole number before the "
+                                               "fraction: " + in_quotes(s));
+                auto const [n, d] = vulgar_value(s[i]);
+                value = whole + ratio(n, d);
+            } else {
+                value = whole;
+            }
+        }
+        return negative ? Rational(-value) : value;
+    }
+
+    Reaction reaction(const ast::Reaction& tree) const {
+        Reaction r;
+        for (const auto& term : tree.reactants) r.reactants.push_back(this->term(term));
+        for (const auto& term : tree.products) r.products.push_back(this->term(term));
+        r.arrow = utf8(tree.arrow);
+        return r;
+    }
+
+    Species species(const ast::Species& tree) const {
+        Species s;
+        auto const range = tr_.position_of(tree);
+        s.position = pos(range.begin());
+        s.written = utf8(range.begin(), range.end());
+        if (tree.phase) s.phase = phase(*tree.phase, range.end());
+        if (auto const* name = boost::get<Text>(&tree.body.get())) {
+            s.is_name = true;
+            bool space = false;
+            for (char32_t c : *name) {
+                if (is_blank(c)) {
+                    space = true;
+                    continue;
+                }
+                if (space) s.name += ' ';
+                space = false;
+                append_utf8(s.name, c);
+            }
+        } else {
+            formula(boost::get<ast::Formula>(tree.body.get()), s);
+        }
+        return s;
+    }
+
+private:
+    std::size_t pos(Iter it) const { return std::size_t(it - t_.begin()) + 1; }
+    std::size_t start(const x3::position_tagged& node) const { return pos(tr_.position_of(node).begin()); }
+
+    Term term(const ast::Term& tree) const {
+        Term term;
+        term.position = start(tree);
+        term.species = species(tree.species);
+        if (tree.coefficient) {
+            term.coefficient_written = true;
+            term.coefficient = number(*tree.coefficient, term.position);
+            if (term.coefficient == 0)
+                throw ParseError(term.position, "a coefficient of zero is not allowed: " + in_quotes(*tree.coefficient));
+        }
+        return term;
+    }
+
+    std::string phase(const Text& word, Iter species_end) const {
+        std::size_t const position = pos(species_end) - word.size() - 2;  // at the '('
+        if (word == U"g" || word == U"l" || word == U"s" || word == U"aq") return utf8(word);
+        if (word == U"cr") return "s";
+        throw ParseError(position, "unknown phase '(" + utf8(word) + ")': the phases are (g), (l), (s), "
+                                   "(cr) (the same as (s)) and (aq)");
+    }
+
+    void formula(const ast::Formula& tree, Species& s) const {
+        for (std::size_t k = 0; k < tree.parts.size(); ++k) {
+            const ast::Part& part = tree.parts[k];
+            Rational multiplier{1};
+            if (k > 0) s.formula += '*';
+            if (!part.multiplier.empty()) {
+                multiplier = number(part.multiplier, start(part));
+                if (multiplier == 0)
+                    throw ParseError(start(part), "a hydrate multiplier of zero is not allowed: " +
+                                                      in_quotes(part.multiplier));
+                bool ascii = true;
+                for (char32_t c : part.multiplier) ascii = ascii && (is_digit(c) || c == U'.');
+                s.formula += ascii ? utf8(part.multiplier) : rational_text(multiplier);
+            }
+            items(part.items, multiplier, s);
+        }
+        if (tree.charge) s.charge = charge(*tree.charge);
+        mistyped_phase(tree.parts.back());
+    }
+
+    /// "H2O(L)", "CH4(G)", "CaO(S)": a closing group of one bare G, L or S is a phase typed in
+    /// uppercase (read literally it would be an element group); refused with the fix.
+    void mistyped_phase(const ast::Part& part) const {
+        if (part.items.empty()) return;
+        auto const* g = boost::get<x3::forward_ast<ast::Group>>(&part.items.back().get());
+        if (!g || g->get().open != U'(' || !g->get().count.empty() || g->get().items.size() != 1) return;
+        auto const* e = boost::get<ast::Element>(&g->get().items.front().get());
+        if (!e || !e->count.empty() || (e->symbol != U"G" && e->symbol != U"L" && e->symbol != U"S")) return;
+        std::string const upper = utf8(e->symbol);
+        std::string const lower(1, char(upper[0] - 'A' + 'a'));
+        throw ParseError(start(g->get()), "'(" + upper + ")' would be a group of the element " + upper +
+                                              "; phases are written in lowercase: (" + lower + ")");
+    }
+
+    void items(const std::vector<ast::Item>& items, const Rational& multiplier, Species& s) const {
+        for (const ast::Item& item : items) {
+            if (auto const* e = boost::get<ast::Element>(&item.get())) {
+                Rational n{1};
+                if (!e->count.empty()) n = count(e->count, start(*e) + e->symbol.size());
+                s.formula += utf8(e->symbol) + utf8(ascii_digits(e->count));
+                add_atom(s.atoms, utf8(e->symbol), n * multiplier, start(*e));
+            } else {
+                const ast::Group& g = boost::get<x3::forward_ast<ast::Group>>(item.get()).get();
+                Rational n{1};
+                if (!g.count.empty()) n = count(g.count, pos(tr_.position_of(g).end()) - g.count.size());
+                s.formula += g.open == U'[' ? '[' : '(';
+                this->items(g.items, n * multiplier, s);
+                s.formula += g.open == U'[' ? ']' : ')';
+                s.formula += utf8(ascii_digits(g.count));
+            }
+        }
+    }
+
+    Rational count(const Text& written, std::size_t position) const {
+        Text const ascii = ascii_digits(written);
+        std::size_t i = 0;
+        bool point = false;
+        Rational const n = decimal_value(ascii, i, &point);
+        if (n == 0) throw ParseError(position, "a count of zero is not allowed: " + in_quotes(written));
+        return n;
+    }
+
+    static void add_atom(std::vector<Atom>& atoms, const std::string& symbol, const Rational& n,
+                         std::size_t position) {
+        for (Atom& a : atoms)
+            if (a.symbol == symbol) {
+                a.count += n;
+                return;
+            }
+        atoms.push_back(Atom{symbol, n, position});
+    }
+
+    int charge(const ast::Charge& c) const {
+        int magnitude = 1;
+        if (!c.magnitude.empty()) {
+            magnitude = 0;
+            for (char32_t d : c.magnitude) {
+                int const v = is_digit(d) ? int(d - U'0') : superscript_value(d);
+                magnitude = magnitude * 10 + v;
+                if (magnitude > 99) throw ParseError(start(c), "a charge may be at most 99");
+            }
+            if (magnitude == 0)
+                throw ParseError(start(c), "a charge of zero is not allowed; leave the charge out");
+        }
+        bool const negative = c.sign == U'-' || c.sign == U'\u2212' || c.sign == U'\u207B';
+        return negative ? -magnitude : magnitude;
+    }
+
+    const Text& t_;
+    const parser::Tracker& tr_;
+};
+
+template <typename Rule, typename Tree>
+void run(Mode mode, const Text& t, Rule const& rule, Tree& tree, parser::Tracker& tracker) {
+    Iter first = t.begin();
+    bool const ok = x3::parse(first, t.end(), x3::with<parser::tracker_tag>(tracker)[rule], tree);
+    if (!ok || first != t.end()) throw Diagnosis(mode, t, tracker).error();
+}
+
+}  // namespace
+
+Reaction parse_reaction(std::string_view text) {
+    Text const t = prepare(text, Mode::reaction);
+    parser::Tracker tracker(t.begin(), t.end());
+    ast::Reaction tree;
+    run(Mode::reaction, t, parser::reaction(), tree, tracker);
+    return Builder(t, tracker).reaction(tree);
+}
+
+Species parse_species(std::string_view text) {
+    Text const t = prepare(text, Mode::species);
+    parser::Tracker tracker(t.begin(), t.end());
+    ast::Species tree;
+    run(Mode::species, t, parser::species_only(), tree, tracker);
+    return Builder(t, tracker).species(tree);
+}
+
+Rational parse_number(std::string_view text) {
+    Text const t = prepare(text, Mode::number);
+    parser::Tracker tracker(t.begin(), t.end());
+    Text tree;
+    run(Mode::number, t, parser::number_only(), tree, tracker);
+    std::size_t i = 0;
+    while (i < t.size() && is_blank(t[i])) ++i;
+    return Builder(t, tracker).number(tree, i + 1);
+}
+
+}  // namespace rxnheat::grammar

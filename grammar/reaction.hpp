@@ -1,0 +1,86 @@
+// Declaration of the X3 reaction grammar: rule types, the iterator and context it is compiled
+// for, and the tracker the rules report positions and failures to. The definition is in
+// reaction_def.hpp and is compiled once, in reaction.cpp. Private to grammar/.
+#pragma once
+
+#include "grammar/ast.hpp"
+
+#include <boost/spirit/home/x3.hpp>
+
+#include <string>
+#include <vector>
+
+namespace rxnheat::grammar::parser {
+
+namespace x3 = boost::spirit::x3;
+
+/// The grammar runs over decoded code points, so iterator distance = character position.
+using iterator_type = ast::Text::const_iterator;
+
+/// Collects what the rules report while parsing: source ranges of tagged nodes (on_success)
+/// and the first expectation failure (on_error).
+class Tracker {
+public:
+    Tracker(iterator_type first, iterator_type last) : positions_(first, last) {}
+
+    template <typename Node>
+    void tag(Node& node, iterator_type first, iterator_type last) {
+        positions_.annotate(node, first, last);
+    }
+    void tag(ast::Species& node, iterator_type first, iterator_type last) {
+        positions_.annotate(node, first, last);
+        has_species_ = true;
+        species_first_ = first;
+        species_last_ = last;
+    }
+    void fail(iterator_type where, std::string key) {
+        if (!failed_) {
+            failed_ = true;
+            where_ = where;
+            key_ = std::move(key);
+        }
+    }
+
+    /// Source range of a tagged node (as [first, last) iterators into the decoded text).
+    auto position_of(x3::position_tagged const& node) const { return positions_.position_of(node); }
+
+    bool failed() const { return failed_; }
+    iterator_type where() const { return where_; }
+    const std::string& key() const { return key_; }  ///< which expectation failed, see reaction_def.hpp
+
+    /// The most recent species the grammar accepted (for "after 'H2O'" in messages).
+    bool has_species() const { return has_species_; }
+    iterator_type species_first() const { return species_first_; }
+    iterator_type species_last() const { return species_last_; }
+
+private:
+    x3::position_cache<std::vector<iterator_type>> positions_;
+    bool failed_ = false;
+    iterator_type where_{};
+    std::string key_;
+    bool has_species_ = false;
+    iterator_type species_first_{};
+    iterator_type species_last_{};
+};
+
+struct tracker_tag;
+
+/// The context the top rules are instantiated for: x3::parse (no skipper) under
+/// x3::with<tracker_tag>(tracker)[...], the tracker passed as an lvalue.
+using context_type = x3::context<tracker_tag, Tracker, x3::unused_type>;
+
+struct reaction_class;
+struct species_only_class;
+struct number_only_class;
+
+using reaction_type = x3::rule<reaction_class, ast::Reaction>;         ///< a whole reaction
+using species_only_type = x3::rule<species_only_class, ast::Species>;  ///< one species, nothing else
+using number_only_type = x3::rule<number_only_class, ast::Text>;       ///< one number, nothing else
+
+BOOST_SPIRIT_DECLARE(reaction_type, species_only_type, number_only_type)
+
+reaction_type const& reaction();
+species_only_type const& species_only();
+number_only_type const& number_only();
+
+}  // namespace rxnheat::grammar::parser

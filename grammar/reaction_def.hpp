@@ -1,0 +1,326 @@
+// Definition of the X3 reaction grammar. Included by reaction.cpp only (one instantiation).
+//
+// The grammar runs over decoded code points without a skipper: whitespace is matched where it
+// may appear, because it is significant in two places (inner spaces of names, and the
+// trailing-sign rule: a '+'/'-' after a formula is a charge before whitespace, '(', an arrow or
+// the end). Expectation points throw with a short key; the top rules' on_error hands the key
+// and position to the Tracker and parse.cpp turns them into a message. The keys are:
+//   "species"           a species (or coefficient + species) at the start of a side or after '+'
+//   "arrow"             the arrow after the reactants
+//   "end"               the end of the text (after the products / the species / the number)
+//   "number"            a number (parse_number)
+//   "digits after point", "denominator", "group", "group close", "hydrate", "caret charge",
+//   "brace charge", "brace close", "superscript sign", "phase"   (inside a term)
+// Limits that would need unbounded recursion or arithmetic (nesting depth, digit counts, input
+// length) are checked by parse.cpp before the grammar runs.
+#pragma once
+
+#include "grammar/ast.hpp"
+#include "grammar/reaction.hpp"
+
+#include <boost/spirit/home/x3.hpp>
+#include <boost/throw_exception.hpp>
+
+#include <type_traits>
+
+namespace rxnheat::grammar::parser {
+
+namespace detail {
+
+/// One code point from a set; exposes it as attribute when WithAttribute (X3's own char
+/// parsers for the standard encoding truncate char32_t, so they are not used here).
+template <bool WithAttribute>
+struct code_points : x3::char_parser<code_points<WithAttribute>> {
+    using attribute_type = std::conditional_t<WithAttribute, char32_t, x3::unused_type>;
+    static bool const has_attribute = WithAttribute;
+
+    constexpr explicit code_points(char32_t const* set) : set(set) {}
+
+    template <typename Char, typename Context>
+    bool test(Char ch, Context const&) const {
+        for (char32_t const* p = set; *p; ++p)
+            if (static_cast<char32_t>(ch) == *p) return true;
+        return false;
+    }
+
+    char32_t const* set;
+};
+
+/// One code point in [lo, hi].
+struct code_point_range : x3::char_parser<code_point_range> {
+    using attribute_type = char32_t;
+    static bool const has_attribute = true;
+
+    constexpr code_point_range(char32_t lo, char32_t hi) : lo(lo), hi(hi) {}
+
+    template <typename Char, typename Context>
+    bool test(Char ch, Context const&) const {
+        auto const c = static_cast<char32_t>(ch);
+        return lo <= c && c <= hi;
+    }
+
+    char32_t lo, hi;
+};
+
+/// A literal sequence of code points, no attribute.
+struct code_point_string : x3::parser<code_point_string> {
+    using attribute_type = x3::unused_type;
+    static bool const has_attribute = false;
+
+    constexpr explicit code_point_string(char32_t const* text) : text(text) {}
+
+    template <typename Iterator, typename Context, typename RContext, typename Attribute>
+    bool parse(Iterator& first, Iterator const& last, Context const&, RContext&, Attribute&) const {
+        Iterator i = first;
+        for (char32_t const* p = text; *p; ++p, ++i)
+            if (i == last || static_cast<char32_t>(*i) != *p) return false;
+        first = i;
+        return true;
+    }
+
+    char32_t const* text;
+};
+
+/// Like x3::expect[], but the failure carries a fixed key instead of X3's description.
+template <typename Subject>
+struct expect_key_directive : x3::unary_parser<Subject, expect_key_directive<Subject>> {
+    using base_type = x3::unary_parser<Subject, expect_key_directive<Subject>>;
+    static bool const is_pass_through_unary = true;
+
+    constexpr expect_key_directive(Subject const& subject, char const* key)
+        : base_type(subject), key(key) {}
+
+    template <typename Iterator, typename Context, typename RContext, typename Attribute>
+    bool parse(Iterator& first, Iterator const& last, Context const& context, RContext& rcontext,
+               Attribute& attr) const {
+        if (this->subject.parse(first, last, context, rcontext, attr)) return true;
+        boost::throw_exception(x3::expectation_failure<Iterator>(first, key));
+    }
+
+    char const* key;
+};
+
+struct expect_key_gen {
+    template <typename Subject>
+    constexpr expect_key_directive<typename x3::extension::as_parser<Subject>::value_type>
+    operator[](Subject const& subject) const {
+        return {x3::as_parser(subject), key};
+    }
+    char const* key;
+};
+
+constexpr expect_key_gen expect(char const* key) { return {key}; }
+
+}  // namespace detail
+}  // namespace rxnheat::grammar::parser
+
+namespace boost::spirit::x3::detail {
+// Same special case X3 has for its own expect[]: inside a container-collecting sequence.
+template <typename Subject, typename Context, typename RContext>
+struct parse_into_container_impl<rxnheat::grammar::parser::detail::expect_key_directive<Subject>,
+                                 Context, RContext> {
+    template <typename Iterator, typename Attribute>
+    static bool call(rxnheat::grammar::parser::detail::expect_key_directive<Subject> const& parser,
+                     Iterator& first, Iterator const& last, Context const& context,
+                     RContext& rcontext, Attribute& attr) {
+        if (parse_into_container(parser.subject, first, last, context, rcontext, attr)) return true;
+        boost::throw_exception(expectation_failure<Iterator>(first, parser.key));
+    }
+};
+}  // namespace boost::spirit::x3::detail
+
+namespace rxnheat::grammar::parser {
+
+// ---- handlers --------------------------------------------------------------------------------
+
+/// on_success: record the node's source range (position_tagged nodes).
+struct annotate_position {
+    template <typename Iterator, typename Node, typename Context>
+    void on_success(Iterator const& first, Iterator const& last, Node& node,
+                    Context const& context) const {
+        x3::get<tracker_tag>(context).tag(node, first, last);
+    }
+};
+
+/// on_error (top rules only): record the first failed expectation and fail the parse.
+struct report_failure {
+    template <typename Iterator, typename Exception, typename Context>
+    x3::error_handler_result on_error(Iterator&, Iterator const&, Exception const& x,
+                                      Context const& context) const {
+        x3::get<tracker_tag>(context).fail(x.where(), x.which());
+        return x3::error_handler_result::fail;
+    }
+};
+
+// ---- rule ids --------------------------------------------------------------------------------
+
+struct count_class {};
+struct multiplier_class {};
+struct phase_word_class {};
+struct number_token_class {};
+struct element_class : annotate_position {};
+struct group_class : annotate_position {};
+struct item_class {};
+struct first_part_class : annotate_position {};
+struct later_part_class : annotate_position {};
+struct parts_class {};
+struct charge_body_class {};
+struct caret_charge_class {};
+struct brace_charge_class {};
+struct superscript_charge_class {};
+struct trailing_charge_class {};
+struct charge_class : annotate_position {};
+struct formula_class : annotate_position {};
+struct name_class {};
+struct body_class {};
+struct phase_class {};
+struct species_class : annotate_position {};
+struct coefficient_class {};
+struct term_class : annotate_position {};
+struct side_class {};
+struct arrow_class {};
+struct reaction_class : report_failure {};
+struct species_only_class : report_failure {};
+struct number_only_class : report_failure {};
+
+// ---- character classes -----------------------------------------------------------------------
+
+using detail::code_point_range;
+using detail::code_point_string;
+using detail::code_points;
+using detail::expect;
+
+code_points<false> const blank{U" \t\r\n\u00A0\u2009\u202F"};  // space, tab, CR, LF, NBSP, thin, NNBSP
+auto const ws = *blank;
+code_point_range const digit{U'0', U'9'};
+code_point_range const upper{U'A', U'Z'};
+code_point_range const lower{U'a', U'z'};
+code_point_range const subscript_digit{U'\u2080', U'\u2089'};  // ₀ … ₉
+code_points<false> const superscript_digit{
+    U"\u2070\u00B9\u00B2\u00B3\u2074\u2075\u2076\u2077\u2078\u2079"};  // ⁰ ¹ ² ³ ⁴ … ⁹
+code_points<true> const superscript_sign{U"\u207A\u207B"};             // ⁺ ⁻
+code_points<true> const sign{U"+-\u2212"};                             // + - − (U+2212)
+code_points<false> const vulgar_fraction{
+    U"\u00BD\u2153\u2154\u00BC\u00BE\u2155\u2156\u2157\u2158\u2159\u215A\u2150\u215B\u215C"
+    U"\u215D\u215E\u2151\u2152"};  // ½ ⅓ ⅔ ¼ ¾ ⅕ ⅖ ⅗ ⅘ ⅙ ⅚ ⅐ ⅛ ⅜ ⅝ ⅞ ⅑ ⅒
+code_points<false> const hydrate_dot{U"\u00B7\u2022\u22C5*"};  // · • ⋅ *
+code_points<false> const point{U"."};
+code_points<false> const slash{U"/"};
+code_points<false> const plus{U"+"};
+code_points<false> const caret{U"^"};
+code_points<false> const open_brace{U"{"};
+code_points<false> const close_brace{U"}"};
+code_points<false> const open_paren{U"("};
+code_points<false> const close_paren{U")"};
+code_points<true> const open_bracket{U"(["};
+code_points<false> const close_bracket{U")]"};  // pairing is checked by parse.cpp's pre-scan
+code_points<false> const name_joiner{U"-,"};
+
+/// Any arrow; longest first so "<=>" and "=>" are not read as "=".
+auto const arrow_text = code_point_string(U"<=>") | code_point_string(U"<->") |
+                        code_point_string(U"->") | code_point_string(U"=>") |
+                        code_points<false>(U"=\u2192\u27F6\u21CC");  // = → ⟶ ⇌
+
+// ---- rules -----------------------------------------------------------------------------------
+
+// Text-valued pieces used inside sequences are rules, so X3 assigns the whole text at once
+// instead of treating the sequence's string attribute as a container of characters.
+x3::rule<count_class, ast::Text> const count = "count";
+x3::rule<multiplier_class, ast::Text> const multiplier = "multiplier";
+x3::rule<phase_word_class, ast::Text> const phase_word = "phase";
+x3::rule<number_token_class, ast::Text> const number_token = "number";
+x3::rule<element_class, ast::Element> const element = "element";
+x3::rule<group_class, ast::Group> const group = "group";
+x3::rule<item_class, ast::Item> const item = "item";
+x3::rule<first_part_class, ast::Part> const first_part = "formula part";
+x3::rule<later_part_class, ast::Part> const later_part = "hydrate part";
+x3::rule<parts_class, std::vector<ast::Part>> const parts = "formula parts";
+x3::rule<charge_body_class, ast::Charge> const charge_body = "charge";
+x3::rule<caret_charge_class, ast::Charge> const caret_charge = "^ charge";
+x3::rule<brace_charge_class, ast::Charge> const brace_charge = "{} charge";
+x3::rule<superscript_charge_class, ast::Charge> const superscript_charge = "superscript charge";
+x3::rule<trailing_charge_class, ast::Charge> const trailing_charge = "trailing charge";
+x3::rule<charge_class, ast::Charge> const charge = "charge";
+x3::rule<formula_class, ast::Formula> const formula = "formula";
+x3::rule<name_class, ast::Text> const name = "name";
+x3::rule<body_class, ast::Body> const body = "species";
+x3::rule<phase_class, ast::Text> const phase = "phase";
+x3::rule<species_class, ast::Species> const species = "species";
+x3::rule<coefficient_class, ast::Text> const coefficient = "coefficient";
+x3::rule<term_class, ast::Term> const term = "term";
+x3::rule<side_class, std::vector<ast::Term>> const side = "side";
+x3::rule<arrow_class, ast::Text> const arrow = "arrow";
+reaction_type const reaction_rule = "reaction";
+species_only_type const species_only_rule = "species";
+number_only_type const number_only_rule = "number";
+
+// Numbers: 2, 0.5, 1/2, ½ and the mixed 1½. Which combinations make sense (a/b of whole
+// numbers, no zero) is decided by parse.cpp, which also gives the message.
+auto const decimal = +digit >> -(point >> expect("digits after point")[+digit]);
+auto const number_text = (decimal >> -((slash >> expect("denominator")[decimal]) | vulgar_fraction)) |
+                         vulgar_fraction;
+
+// Formulas. An element symbol is one uppercase letter and, greedily, one lowercase letter.
+auto const count_def = x3::raw[decimal | +subscript_digit];
+auto const count_or_one = count | x3::attr(ast::Text());
+
+auto const element_def = x3::raw[upper >> -lower] >> count_or_one;
+// '(' followed by a lowercase letter is a phase, not a group.
+auto const group_def = open_bracket >> !lower >> expect("group")[+item] >>
+                       expect("group close")[close_bracket] >> count_or_one;
+auto const item_def = element | group;
+
+auto const multiplier_def = x3::raw[(decimal >> -vulgar_fraction) | vulgar_fraction];
+auto const first_part_def = x3::attr(ast::Text()) >> +item;
+auto const later_part_def = ((multiplier >> ws) | x3::attr(ast::Text())) >> +item;
+auto const parts_def = first_part >> *(ws >> hydrate_dot >> ws >> expect("hydrate")[later_part]);
+
+// Charges: ^2+ ^- {2+} ²⁻ ⁺ and the trailing sign. A trailing sign is a charge only when the
+// formula ends there: before the end, whitespace, '(' or an arrow; otherwise a '+' is the
+// separator between species.
+auto const charge_body_def = x3::raw[*digit] >> sign;
+auto const caret_charge_def = caret >> expect("caret charge")[charge_body >> !digit];
+auto const brace_charge_def =
+    open_brace >> expect("brace charge")[charge_body] >> expect("brace close")[close_brace];
+auto const superscript_charge_def =
+    (x3::raw[+superscript_digit] >> expect("superscript sign")[superscript_sign]) |
+    (x3::attr(ast::Text()) >> superscript_sign);
+auto const trailing_charge_def =
+    x3::attr(ast::Text()) >> sign >> &(x3::eoi | blank | open_paren | arrow_text);
+auto const charge_def = caret_charge | brace_charge | superscript_charge | trailing_charge;
+
+auto const formula_def = parts >> -charge;
+
+// Names start with a lowercase letter: lowercase letters, digits, inner '-' and ',', and words
+// separated by whitespace. A '-' before '>' belongs to an arrow.
+auto const name_char = lower | digit | (name_joiner >> &(lower | digit));
+auto const name_def = x3::raw[lower >> *name_char >> *(+blank >> &lower >> +name_char)];
+
+auto const body_def = name | formula;
+auto const phase_def = open_paren >> &lower >> expect("phase")[phase_word >> close_paren];
+auto const phase_word_def = x3::raw[+lower];
+auto const species_def = body >> -(ws >> phase);
+
+// Terms, sides, reaction.
+auto const coefficient_def = x3::raw[number_text];
+auto const term_def = -coefficient >> ws >> expect("species")[species];
+auto const side_def = term >> *(ws >> plus >> ws >> term);
+auto const arrow_def = x3::raw[arrow_text];
+
+auto const reaction_rule_def = ws >> expect("species")[side] >> ws >> expect("arrow")[arrow] >> ws >>
+                               expect("species")[side] >> ws >> expect("end")[x3::eoi];
+auto const species_only_rule_def = ws >> expect("species")[species] >> ws >> expect("end")[x3::eoi];
+auto const number_only_rule_def =
+    ws >> number_token >> ws >> expect("end")[x3::eoi];
+auto const number_token_def = x3::raw[expect("number")[-sign >> number_text]];
+
+BOOST_SPIRIT_DEFINE(count, multiplier, phase_word, number_token, element, group, item, first_part, later_part, parts, charge_body, caret_charge,
+                    brace_charge, superscript_charge, trailing_charge, charge, formula, name, body,
+                    phase, species, coefficient, term, side, arrow, reaction_rule,
+                    species_only_rule, number_only_rule)
+
+reaction_type const& reaction() { return reaction_rule; }
+species_only_type const& species_only() { return species_only_rule; }
+number_only_type const& number_only() { return number_only_rule; }
+
+}  // namespace rxnheat::grammar::parser
