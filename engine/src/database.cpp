@@ -161,7 +161,9 @@ void need_polynomial(const Substance& s, const Record& r, const char* what) {
 double Substance::H(double T) const {
     if (user) return user->H(T, display);
     const Record& r = record_at(*this, T);
-    if (r.intervals.empty()) return r.h298;
+    // At 298.15 K itself the tabulated ΔfH° is used (the polynomial reproduces it to within
+    // 1 J/mol, but reference elements should give exactly zero).
+    if (r.intervals.empty() || std::fabs(T - T_ref) < 1e-9) return r.h298;
     return h_over_RT(interval_at(r, T), T) * R_nasa * T;
 }
 

@@ -93,7 +93,7 @@ Rational rational_from_double(double x) {
 
 std::string scaled(std::string_view reaction, const Rational& factor) {
     if (factor <= 0)
-        throw Error(ErrorKind::argument, "the factor must be above zero (use RXNREVERSE to exchange the sides)");
+        throw Error(ErrorKind::argument, "the factor must be above zero (to exchange the sides, reverse the reaction)");
     const auto p = detail::prepare(reaction, nullptr);
     std::vector<Rational> l, r;
     for (const auto& t : p->ast.reactants) l.push_back(t.coefficient * factor);
@@ -223,7 +223,7 @@ std::string Engine::scale(std::string_view reaction, std::string_view factor) {
 
 std::string Engine::scale(std::string_view reaction, double factor) {
     if (!std::isfinite(factor) || factor <= 0)
-        throw Error(ErrorKind::argument, "the factor must be a number above zero (use RXNREVERSE to exchange the sides)");
+        throw Error(ErrorKind::argument, "the factor must be a number above zero (to exchange the sides, reverse the reaction)");
     return scaled(reaction, rational_from_double(factor));
 }
 

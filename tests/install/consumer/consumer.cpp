@@ -1,0 +1,16 @@
+// Uses the installed C++ interface: prints ΔrH° of methane combustion at 298.15 K in kJ/mol.
+#include <rxnheat/rxnheat.hpp>
+
+#include <cstdio>
+
+int main() {
+    try {
+        const double dh = rxnheat::Engine::shared().dh("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)");
+        std::printf("%.2f\n", dh);
+        rxnheat::Engine::shared().dh("H2 + O2 -> H2O");
+        return 3;  // an unbalanced reaction must throw
+    } catch (const rxnheat::Error& e) {
+        std::printf("error: %s\n", e.what());
+        return e.kind() == rxnheat::ErrorKind::unbalanced ? 0 : 4;
+    }
+}
