@@ -1,0 +1,527 @@
+#!/bin/bash
+# Tests of the rxnheat command line: outputs, JSON, exit codes, bad input, batch CSV streaming.
+# Usage: run_cli_tests.sh PATH/TO/rxnheat      (CTest runs it as test_cli)
+# Prints "N passed, M failed" last and exits non-zero on any failure.
+# Outside references: GNU units (`units -t FROM TO`, Debian package units) for unit factors and
+# R; python3-periodictable (IUPAC atomic weights) for molar masses; values named beside each check.
+set -u
+BIN=${1:?usage: run_cli_tests.sh PATH/TO/rxnheat}
+PY=/usr/bin/python3
+TMP=$(mktemp -d)
+trap 'rm -rf "$TMP"' EXIT
+passed=0
+failed=0
+
+pass() { passed=$((passed + 1)); }
+fail() {
+    failed=$((failed + 1))
+    echo "FAIL: $1"
+    [ -n "${2:-}" ] && echo "      $2"
+    echo "      command: rxnheat ${LAST_ARGS:-}" | cut -c1-300
+    echo "      rc=$RC stdout: $(head -c 400 "$TMP/out")"
+    echo "      stderr: $(head -c 400 "$TMP/err")"
+}
+
+# run ARGS...: runs the binary (60 s limit), sets RC; stdout in $TMP/out, stderr in $TMP/err.
+run() {
+    LAST_ARGS="$*"
+    timeout 60 "$BIN" "$@" >"$TMP/out" 2>"$TMP/err"
+    RC=$?
+}
+# run_in FILE ARGS...: same with FILE as standard input.
+run_in() {
+    local f=$1
+    shift
+    LAST_ARGS="$* < $f"
+    timeout 60 "$BIN" "$@" <"$f" >"$TMP/out" 2>"$TMP/err"
+    RC=$?
+}
+out() { cat "$TMP/out"; }
+err() { cat "$TMP/err"; }
+
+expect_rc() {  # NAME RC
+    if [ "$RC" -eq "$2" ]; then pass; else fail "$1: exit status $RC, expected $2"; fi
+}
+expect_out() {  # NAME EXACT_STDOUT
+    if [ "$(out)" == "$2" ]; then pass; else fail "$1: stdout is not '$2'"; fi
+}
+expect_out_re() {  # NAME EXTENDED_REGEX (whole stdout, one line)
+    if out | grep -Eq -- "$2"; then pass; else fail "$1: stdout does not match /$2/"; fi
+}
+expect_err_re() {  # NAME EXTENDED_REGEX
+    if err | grep -Eq -- "$2"; then pass; else fail "$1: stderr does not match /$2/"; fi
+}
+expect_empty_out() { if [ ! -s "$TMP/out" ]; then pass; else fail "$1: stdout should be empty"; fi; }
+expect_empty_err() { if [ ! -s "$TMP/err" ]; then pass; else fail "$1: stderr should be empty"; fi; }
+
+# jcheck NAME PYTHON_EXPRESSION: stdout must be exactly one JSON object (strict UTF-8); the
+# expression, with the object bound to j, must be true.
+jcheck() {
+    local msg
+    if msg=$("$PY" - "$TMP/out" "$2" <<'EOF' 2>&1
+import json, math, sys
+raw = open(sys.argv[1], "rb").read()
+text = raw.decode("utf-8")          # strict: invalid UTF-8 fails the check
+j = json.loads(text)                # one JSON value; trailing data fails
+if not isinstance(j, dict):
+    raise SystemExit("not a JSON object")
+if not eval(sys.argv[2]):
+    raise SystemExit("false: " + sys.argv[2])
+EOF
+    ); then pass; else fail "$1" "$msg"; fi
+}
+# jval KEY: prints a number or string of the JSON object on stdout.
+jval() { "$PY" -c 'import json,sys; print(repr(json.load(open(sys.argv[1]))[sys.argv[2]]))' "$TMP/out" "$1"; }
+# close A B TOL: |A - B| <= TOL
+close() { "$PY" -c 'import sys; a,b,t=map(float,sys.argv[1:4]); sys.exit(0 if abs(a-b)<=t else 1)' "$1" "$2" "$3"; }
+expect_close() {  # NAME A B TOL
+    if close "$2" "$3" "$4"; then pass; else fail "$1: $2 is not within $4 of $3"; fi
+}
+
+# pycheck NAME ARGS... < PYTHON_SCRIPT: passes when the script exits 0; shows its output if not.
+pycheck() {
+    local name=$1 msg
+    shift
+    if msg=$("$PY" - "$@" 2>&1); then
+        [ -n "$msg" ] && echo "      $msg"
+        pass
+    else
+        failed=$((failed + 1))
+        echo "FAIL: $name"
+        echo "$msg" | tail -n 5 | sed 's/^/      /'
+    fi
+}
+
+# Outside references computed here.
+units_factor() { units -t "$1" "$2"; }                       # GNU units
+molar_mass() { "$PY" -c 'import periodictable,sys; print(periodictable.formula(sys.argv[1]).mass)' "$1"; }
+
+METHANE="CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)"
+SHIFT="CO(g) + H2O(g) -> CO2(g) + H2(g)"
+
+# ==== the issue's new-user checks ===================================================================
+run dh "$METHANE" --json
+expect_rc "dh methane --json" 0
+expect_empty_err "dh methane --json"
+# -890.6 kJ/mol: CODATA Key Values (Cox et al. 1989) via NASA Glenn data (ΔfH° CO2(g) −393.51,
+# H2O(l) −285.83; CH4(g) −74.6 in the NASA Glenn record).
+jcheck "dh methane value" 'abs(j["value"] - (-890.6)) <= 0.3 and j["unit"] == "kJ/mol"'
+jcheck "dh methane fields" 'j["kind"] == "exothermic" and j["temperature_K"] == 298.15 and j["reaction"] == "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)"'
+jcheck "dh methane sources" 'sorted(s["species"] for s in j["sources"]) == ["CH4(g)", "CO2(g)", "H2O(l)", "O2(g)"] and all(s["record"] and "NASA" in s["text"] for s in j["sources"])'
+DH_METHANE=$(jval value)
+
+run dh "$SHIFT" -T 1000 --json
+expect_rc "dh shift 1000 K" 0
+# −34.8 kJ/mol at 1000 K: NIST-JANAF 4th ed. (1998), from memory (ΔfH° at 1000 K: CO2 −394.62,
+# H2O(g) −247.86, CO −111.98).
+jcheck "dh shift 1000 K value" 'abs(j["value"] - (-34.8)) <= 0.3 and j["temperature_K"] == 1000'
+DH_SHIFT_1000=$(jval value)
+
+run check "H2(g) + O2(g) -> H2O(l)"
+expect_rc "check unbalanced: exit 2" 2
+# O: 2 on the left, 1 on the right (atom count by hand); the words must name O and its totals.
+expect_out_re "check unbalanced: words" 'not balanced.*O[^A-Za-z].*2.*left.*1.*right'
+run check "H2(g) + O2(g) -> H2O(l)" --json
+expect_rc "check unbalanced --json: exit 2" 2
+jcheck "check unbalanced --json" 'j["ok"] is False and "balanced" in j["check"] and j["error"] == j["check"]'
+run check "2 H2(g) + O2(g) -> 2 H2O(l)"
+expect_rc "check ok" 0
+expect_out "check ok: prints ok" "ok"
+run check "2 H2(g) + O2(g) -> 2 H2O(l)" --json
+jcheck "check ok --json" 'j["ok"] is True and j["check"] == "ok" and "error" not in j'
+
+# ==== dh text output, units, temperature text =========================================================
+run dh "$METHANE"
+expect_rc "dh text" 0
+# 6 significant digits: -890.57 (the JSON value printed with %.6g).
+EXPECT_TEXT="$("$PY" -c 'import sys; print("%.6g kJ/mol (exothermic)" % float(sys.argv[1]))' "$DH_METHANE")"
+expect_out "dh text format" "$EXPECT_TEXT"
+
+run dh "$METHANE" -u kcal/mol --json
+# kJ -> kcal (thermochemical calorie): factor from GNU units.
+F=$(units_factor kJ/mol kcal/mol)
+expect_close "dh kcal/mol" "$(jval value)" "$("$PY" -c "print($DH_METHANE*$F)")" 1e-4
+jcheck "dh kcal/mol unit" 'j["unit"] == "kcal/mol"'
+run dh "$METHANE" -u BTU/lbmol --json
+# GNU units has no lbmol: a pound-mole is (lb/g) mol; btu is the International Table BTU.
+F=$(units_factor kJ/mol 'btu/((lb/g) mol)')
+expect_close "dh BTU/lbmol" "$(jval value)" "$("$PY" -c "print($DH_METHANE*$F)")" 0.05
+
+run dh "$METHANE" -u MJ/kg --per "CH4(g)" --json
+expect_rc "dh --per MJ/kg" 0
+# per kg of methane: ΔrH°/M(CH4), M from python3-periodictable (IUPAC atomic weights).
+M_CH4=$(molar_mass CH4)
+expect_close "dh --per MJ/kg value" "$(jval value)" "$("$PY" -c "print($DH_METHANE/$M_CH4)")" 0.005
+jcheck "dh --per fields" 'j["per"] == "CH4(g)" and j["unit"] == "MJ/kg"'
+run dh "$METHANE" -u MJ/kg --per "CH4(g)"
+expect_out_re "dh --per text" '^-55\.[0-9]+ MJ/kg of CH4\(g\) \(exothermic\)$'
+run dh "$METHANE" --per "O2(g)" --json
+# per mole of O2, whose coefficient is 2: half the value (stoichiometry, common practice).
+expect_close "dh --per O2" "$(jval value)" "$("$PY" -c "print($DH_METHANE/2)")" 1e-9
+
+# Temperature as text: 350 °C and 662 °F are both 623.15 K (GNU units tempC(350), tempF(662)).
+TK_C=$(units -t 'tempC(350)' K)
+TK_F=$(units -t 'tempF(662)' K)
+run dh "$SHIFT" -T 623.15 --json
+V_K=$(jval value)
+run dh "$SHIFT" -T "350 C" --json
+jcheck "-T '350 C' is 623.15 K" "abs(j['temperature_K'] - $TK_C) < 1e-9"
+expect_close "-T '350 C' same value" "$(jval value)" "$V_K" 1e-9
+run dh "$SHIFT" --temperature="662 F" --json
+jcheck "--temperature='662 F' is 623.15 K" "abs(j['temperature_K'] - $TK_F) < 1e-9"
+run dh "$SHIFT" -T1000 --json
+expect_close "-T1000 attached" "$(jval value)" "$DH_SHIFT_1000" 1e-12
+
+# ==== du, load, kind ====================================================================================
+run du "$METHANE" --json
+expect_rc "du" 0
+# ΔrU° = ΔrH° − Δn(gas)·R·T with Δn(gas) = 1 − 3 = −2; R from GNU units.
+R=$(units -t R 'J/mol/K')
+expect_close "du value" "$(jval value)" "$("$PY" -c "print($DH_METHANE + 2*$R*298.15/1000)")" 1e-5
+jcheck "du dn_gas" 'j["dn_gas"] == -2 and j["unit"] == "kJ/mol"'
+
+run load "$METHANE" 1 kmol "CH4(g)" --json
+expect_rc "load 1 kmol" 0
+# 1 kmol of CH4 reacting: 1000 × ΔrH° (kJ); kmol = 1000 mol.
+expect_close "load 1 kmol value" "$(jval value)" "$("$PY" -c "print($DH_METHANE*1000)")" 1e-6
+jcheck "load total unit" 'j["unit"] == "kJ" and j["key"] == "CH4(g)" and j["quantity_unit"] == "kmol"'
+run load "$METHANE" 120 kg/h "CH4(g)" -u MW --json
+expect_rc "load 120 kg/h" 0
+# 120 kg/h of CH4: 120000/M mol per 3600 s, × ΔrH° (kJ/mol) / 1000 -> MW (M from periodictable).
+expect_close "load rate MW" "$(jval value)" "$("$PY" -c "print(120000/$M_CH4/3600*$DH_METHANE/1000)")" 1e-4
+run load "$METHANE" 120 kg/h "CH4(g)" --json
+jcheck "load rate default kW" 'j["unit"] == "kW"'
+run load "$METHANE" 120 kg/h "CH4(g)"
+expect_out_re "load text" '^-[0-9.]+ kW \(exothermic\)$'
+run load "$METHANE" -5 kg "CH4(g)"
+expect_rc "load negative quantity (an argument, not an option): exit 2" 2
+expect_err_re "load negative quantity: words" 'negative'
+run load "$METHANE" lots kg "CH4(g)"
+expect_rc "load non-number quantity" 2
+expect_err_re "load non-number quantity: words" "QUANTITY.*lots"
+run load "$METHANE" 5 kg
+expect_rc "load missing KEY" 2
+expect_err_re "load missing KEY: names it" 'missing KEY'
+run load "$METHANE" 5 furlongs "CH4(g)" --json
+expect_rc "load unknown quantity unit" 2
+jcheck "load unknown quantity unit --json" '"furlongs" in j["error"] and j["error_kind"] == "unit"'
+
+run kind "$METHANE"
+expect_rc "kind" 0
+expect_out "kind exothermic" "exothermic"
+run kind "CO2(g) + 2 H2O(l) -> CH4(g) + 2 O2(g)"
+expect_out "kind endothermic" "endothermic"
+# The shift reaction at 298.15 K is about −41.2 kJ/mol (NIST-JANAF, from memory): inside a 50 kJ/mol
+# band it is thermoneutral, outside a 40 kJ/mol band it is not.
+run kind "$SHIFT" --tolerance 50
+expect_out "kind thermoneutral within tolerance" "thermoneutral"
+run kind "$SHIFT" --tolerance 40 --json
+jcheck "kind --json" 'j["kind"] == "exothermic" and j["tolerance_kJ_per_mol"] == 40 and abs(j["dH_kJ_per_mol"] + 41.2) < 0.5'
+
+# ==== balance, reverse, scale =============================================================================
+run balance "C3H8(g) + O2(g) -> CO2(g) + H2O(l)"
+expect_rc "balance" 0
+# C3H8 + 5 O2 -> 3 CO2 + 4 H2O (atom count by hand: C 3, H 8, O 10 on each side).
+expect_out "balance propane" "C3H8(g) + 5 O2(g) -> 3 CO2(g) + 4 H2O(l)"
+run balance "C3H8(g) + O2(g) -> CO2(g) + H2O(l)" --json
+jcheck "balance --json" 'j["reaction"] == "C3H8(g) + 5 O2(g) -> 3 CO2(g) + 4 H2O(l)" and j["input"].startswith("C3H8")'
+
+run reverse "$METHANE"
+expect_out "reverse" "CO2(g) + 2 H2O(l) -> CH4(g) + 2 O2(g)"
+REV=$(out)
+run dh "$REV" --json
+# Reversing flips the sign (Hess's law, common practice).
+expect_close "dh of reversed = -dh" "$(jval value)" "$("$PY" -c "print(-$DH_METHANE)")" 1e-9
+run reverse "$METHANE" --json
+jcheck "reverse --json" 'j["reaction"] == "CO2(g) + 2 H2O(l) -> CH4(g) + 2 O2(g)"'
+
+run scale "2 H2(g) + O2(g) -> 2 H2O(l)" 1/2
+expect_out "scale 1/2 keeps fractions" "H2(g) + 1/2 O2(g) -> H2O(l)"
+run scale "$METHANE" 3 --json
+jcheck "scale --json" 'j["reaction"] == "3 CH4(g) + 6 O2(g) -> 3 CO2(g) + 6 H2O(l)" and j["factor"] == "3"'
+run dh "3 CH4(g) + 6 O2(g) -> 3 CO2(g) + 6 H2O(l)" --json
+# Scaling scales ΔrH° (extensive, common practice).
+expect_close "dh of scaled = 3 dh" "$(jval value)" "$("$PY" -c "print(3*$DH_METHANE)")" 1e-9
+run scale "$METHANE" -2
+expect_rc "scale negative factor" 2
+run scale "$METHANE"
+expect_rc "scale missing FACTOR" 2
+expect_err_re "scale missing FACTOR: names it" 'missing FACTOR'
+
+# ==== species =============================================================================================
+run species "H2O(l)" --json
+expect_rc "species H2O(l)" 0
+# ΔfH° −285.830 ± 0.040 kJ/mol, S° 69.95 ± 0.03 J/(mol·K): CODATA Key Values (Cox et al. 1989).
+# Cp° 75.3 J/(mol·K) at 298.15 K: NIST-JANAF 4th ed. (1998), from memory.
+jcheck "species H2O(l) dHf" 'abs(j["dHf_kJ_per_mol"] + 285.83) <= 0.05'
+jcheck "species H2O(l) S" 'abs(j["S_J_per_molK"] - 69.95) <= 0.1'
+jcheck "species H2O(l) Cp" 'abs(j["Cp_J_per_molK"] - 75.3) <= 0.3'
+jcheck "species H2O(l) fields" 'j["species"] == "H2O(l)" and j["record"] and j["temperature_K"] == 298.15 and j["dH_sensible_kJ_per_mol"] == 0 and j["tmin_K"] <= 298.15 <= j["tmax_K"] and "NASA" in j["source"]'
+M_H2O=$(molar_mass H2O)
+expect_close "species H2O molar mass (periodictable)" "$("$PY" -c 'import json,sys; print(json.load(open(sys.argv[1]))["molar_mass_g_per_mol"])' "$TMP/out")" "$M_H2O" 0.002
+run species "H2O(l)"
+expect_rc "species text" 0
+expect_out_re "species text has dHf" '^dHf +-285\.8'
+expect_out_re "species text has molar mass" '^molar mass +18\.01'
+expect_out_re "species text has source" '^source +.*NASA'
+run species "Fe(s)" -T 1300 --json
+# At 1300 K solid iron is the gamma (fcc) form, stable 1184–1665 K: NIST-JANAF (1998), from memory.
+jcheck "species Fe(s) 1300 K gamma record" 'j["tmin_K"] <= 1300 <= j["tmax_K"] and abs(j["tmin_K"] - 1184) < 1 and abs(j["tmax_K"] - 1665) < 1'
+run species "CO2(g)" -T 1000 --json
+# H°(1000 K) − H°(298.15 K) of CO2(g): 33.40 kJ/mol, NIST-JANAF (1998), from memory.
+jcheck "species CO2(g) 1000 K sensible heat" 'abs(j["dH_sensible_kJ_per_mol"] - 33.40) <= 0.1'
+
+# ==== bad input: each a clear error, exit status 2, in text and in JSON ===================================
+PAREN4K=$(printf '(%.0s' $(seq 4096))
+PAREN5K=$(printf '(%.0s' $(seq 5000))
+# bad NAME KIND WORDS_REGEX ARGS...: exit 2; text: message on stderr matching WORDS, nothing on
+# stdout; --json: one object with "error" (matching WORDS) and error_kind KIND, nothing on stderr.
+bad() {
+    local name=$1 kind=$2 words=$3
+    shift 3
+    run "$@"
+    expect_rc "$name: exit 2" 2
+    expect_empty_out "$name: no stdout"
+    expect_err_re "$name: words on stderr" "$words"
+    run "$@" --json
+    expect_rc "$name --json: exit 2" 2
+    expect_empty_err "$name --json: no stderr"
+    jcheck "$name --json: error object" "isinstance(j.get('error'), str) and __import__('re').search(r'''$words''', j['error']) is not None and j.get('error_kind') == '$kind'"
+}
+bad "empty reaction" syntax 'empty' dh ""
+bad "4 KiB of '('" syntax 'position [0-9]+' dh "$PAREN4K"
+bad "5000 characters" too_long '4096' dh "$PAREN5K"
+bad "species with no data (dh)" unknown_species 'no data.*H2O5' dh "H2(g) + 5/2 O2(g) -> H2O5(g)"
+bad "species with no data (species)" unknown_species 'no data.*H2O5' species "H2O5(g)"
+# NASA Glenn gas records start at 200 K (NASA/TP-2002-211556): 150 K is out of range.
+bad "temperature below 200 K" out_of_range '150 K' dh "$SHIFT" -T 150
+bad "species below 200 K" out_of_range '150 K' species "CO2(g)" -T 150
+bad "unknown unit" unit "MJ/bogus.*kJ/mol" dh "$METHANE" -u MJ/bogus
+bad "wrong-case unit mJ/mol" unit "mJ/mol" dh "$METHANE" -u mJ/mol
+bad "unknown temperature text" argument 'banana' dh "$METHANE" -T banana
+bad "unbalanced dh" unbalanced 'not balanced' dh "H2(g) + O2(g) -> H2O(l)"
+bad "syntax error position" syntax 'position [0-9]+' dh "CH4(g) + -> CO2(g)"
+bad "per-mass unit without --per" unit 'per' dh "$METHANE" -u MJ/kg
+bad "missing table file" table "no-such-table" dh "$METHANE" --table "$TMP/no-such-table.csv"
+# A species over the 4096-character limit.
+bad "species 5000 characters" too_long '4096' species "$PAREN5K"
+
+# JSON stays valid with quotes, control characters and bytes that are not UTF-8 in the input.
+run dh $'CH4"\x01\t(g) -> \xff\xfe' --json
+expect_rc "odd bytes --json: exit 2" 2
+jcheck "odd bytes --json: valid JSON error" 'isinstance(j["error"], str) and len(j["error"]) > 0'
+
+# ==== the command line itself =============================================================================
+# usage NAME ARGS...: exit 2, usage on stderr; with --json, the error object with error_kind usage.
+usage() {
+    local name=$1
+    shift
+    run "$@"
+    expect_rc "$name: exit 2" 2
+    expect_err_re "$name: usage on stderr" 'usage: rxnheat'
+    run "$@" --json
+    expect_rc "$name --json: exit 2" 2
+    jcheck "$name --json" 'j["error_kind"] == "usage" and len(j["error"]) > 0'
+}
+usage "no command"
+usage "unknown command" frobnicate "$METHANE"
+usage "unknown option" dh "$METHANE" --frobnicate
+usage "unknown short option" dh "$METHANE" -z
+usage "option not taken by the command" reverse "$METHANE" -T 300
+usage "option without its value" dh "$METHANE" -T
+usage "option given twice" dh "$METHANE" -T 300 -T 400
+usage "missing REACTION" dh
+usage "unquoted reaction (extra arguments)" dh "CH4(g)" + "2 O2(g)"
+usage "empty option value" dh "$METHANE" -u ""
+run dh "CH4(g)" + "2 O2(g)"
+expect_err_re "extra arguments: quoting hint" 'quotes'
+run dh "$METHANE" -- --json
+expect_rc "-- ends options (then --json is an extra argument)" 2
+
+for cmd in dg logk tad hv; do
+    run "$cmd" "$METHANE"
+    expect_rc "$cmd not in this version: exit 2" 2
+    expect_err_re "$cmd not in this version: words" 'not available in this version'
+    run "$cmd" "$METHANE" --json
+    jcheck "$cmd not in this version --json" '"not available in this version" in j["error"]'
+done
+
+run --help
+expect_rc "--help" 0
+expect_out_re "--help lists commands" '^  batch '
+expect_out_re "--help says what is not in this version" 'Not in this version'
+run help
+expect_rc "help" 0
+expect_out_re "help: usage" '^usage: rxnheat'
+for cmd in dh du load kind check balance reverse scale species batch; do
+    run "$cmd" --help
+    expect_rc "$cmd --help" 0
+    expect_out_re "$cmd --help: usage line" "^usage: rxnheat $cmd( |\$)"
+    run help "$cmd"
+    expect_out_re "help $cmd" "^usage: rxnheat $cmd( |\$)"
+done
+run dh --help --json
+jcheck "--help --json" 'j["help"].startswith("usage: rxnheat dh")'
+run help frobnicate
+expect_rc "help of an unknown command" 2
+run --version
+expect_rc "--version" 0
+expect_out_re "--version text" 'rxnheat'
+
+# ==== user species table ==================================================================================
+# An invented value for H2O(l) (not data): the table row must override the built-in record.
+printf 'formula,phase,dHf,source\nH2O,l,-280.0,test table\n' >"$TMP/table.csv"
+run dh "H2(g) + 1/2 O2(g) -> H2O(l)" --table "$TMP/table.csv" --json
+expect_rc "--table" 0
+# H2(g) and O2(g) are reference elements (ΔfH° = 0), so ΔrH° is the table's ΔfH°.
+jcheck "--table overrides the built-in row" 'abs(j["value"] + 280.0) < 1e-6 and any(s["record"] == "user table" for s in j["sources"])'
+printf 'formula,phase,dHf\nH2O,l,lots\n' >"$TMP/badtable.csv"
+run dh "H2(g) + 1/2 O2(g) -> H2O(l)" --table "$TMP/badtable.csv" --json
+expect_rc "malformed table" 2
+jcheck "malformed table names row and column" 'j["error_kind"] == "table" and "2" in j["error"] and "dHf" in j["error"]'
+
+# ==== batch ===============================================================================================
+{
+    printf '\xef\xbb\xbfreaction,temperature,unit\r\n'                      # BOM, header, CRLF
+    printf '%s\r\n' "$METHANE"                                              # line 2
+    printf '"%s",1000\n' "$SHIFT"                                           # line 3
+    printf '\n'                                                             # line 4: blank, skipped
+    printf '"H2(g) + O2(g) -> H2O(l)",,\n'                                  # line 5: unbalanced
+    printf 'CH₄(g) + 2O₂(g) → CO₂(g) + 2H₂O(l),"25 C",kcal/mol\n'          # line 6: UTF-8
+    printf '"%s","350 C"\n' "$SHIFT"                                        # line 7
+    printf '"%s",150\n' "$SHIFT"                                            # line 8: below 200 K
+    printf '"bad, ""quoted"" reaction",300\n'                               # line 9: comma, quotes
+    printf '"%s",300,kJ/mol,extra\n' "$SHIFT"                               # line 10: 4 cells
+    printf ',,\n'                                                           # line 11: skipped
+    printf '"%s",,MJ/bogus\n' "$SHIFT"                                      # line 12: unit
+    printf '"two\nlines -> x"\n'                                            # lines 13-14
+    printf '%s' "$SHIFT"                                                    # line 15, no newline
+} >"$TMP/batch.csv"
+run batch "$TMP/batch.csv"
+expect_rc "batch: exit 0 with bad rows" 0
+expect_err_re "batch: bad rows counted on stderr" '6 of 11 rows'
+cp "$TMP/out" "$TMP/batch1.out"
+pycheck "batch: rows, values and errors" "$TMP/batch1.out" "$DH_METHANE" "$DH_SHIFT_1000" "$V_K" "$(units_factor kJ/mol kcal/mol)" <<'EOF'
+import csv, sys
+rows = list(csv.reader(open(sys.argv[1], newline="", encoding="utf-8")))
+dh_methane, dh_shift_1000, dh_shift_623, kcal = map(float, sys.argv[2:6])
+assert rows[0] == ["line", "reaction", "temperature_K", "value", "unit", "kind", "error"], rows[0]
+body = rows[1:]
+assert [r[0] for r in body] == ["2", "3", "5", "6", "7", "8", "9", "10", "12", "13", "15"], [r[0] for r in body]
+by = {r[0]: r for r in body}
+def ok(r): return r[6] == "" and r[3] != ""
+assert ok(by["2"]) and abs(float(by["2"][3]) - dh_methane) < 1e-9 and by["2"][4] == "kJ/mol" and by["2"][5] == "exothermic"
+assert ok(by["3"]) and abs(float(by["3"][3]) - dh_shift_1000) < 1e-9 and float(by["3"][2]) == 1000
+assert not ok(by["5"]) and "balanced" in by["5"][6]
+# 25 °C = 298.15 K; kcal/mol via GNU units; the Unicode form is the same reaction.
+assert ok(by["6"]) and abs(float(by["6"][2]) - 298.15) < 1e-9 and abs(float(by["6"][3]) - dh_methane * kcal) < 1e-4
+assert by["6"][1] == "CH₄(g) + 2O₂(g) → CO₂(g) + 2H₂O(l)"       # UTF-8 passed through
+assert ok(by["7"]) and abs(float(by["7"][3]) - dh_shift_623) < 1e-9
+assert not ok(by["8"]) and "150" in by["8"][6]
+assert by["9"][1] == 'bad, "quoted" reaction' and not ok(by["9"])
+assert not ok(by["10"]) and "4 cells" in by["10"][6]
+assert not ok(by["12"]) and "bogus" in by["12"][6]
+assert by["13"][1] == "two\nlines -> x" and not ok(by["13"])
+assert ok(by["15"]) and abs(float(by["15"][3]) - (-41.16)) < 0.3   # shift at 298.15 K, NIST-JANAF, from memory
+EOF
+
+run_in "$TMP/batch.csv" batch - --threads 2
+expect_rc "batch stdin --threads 2" 0
+if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch --threads 2 output differs from 1 thread"; fi
+run_in "$TMP/batch.csv" batch
+if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch without FILE reads standard input"; fi
+
+run batch "$TMP/batch.csv" --json
+expect_rc "batch --json" 0
+jcheck "batch --json" 'j["rows"] == 11 and j["failed"] == 6 and len(j["results"]) == 11 and j["results"][0]["line"] == 2 and "error" in j["results"][2]'
+
+run batch -T "350 C" -u J/mol "$TMP/batch.csv" --json
+# Defaults for empty cells: the last row (line 15) has no temperature and no unit, so takes both.
+jcheck "batch -T/-u defaults" 'j["results"][-1]["unit"] == "J/mol" and abs(j["results"][-1]["temperature_K"] - 623.15) < 1e-9'
+
+# A larger file, several chunks of 1024 rows, 2 threads: order kept, every value equals the
+# single-reaction result, in constant memory (max RSS of 2,000 vs 100,000 rows).
+"$PY" - "$TMP/many.csv" 100000 <<'EOF'
+import sys
+rs = ["CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)", "CO(g) + H2O(g) -> CO2(g) + H2(g)", "N2(g) + 3 H2(g) -> 2 NH3(g)"]
+with open(sys.argv[1], "w") as f:
+    for i in range(int(sys.argv[2])):
+        f.write('"%s",%d\n' % (rs[i % 3], 300 + i % 900))
+EOF
+head -n 2000 "$TMP/many.csv" >"$TMP/few.csv"
+pycheck "batch 100000 rows in order, constant memory" "$BIN" "$TMP/few.csv" "$TMP/many.csv" "$TMP/many.out" <<'EOF'
+import csv, resource, subprocess, sys
+binary, few, many, out = sys.argv[1:5]
+def rss(path, dest):
+    before = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss
+    with open(dest, "wb") as o:
+        p = subprocess.run([binary, "batch", path, "--threads", "2"], stdout=o, stderr=subprocess.DEVNULL, timeout=300)
+    assert p.returncode == 0, p.returncode
+    return resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss
+small = rss(few, out)
+large = rss(many, out)
+rows = list(csv.reader(open(out, newline="")))[1:]
+assert len(rows) == 100000, len(rows)
+assert [int(r[0]) for r in rows] == list(range(1, 100001)), "order"
+assert all(r[6] == "" for r in rows), [r for r in rows if r[6]][:1]
+assert [int(float(r[2])) for r in rows[:1000]] == [300 + i % 900 for i in range(1000)]
+# ru_maxrss is in KiB; the RUSAGE_CHILDREN maximum only grows, so 'large' is the bigger run's peak.
+assert large - small < 16 * 1024, (small, large)
+print("batch 100000 rows: max RSS %d KiB (2000 rows: %d KiB)" % (large, small))
+EOF
+# Spot checks of the large output against single calls.
+for n in 1 2 3 899 90001; do
+    row=$(sed -n "$((n + 1))p" "$TMP/many.out")
+    reaction=$(sed -n "${n}p" "$TMP/many.csv" | "$PY" -c 'import csv,sys; print(next(csv.reader(sys.stdin))[0])')
+    temp=$(sed -n "${n}p" "$TMP/many.csv" | "$PY" -c 'import csv,sys; print(next(csv.reader(sys.stdin))[1])')
+    run dh "$reaction" -T "$temp" --json
+    v=$(echo "$row" | "$PY" -c 'import csv,sys; print(next(csv.reader(sys.stdin))[3])')
+    expect_close "batch row $n equals dh -T $temp" "$v" "$(jval value)" 0
+done
+
+# Streaming: with standard input held open, the first chunk of 1024 rows is written before the
+# input ends.
+mkfifo "$TMP/fifo"
+timeout 60 "$BIN" batch - <"$TMP/fifo" >"$TMP/stream.out" 2>/dev/null &
+BATCH_PID=$!
+exec 3>"$TMP/fifo"
+head -n 1500 "$TMP/many.csv" >&3
+streamed=no
+for _ in $(seq 1 100); do
+    if [ "$(wc -l <"$TMP/stream.out")" -ge 1025 ]; then streamed=yes; break; fi
+    sleep 0.1
+done
+exec 3>&-
+wait "$BATCH_PID"
+RC=$?
+if [ "$streamed" = yes ]; then pass; else fail "batch streams: first 1024 rows out before the input ended"; fi
+if [ "$RC" -eq 0 ] && [ "$(wc -l <"$TMP/stream.out")" -eq 1501 ]; then pass; else fail "batch streamed run: all rows"; fi
+
+run batch "$TMP/no-such.csv"
+expect_rc "batch missing file" 2
+expect_err_re "batch missing file: words" 'cannot open'
+run batch "$TMP"
+expect_rc "batch on a directory" 2
+run batch "$TMP/batch.csv" --threads lots
+expect_rc "batch bad --threads" 2
+run batch "$TMP/batch.csv" --threads 0
+expect_rc "batch --threads 0 (one per processor)" 0
+# A header-only file and an empty file give just the header row.
+printf 'reaction,temperature\n' >"$TMP/header.csv"
+: >"$TMP/empty.csv"
+run batch "$TMP/header.csv"
+expect_out "batch header only" "line,reaction,temperature_K,value,unit,kind,error"
+run batch "$TMP/empty.csv" --json
+jcheck "batch empty --json" 'j == {"results": [], "rows": 0, "failed": 0}'
+# An unterminated quote at the end of the input is an error row, not a hang.
+printf '"%s,300\n' "$SHIFT" >"$TMP/unterminated.csv"
+run batch "$TMP/unterminated.csv"
+expect_rc "batch unterminated quote" 0
+expect_out_re "batch unterminated quote: error row" 'not closed'
+# A row longer than the 16384-byte limit is an error row; the next row still works.
+{ printf '%s\n' "$(printf 'x%.0s' $(seq 20000))"; printf '"%s"\n' "$SHIFT"; } >"$TMP/long.csv"
+run batch "$TMP/long.csv" --json
+jcheck "batch over-long row" 'j["rows"] == 2 and "longer than" in j["results"][0]["error"] and "value" in j["results"][1]'
+
+echo "$passed passed, $failed failed"
+[ "$failed" -eq 0 ]
