@@ -8,6 +8,7 @@
 
 #include <boost/spirit/home/x3.hpp>
 
+#include <algorithm>
 #include <cstdint>
 #include <cstdio>
 #include <optional>
@@ -420,6 +421,9 @@ private:
         if (at_end || !tr_.has_species() || !starts_term(t_[i])) return std::nullopt;
         auto const e = std::size_t(tr_.species_last() - t_.begin());  // one past the species
         if (e == 0 || e > i || !is_sign(t_[e - 1]) || is_lower(*tr_.species_first())) return std::nullopt;
+        std::size_t d = e - 1;  // a caret charge ("Fe^3+ O2") is no trailing sign: just a missing '+'
+        while (d > 0 && is_digit(t_[d - 1])) --d;
+        if (d > 0 && t_[d - 1] == U'^') return std::nullopt;
         if (e == i) {
             if (t_[i] != U'(' || t_[e - 1] != U'+') return std::nullopt;
             Text const formula(tr_.species_first(), tr_.species_last() - 1);

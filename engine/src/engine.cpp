@@ -276,9 +276,20 @@ SpeciesReport Engine::species_report(std::string_view species, double T, const S
     r.species = s.display;
     r.record = s.records.empty() ? "user table" : s.records.front()->name;
     r.temperature_K = T;
-    r.dHf_kJ_per_mol = s.H(T_ref) / 1000.0;
-    r.H_kJ_per_mol = s.H(T) / 1000.0;
-    r.dH_sensible_kJ_per_mol = (s.H(T) - s.H(T_ref)) / 1000.0;
+    const double H = s.H(T);
+    double H298 = 0;
+    try {
+        H298 = s.H(T_ref);
+    } catch (const Error& e) {
+        // A phase whose data do not reach 298.15 K (ice, gamma iron): the data record's own
+        // assigned enthalpy at 298.15 K, which NASA Glenn tabulates for every record.
+        if (e.kind() != ErrorKind::out_of_range || s.records.empty()) throw;
+        for (const auto* rec : s.records)
+            if (rec->tmin() <= T + 1e-6 && T <= rec->tmax() + 1e-6) H298 = rec->h298;
+    }
+    r.dHf_kJ_per_mol = H298 / 1000.0;
+    r.H_kJ_per_mol = H / 1000.0;
+    r.dH_sensible_kJ_per_mol = (H - H298) / 1000.0;
     r.Cp_J_per_molK = s.Cp(T);
     r.S_J_per_molK = s.S(T);
     r.molar_mass_g_per_mol = s.molar_mass;

@@ -92,9 +92,10 @@ struct SpeciesReport {
     std::string species;          ///< resolved, e.g. "H2O(l)"
     std::string record;           ///< data record name
     double temperature_K = 0;
-    double dHf_kJ_per_mol = 0;    ///< ΔfH° at 298.15 K
+    double dHf_kJ_per_mol = 0;    ///< ΔfH° at 298.15 K (a phase whose data start above or end below
+                                  ///< 298.15 K: the value its data record gives for 298.15 K)
     double H_kJ_per_mol = 0;      ///< assigned enthalpy H°(T) = ΔfH°(298.15) + [H°(T) − H°(298.15)]
-    double dH_sensible_kJ_per_mol = 0;  ///< H°(T) − H°(298.15)
+    double dH_sensible_kJ_per_mol = 0;  ///< H°(T) − dHf: sensible heat from 298.15 K
     double Cp_J_per_molK = 0;
     double S_J_per_molK = 0;
     double molar_mass_g_per_mol = 0;

@@ -1,0 +1,868 @@
+#!/usr/bin/python3
+"""End-to-end test of the rxnheat Calc add-in in a real headless LibreOffice.
+
+Installs the built rxnheat.oxt into a private profile through the office's ExtensionManager,
+restarts the office, types formulas with the display names users type, recalculates, and
+checks the cells: values against the engine's own answers (the `rxnheat` CLI, when built) and
+against published reference values (sources named beside each one), optional arguments,
+ranges -> arrays, Unicode, errors in cells with RXNCHECK's words, the office still answering
+afterwards, and a saved document reloading to the same values.
+
+Run by CTest (tests/CMakeLists.txt). Everything is time-bound: the office is killed on any
+failure or after --timeout seconds. Exit status 0 when every check passed.
+"""
+import argparse
+import json
+import math
+import os
+import shutil
+import signal
+import subprocess
+import sys
+import tempfile
+import time
+import traceback
+import zipfile
+
+sys.dont_write_bytecode = True  # no __pycache__ in the source tree
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import office as officelib  # noqa: E402  (needs the system python3 with python3-uno)
+import uno  # noqa: E402
+
+R = 8.314462618  # J/(mol K), CODATA 2018 exact value of the molar gas constant
+CH4_COMBUSTION = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)"
+CH4_COMBUSTION_UNICODE = "CH\u2084(g) + 2O\u2082(g) \u2192 CO\u2082(g) + 2H\u2082O(l)"
+CH4_COMBUSTION_GAS = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)"
+CH4_COMBUSTION_GAS_UNICODE = "CH\u2084(g) + 2O\u2082(g) \u2192 CO\u2082(g) + 2H\u2082O(g)"
+
+# The display names and argument names of SPEC section 4, exactly.
+SPEC_FUNCTIONS = {
+    "RXNDH": ["reaction", "temperature", "unit", "per", "table"],
+    "RXNDU": ["reaction", "temperature", "unit", "per", "table"],
+    "RXNLOAD": ["reaction", "quantity", "quantity_unit", "key", "result_unit", "temperature",
+                "table"],
+    "RXNKIND": ["reaction", "temperature", "tolerance", "table"],
+    "RXNCHECK": ["reaction", "temperature", "table"],
+    "RXNBALANCE": ["reaction", "table"],
+    "RXNREVERSE": ["reaction"],
+    "RXNSCALE": ["reaction", "factor"],
+    "SPECIESHF": ["species", "temperature", "unit", "table"],
+    "SPECIESCP": ["species", "temperature", "table"],
+    "SPECIESH": ["species", "temperature", "reference_temperature", "table"],
+    "MOLARMASS": ["formula"],
+    "RXNSOURCE": ["reaction_or_species", "table"],
+    "RXNVERSION": [],
+}
+
+ERR_ILLEGAL_ARGUMENT = 502  # what Calc shows as Err:502
+
+
+class Timeout(Exception):
+    pass
+
+
+class Checks:
+    def __init__(self):
+        self.passed = 0
+        self.failed = []
+        self.skipped = []
+
+    def ok(self, name, condition, detail=""):
+        if condition:
+            self.passed += 1
+        else:
+            self.failed.append(name + (": " + detail if detail else ""))
+            print("FAIL  " + name + (": " + detail if detail else ""), flush=True)
+        return condition
+
+    def close(self, name, got, want, tol, source=""):
+        good = (isinstance(got, float) and isinstance(want, (int, float))
+                and math.isfinite(got) and abs(got - want) <= tol)
+        return self.ok(name, good, "got %r, want %r ± %g %s" % (got, want, tol, source))
+
+    def skip(self, name, why):
+        self.skipped.append(name + ": " + why)
+        print("SKIP  %s: %s" % (name, why), flush=True)
+
+
+def q(text):
+    """A Calc formula string literal."""
+    return '"' + text.replace('"', '""') + '"'
+
+
+class Cell:
+    """A formula cell's result after recalculation."""
+
+    def __init__(self, cell):
+        self.error = cell.getError()
+        kind = cell.FormulaResultType2  # com.sun.star.sheet.FormulaResult: 1 value, 2 text, 4 error
+        self.kind = {1: "value", 2: "text", 4: "error"}.get(kind, str(kind))
+        self.value = cell.getValue() if self.kind == "value" and not self.error else None
+        self.text = cell.getString()
+        self.formula = cell.getFormula()
+
+    @property
+    def number(self):
+        return float(self.value) if self.value is not None else None
+
+    def __repr__(self):
+        if self.error:
+            return "<error %d>" % self.error
+        return repr(self.value if self.kind == "value" else self.text)
+
+
+class Sheet:
+    """A scratch sheet: formulas go into column B of fresh rows, inputs wherever asked."""
+
+    def __init__(self, doc, index=0):
+        self.doc = doc
+        self.sheet = doc.Sheets.getByIndex(index)
+        self.row = 1
+
+    def cell(self, address):
+        return self.sheet.getCellRangeByName(address)
+
+    def put(self, address, value):
+        c = self.cell(address)
+        if isinstance(value, str):
+            c.setString(value)
+        else:
+            c.setValue(value)
+
+    def evaluate(self, formulas):
+        """Writes each formula into its own cell, recalculates once, returns Cells."""
+        addresses = []
+        for f in formulas:
+            a = "B%d" % self.row
+            self.row += 1
+            self.cell(a).setFormula(f)
+            addresses.append(a)
+        self.doc.calculateAll()
+        return [Cell(self.cell(a)) for a in addresses]
+
+    def one(self, formula):
+        return self.evaluate([formula])[0]
+
+    def array(self, target, formula):
+        rng = self.cell(target)
+        rng.setArrayFormula(formula)
+        self.doc.calculateAll()
+        rows = []
+        for r in range(rng.Rows.Count):
+            rows.append([Cell(rng.getCellByPosition(c, r)) for c in range(rng.Columns.Count)])
+        return rows
+
+
+class EngineCli:
+    """The engine's own answers from the `rxnheat` command line (SPEC section 5)."""
+
+    def __init__(self, path):
+        self.path = path
+
+    def json(self, *args):
+        out = subprocess.run([self.path] + list(args) + ["--json"], capture_output=True,
+                             text=True, timeout=30)
+        return json.loads(out.stdout)
+
+    def value(self, *args):
+        return float(self.json(*args)["value"])
+
+    def text(self, *args):
+        out = subprocess.run([self.path] + list(args), capture_output=True, text=True,
+                             timeout=30)
+        return out.stdout.strip()
+
+
+def gnu_units(frm, to):
+    """GNU units (Debian package `units`): the factor from `frm` to `to`, or None."""
+    exe = shutil.which("units")
+    if not exe:
+        return None
+    out = subprocess.run([exe, "-t", frm, to], capture_output=True, text=True, timeout=10)
+    try:
+        return float(out.stdout.split()[0])
+    except (ValueError, IndexError):
+        return None
+
+
+def iupac_molar_mass(formula):
+    """IUPAC standard atomic weights via Debian's python3-periodictable."""
+    try:
+        import periodictable
+    except ImportError:
+        return None
+    return float(periodictable.formula(formula).mass)
+
+
+# ------------------------------------------------------------------------------------------
+def check_install(checks, office, version):
+    exts = [e for e in office.user_extensions() if e is not None]
+    ids = {e.getIdentifier().Value: e for e in exts}
+    checks.ok("installed: identifier org.rxnheat.calc", "org.rxnheat.calc" in ids, str(list(ids)))
+    e = ids.get("org.rxnheat.calc")
+    if e is not None:
+        checks.ok("installed: version", e.getVersion() == version,
+                  "%s vs %s" % (e.getVersion(), version))
+        checks.ok("installed: publisher", e.getPublisherInfo().First == "rxnheat developers",
+                  e.getPublisherInfo().First)
+        checks.ok("installed: display name", "rxnheat" in e.getDisplayName(), e.getDisplayName())
+
+
+def check_wizard_texts(checks, office):
+    fd = office.smgr.createInstanceWithContext("com.sun.star.sheet.FunctionDescriptions",
+                                                office.ctx)
+    found = {}
+    for i in range(fd.getCount()):
+        d = {p.Name: p.Value for p in fd.getByIndex(i)}
+        if d.get("Name") in SPEC_FUNCTIONS:
+            found[d["Name"]] = d
+    for name, args in SPEC_FUNCTIONS.items():
+        d = found.get(name)
+        if not checks.ok("wizard: %s listed" % name, d is not None):
+            continue
+        arguments = list(d.get("Arguments") or ())
+        names = [a.Name for a in arguments]
+        checks.ok("wizard: %s argument names" % name, names == args, "%s vs %s" % (names, args))
+        checks.ok("wizard: %s has a description" % name, len(d["Description"]) > 30,
+                  d["Description"])
+        for a in arguments:
+            checks.ok("wizard: %s(%s) described" % (name, a.Name), len(a.Description) > 15,
+                      a.Description)
+    if "RXNLOAD" in found:
+        text = found["RXNLOAD"]["Description"].lower()
+        for words in ("screening estimate", "standard state", "complete conversion",
+                      "thermal runaway", "relief sizing", "calorimetry",
+                      "process hazard analysis", "local codes", "licensed engineers"):
+            checks.ok("wizard: RXNLOAD caution says '%s'" % words, words in text)
+        units = " ".join(a.Description for a in found["RXNLOAD"]["Arguments"])
+        for u in ("kg/h", "Nm3", "scf", "lbmol", "kW", "BTU/h", "MMBTU", "TR"):
+            checks.ok("wizard: RXNLOAD arguments name unit %s" % u, u in units)
+    if "RXNDH" in found:
+        # Non-ASCII texts from the component arrive intact in the office (UTF-8 -> UTF-16).
+        checks.ok("wizard: RXNDH description keeps ΔrH°", "\u0394rH\u00b0" in
+                  found["RXNDH"]["Description"], found["RXNDH"]["Description"])
+        temp = found["RXNDH"]["Arguments"][1].Description
+        checks.ok("wizard: temperature argument shows °C", "350 \u00b0C" in temp, temp)
+
+
+def check_typical_values(checks, sh, cli, version):
+    r = CH4_COMBUSTION
+    cells = sh.evaluate([
+        "=RXNDH(%s)" % q(r),                                       # 0
+        "=RXNDU(%s)" % q(r),                                       # 1
+        "=MOLARMASS(\"CH4\")",                                     # 2
+        "=RXNLOAD(%s;500;\"kg/h\";\"CH4\";\"kW\")" % q(r),         # 3
+        "=RXNLOAD(%s;10;\"kmol\";\"CH4\")" % q(r),                 # 4
+        "=RXNLOAD(%s;500;\"kg/h\";\"CH4\";\"BTU/h\")" % q(r),      # 5
+        "=RXNDH(\"2H2 + O2 = 2H2O\")",                             # 6
+        "=RXNDH(\"1/2 N2(g) + 3/2 H2(g) \u2192 NH3(g)\")",         # 7
+        "=RXNKIND(%s)" % q(r),                                     # 8
+        "=RXNKIND(RXNREVERSE(%s))" % q(r),                         # 9
+        "=RXNKIND(%s;;1000)" % q(r),                               # 10
+        "=RXNCHECK(%s)" % q(r),                                    # 11
+        "=RXNBALANCE(\"H2 + O2 -> H2O\")",                         # 12
+        "=RXNDH(RXNBALANCE(\"H2 + O2 -> H2O\"))",                  # 13
+        "=RXNCHECK(RXNBALANCE(\"H2 + O2 -> H2O\"))",               # 14
+        "=RXNREVERSE(%s)" % q(r),                                  # 15
+        "=RXNDH(RXNREVERSE(%s))" % q(r),                           # 16
+        "=RXNSCALE(%s;\"1/2\")" % q(r),                            # 17
+        "=RXNDH(RXNSCALE(%s;\"1/2\"))" % q(r),                     # 18
+        "=RXNDH(RXNSCALE(%s;2))" % q(r),                           # 19
+        "=SPECIESHF(\"CO2(g)\")",                                  # 20
+        "=SPECIESHF(\"H2O(l)\")",                                  # 21
+        "=SPECIESHF(\"H2O(g)\")",                                  # 22
+        "=SPECIESCP(\"N2(g)\";298.15)",                            # 23
+        "=SPECIESCP(\"N2(g)\";1000)",                              # 24
+        "=SPECIESH(\"N2(g)\";1000)",                               # 25
+        "=MOLARMASS(\"H2O\")",                                     # 26
+        "=MOLARMASS(\"Ca(OH)2\")",                                 # 27
+        "=MOLARMASS(\"CuSO4\u00b75H2O\")",                         # 28
+        "=RXNSOURCE(%s)" % q(r),                                   # 29
+        "=RXNVERSION()",                                           # 30
+        "=RXNDH(\"SO2(g) + 0.5 O2(g) \u21cc SO3(g)\")",            # 31
+        "=RXNDH(%s;;\"MJ/kg\";\"CH4\")" % q(r),                    # 32
+        "=RXNDH(%s;;;\"O2\")" % q(r),                              # 33
+        "=RXNDH(%s;;\"kcal/mol\")" % q(r),                         # 34
+        "=RXNDH(%s;;\"J/mol\")" % q(r),                            # 35
+        "=SPECIESHF(\"CO2(g)\";;\"kcal/mol\")",                    # 36
+    ])
+    dh, du, m_ch4 = cells[0].number, cells[1].number, cells[2].number
+    # CODATA Key Values (Cox et al. 1989): ΔfH° CO2(g) −393.51, H2O(l) −285.83 kJ/mol;
+    # CH4(g) −74.6 kJ/mol (NASA/TP-2002-211556, from Gurvich): −393.51 − 2·285.83 + 74.6.
+    checks.close("RXNDH CH4 combustion (CODATA/NASA)", dh, -890.57, 0.15)
+    # ΔrU° = ΔrH° − Δn(gas)·R·T with Δn(gas) = 1 − 3 = −2, R CODATA 2018, T = 298.15 K.
+    if dh is not None:
+        checks.close("RXNDU = RXNDH + 2RT", du, dh + 2 * R * 298.15 / 1000, 2e-3)
+    want_m = iupac_molar_mass("CH4")
+    if want_m is None:
+        checks.skip("MOLARMASS CH4 vs periodictable", "python3-periodictable not installed")
+    else:
+        checks.close("MOLARMASS CH4 (IUPAC, python3-periodictable)", m_ch4, want_m, 0.005)
+    if dh is not None and m_ch4:
+        # 500 kg/h of CH4 = 500000/M mol/h; × ΔrH° (kJ/mol, one CH4 per extent) / 3600 s/h.
+        load_kw = dh * 500000.0 / m_ch4 / 3600.0
+        checks.close("RXNLOAD 500 kg/h CH4 in kW (from RXNDH and MOLARMASS)", cells[3].number,
+                     load_kw, abs(load_kw) * 1e-9)
+        checks.close("RXNLOAD about -7,700 kW (issue 3's example)", cells[3].number, -7710, 15)
+        checks.close("RXNLOAD 10 kmol CH4, default kJ", cells[4].number, dh * 10000, 1e-6)
+        f = gnu_units("kW", "btu/hr")
+        if f is None:
+            checks.skip("RXNLOAD BTU/h", "GNU units not installed")
+        else:  # GNU units: 1 kW = 3412.1416 BTU/h (IT Btu)
+            checks.close("RXNLOAD BTU/h (GNU units kW -> btu/hr)", cells[5].number,
+                         load_kw * f, abs(load_kw * f) * 1e-6)
+    # CODATA Key Values: ΔfH° H2O(l) −285.83 kJ/mol; NH3(g) −45.94 kJ/mol.
+    checks.close("RXNDH 2H2 + O2 = 2H2O (CODATA)", cells[6].number, -571.66, 0.1)
+    checks.close("RXNDH 1/2 N2 + 3/2 H2 → NH3 (CODATA)", cells[7].number, -45.94, 0.35)
+    checks.ok("RXNKIND exothermic", cells[8].text == "exothermic", repr(cells[8]))
+    checks.ok("RXNKIND of the reverse endothermic", cells[9].text == "endothermic",
+              repr(cells[9]))
+    checks.ok("RXNKIND tolerance 1000 kJ/mol: thermoneutral", cells[10].text == "thermoneutral",
+              repr(cells[10]))
+    checks.ok("RXNCHECK ok", cells[11].text == "ok", repr(cells[11]))
+    checks.ok("RXNBALANCE gives text", cells[12].kind == "text" and "H2O" in cells[12].text,
+              repr(cells[12]))
+    checks.close("RXNDH of RXNBALANCE(H2 + O2 -> H2O) = 2 ΔfH° H2O(l) (CODATA)",
+                 cells[13].number, -571.66, 0.1)
+    checks.ok("RXNCHECK of the balanced reaction ok", cells[14].text == "ok", repr(cells[14]))
+    checks.ok("RXNREVERSE gives text", cells[15].kind == "text" and "CH4" in cells[15].text,
+              repr(cells[15]))
+    if dh is not None:
+        checks.close("RXNDH of RXNREVERSE = −RXNDH", cells[16].number, -dh, 1e-9)
+        checks.close("RXNDH of RXNSCALE 1/2 = RXNDH/2", cells[18].number, dh / 2, 1e-9)
+        checks.close("RXNDH of RXNSCALE 2 = 2·RXNDH", cells[19].number, 2 * dh, 1e-9)
+    checks.ok("RXNSCALE keeps the fraction 1/2", "1/2" in cells[17].text, repr(cells[17]))
+    # CODATA Key Values (Cox et al. 1989).
+    checks.close("SPECIESHF CO2(g) (CODATA)", cells[20].number, -393.51, 0.13)
+    checks.close("SPECIESHF H2O(l) (CODATA)", cells[21].number, -285.83, 0.04)
+    checks.close("SPECIESHF H2O(g) (CODATA)", cells[22].number, -241.826, 0.04)
+    # NIST-JANAF 4th ed. (1998), N2 table (typed from memory): Cp 29.124 J/(mol K) at
+    # 298.15 K and 32.697 at 1000 K; H − H(298.15) = 21.463 kJ/mol at 1000 K.
+    checks.close("SPECIESCP N2(g) 298.15 K (JANAF, from memory)", cells[23].number, 29.124, 0.02)
+    checks.close("SPECIESCP N2(g) 1000 K (JANAF, from memory)", cells[24].number, 32.697, 0.05)
+    checks.close("SPECIESH N2(g) 1000 K (JANAF, from memory)", cells[25].number, 21.463, 0.03)
+    for i, formula in ((26, "H2O"), (27, "Ca(OH)2"), (28, "CuSO4(H2O)5")):
+        want = iupac_molar_mass(formula)
+        if want is None:
+            checks.skip("MOLARMASS " + formula, "python3-periodictable not installed")
+        else:
+            checks.close("MOLARMASS %s (IUPAC, python3-periodictable)" % formula,
+                         cells[i].number, want, 0.01)
+    checks.ok("RXNSOURCE names NASA", cells[29].kind == "text" and "NASA" in cells[29].text,
+              repr(cells[29]))
+    checks.ok("RXNVERSION names the add-in version",
+              cells[30].text.startswith("rxnheat Calc add-in %s" % version), repr(cells[30]))
+    # ΔfH° SO2(g) −296.81 kJ/mol (CODATA Key Values); SO3(g) −395.77 kJ/mol (NIST-JANAF
+    # 4th ed., 1998, typed from memory): ΔrH° = −98.96 kJ/mol.
+    checks.close("RXNDH SO2 + 1/2 O2 ⇌ SO3 (JANAF, from memory)", cells[31].number, -98.96, 0.3)
+    if dh is not None and m_ch4:
+        checks.close("RXNDH per CH4 in MJ/kg = RXNDH/M", cells[32].number, dh / m_ch4, 1e-6)
+        checks.close("RXNDH per O2 = RXNDH/2", cells[33].number, dh / 2, 1e-9)
+        kcal = gnu_units("kcal/mol", "kJ/mol")  # GNU units: 4.184 (thermochemical calorie)
+        if kcal is None:
+            checks.skip("RXNDH kcal/mol", "GNU units not installed")
+        else:
+            checks.close("RXNDH kcal/mol (GNU units)", cells[34].number, dh / kcal, 1e-6)
+        checks.close("RXNDH J/mol = 1000 × kJ/mol", cells[35].number, dh * 1000, 1e-6)
+    if cells[20].number is not None and gnu_units("kcal/mol", "kJ/mol"):
+        checks.close("SPECIESHF kcal/mol (GNU units)", cells[36].number,
+                     cells[20].number / gnu_units("kcal/mol", "kJ/mol"), 1e-6)
+
+    if cli is None:
+        checks.skip("engine CLI comparisons", "target rxnheat_cli not built")
+        return
+    try:
+        checks.close("RXNDH = CLI dh", dh, cli.value("dh", r), 1e-9 * abs(dh or 1))
+        checks.close("RXNDU = CLI du", du, cli.value("du", r), 1e-9 * abs(du or 1))
+        checks.close("RXNLOAD = CLI load", cells[3].number,
+                     cli.value("load", r, "500", "kg/h", "CH4", "-u", "kW"),
+                     1e-9 * abs(cells[3].number or 1))
+        checks.close("RXNDH per CH4 MJ/kg = CLI", cells[32].number,
+                     cli.value("dh", r, "-u", "MJ/kg", "--per", "CH4"), 1e-9 * 60)
+        checks.ok("RXNBALANCE = CLI balance", cells[12].text == cli.text("balance", "H2 + O2 -> H2O"),
+                  "%r vs %r" % (cells[12].text, cli.text("balance", "H2 + O2 -> H2O")))
+        checks.ok("RXNREVERSE = CLI reverse", cells[15].text == cli.text("reverse", r))
+        checks.ok("RXNSCALE = CLI scale", cells[17].text == cli.text("scale", r, "1/2"))
+        checks.ok("RXNKIND = CLI kind", cells[8].text == cli.text("kind", r))
+    except Exception as e:  # a CLI that does not answer as SPEC section 5 says is a failure
+        checks.ok("engine CLI answers", False, "%s: %s" % (type(e).__name__, e))
+
+
+def check_temperatures(checks, sh):
+    r = CH4_COMBUSTION_GAS  # water as gas: liquid water's data stop at 600 K
+    forms = ["623.15", q("350 C"), q("350 \u00b0C"), q("662 F"), q("1121.67 R"), q("623.15 K")]
+    cells = sh.evaluate(["=RXNDH(%s;%s)" % (q(r), t) for t in forms] +
+                        ["=RXNDH(%s;%s)" % (q(r), q("25 C")), "=RXNDH(%s)" % q(r),
+                         "=SPECIESH(\"N2(g)\";1000)", "=SPECIESH(\"N2(g)\";\"726.85 C\")",
+                         "=SPECIESH(\"N2(g)\";1000;\"25 C\")",
+                         "=SPECIESH(\"N2(g)\";1000;400)",
+                         "=SPECIESH(\"N2(g)\";400)"])
+    base = cells[0].number
+    checks.ok("RXNDH at 623.15 K is a number", base is not None, repr(cells[0]))
+    if base is not None:
+        # 350 °C = 662 °F = 1121.67 °R = 623.15 K (GNU units: tempF(662), tempR(1121.67)).
+        for form, c in zip(forms[1:], cells[1:6]):
+            checks.close("temperature %s = 623.15 K" % form, c.number, base, 1e-6)
+    checks.close("temperature \"25 C\" = default 298.15 K", cells[6].number, cells[7].number, 1e-9)
+    checks.close("SPECIESH at \"726.85 C\" = at 1000 K", cells[9].number, cells[8].number, 1e-9)
+    checks.close("SPECIESH reference \"25 C\" = default", cells[10].number, cells[8].number, 1e-9)
+    if None not in (cells[8].number, cells[11].number, cells[12].number):
+        # H(1000) − H(400) = [H(1000) − H(298.15)] − [H(400) − H(298.15)]
+        checks.close("SPECIESH with a reference temperature", cells[11].number,
+                     cells[8].number - cells[12].number, 1e-9)
+
+
+def check_optional_arguments(checks, sh):
+    r = CH4_COMBUSTION
+    for a in ("Z1", "Z2", "Z3", "Z4", "Z5"):  # left blank on purpose
+        sh.cell(a).setString("")
+    cells = sh.evaluate([
+        "=RXNDH(%s)" % q(r),
+        "=RXNDH(%s;;;;)" % q(r),
+        "=RXNDH(%s;Z1;Z2;Z3;Z4)" % q(r),
+        "=RXNDH(%s;\"\";\"\";\"\";\"\")" % q(r),
+        "=RXNDH(%s;298.15;\"kJ/mol\")" % q(r),
+        "=RXNDU(%s)" % q(r),
+        "=RXNDU(%s;Z1;Z2;Z3;Z4)" % q(r),
+        "=RXNLOAD(%s;500;\"kg/h\";\"CH4\")" % q(r),
+        "=RXNLOAD(%s;500;\"kg/h\";\"CH4\";\"kW\")" % q(r),
+        "=RXNLOAD(%s;500;\"kg/h\";\"CH4\";Z1;Z2;Z3)" % q(r),
+        "=RXNLOAD(%s;500;\"kg/h\";\"CH4\";;;)" % q(r),
+        "=RXNKIND(%s;Z1;Z2;Z3)" % q(r),
+        "=RXNKIND(%s;;;)" % q(r),
+        "=RXNCHECK(%s;Z1;Z2)" % q(r),
+        "=SPECIESHF(\"CO2(g)\";Z1;Z2;Z3)",
+        "=SPECIESHF(\"CO2(g)\")",
+        "=SPECIESH(\"N2(g)\";1000;Z1;Z2)",
+        "=SPECIESH(\"N2(g)\";1000)",
+        "=RXNBALANCE(\"H2 + O2 -> H2O\";Z1)",
+        "=RXNBALANCE(\"H2 + O2 -> H2O\")",
+        "=RXNSOURCE(\"CO2(g)\";Z1)",
+        "=RXNSOURCE(\"CO2(g)\")",
+    ])
+    d = cells[0].number
+    checks.ok("RXNDH with everything omitted is a number", d is not None, repr(cells[0]))
+    for i, how in ((1, "empty"), (2, "blank cells"), (3, "empty strings"), (4, "explicit defaults")):
+        checks.close("RXNDH optional arguments %s = omitted" % how, cells[i].number, d, 0)
+    checks.close("RXNDU blank cells = omitted", cells[6].number, cells[5].number, 0)
+    checks.close("RXNLOAD result_unit omitted = kW", cells[7].number, cells[8].number, 0)
+    checks.close("RXNLOAD blank cells = omitted", cells[9].number, cells[7].number, 0)
+    checks.close("RXNLOAD empty = omitted", cells[10].number, cells[7].number, 0)
+    checks.ok("RXNKIND blank cells", cells[11].text == "exothermic", repr(cells[11]))
+    checks.ok("RXNKIND empty", cells[12].text == "exothermic", repr(cells[12]))
+    checks.ok("RXNCHECK blank cells", cells[13].text == "ok", repr(cells[13]))
+    checks.close("SPECIESHF blank cells = omitted", cells[14].number, cells[15].number, 0)
+    checks.close("SPECIESH blank cells = omitted", cells[16].number, cells[17].number, 0)
+    checks.ok("RXNBALANCE blank table = omitted", cells[18].text == cells[19].text
+              and cells[19].kind == "text", "%r %r" % (cells[18], cells[19]))
+    checks.ok("RXNSOURCE blank table = omitted", cells[20].text == cells[21].text
+              and cells[21].kind == "text", "%r %r" % (cells[20], cells[21]))
+
+
+def check_ranges(checks, sh):
+    reactions = [CH4_COMBUSTION, "2H2 + O2 = 2H2O", "this is not a reaction", "",
+                 CH4_COMBUSTION_UNICODE, "1/2 N2(g) + 3/2 H2(g) \u2192 NH3(g)"]
+    # A column D1:D6 (with one bad and one blank cell), a row D8:F8, a 2x2 block D10:E11.
+    for i, r in enumerate(reactions):
+        sh.put("D%d" % (i + 1), r)
+    sh.put("D8", reactions[0])
+    sh.put("E8", reactions[1])
+    sh.put("F8", reactions[5])
+    sh.put("D10", reactions[0])
+    sh.put("E10", reactions[1])
+    sh.put("D11", reactions[4])
+    sh.put("E11", reactions[5])
+    singles = sh.evaluate(["=RXNDH(D%d)" % (i + 1) for i in range(len(reactions))] +
+                          ["=RXNCHECK(D%d)" % (i + 1) for i in range(len(reactions))])
+    col = sh.array("G1:G6", "=RXNDH(D1:D6)")
+    checks.ok("array RXNDH(D1:D6) has shape 6x1", len(col) == 6 and len(col[0]) == 1)
+    for i in (0, 1, 4, 5):
+        checks.close("array element %d = single-cell RXNDH" % (i + 1), col[i][0].number,
+                     singles[i].number, 0)
+    checks.ok("array: failing element shows Err:502", col[2][0].error == ERR_ILLEGAL_ARGUMENT,
+              repr(col[2][0]))
+    checks.ok("array: blank reaction gives a blank element", col[3][0].error == 0 and
+              col[3][0].text == "" and col[3][0].number in (None, 0.0), repr(col[3][0]))
+    checks.ok("single cell: the bad reaction shows Err:502",
+              singles[2].error == ERR_ILLEGAL_ARGUMENT, repr(singles[2]))
+    words = sh.array("H1:H6", "=RXNCHECK(D1:D6)")
+    for i in range(len(reactions)):
+        if i == 3:
+            checks.ok("array RXNCHECK: blank stays blank", words[i][0].text == "",
+                      repr(words[i][0]))
+            continue
+        checks.ok("array RXNCHECK element %d = single-cell words" % (i + 1),
+                  words[i][0].text == singles[6 + i].text,
+                  "%r vs %r" % (words[i][0].text, singles[6 + i].text))
+    checks.ok("array RXNCHECK: the bad reaction gets words", words[2][0].text not in ("", "ok"),
+              repr(words[2][0]))
+    total = sh.one("=SUM(RXNDH(D1:D6))")
+    checks.ok("SUM over an array with a failing element is an error, not a partial sum",
+              total.error != 0, repr(total))
+    row = sh.array("D9:F9", "=RXNDH(D8:F8)")
+    checks.ok("array over a row has shape 1x3", len(row) == 1 and len(row[0]) == 3)
+    for j, i in enumerate((0, 1, 5)):
+        checks.close("row element %d = single-cell RXNDH" % (j + 1), row[0][j].number,
+                     singles[i].number, 0)
+    block = sh.array("G10:H11", "=RXNDH(D10:E11)")
+    for (a, b), i in zip(((0, 0), (0, 1), (1, 0), (1, 1)), (0, 1, 4, 5)):
+        checks.close("2x2 element (%d,%d) = single-cell RXNDH" % (a, b), block[a][b].number,
+                     singles[i].number, 0)
+    kinds = sh.array("I10:J11", "=RXNKIND(D10:E11)")
+    checks.ok("array RXNKIND gives words", all(c.text == "exothermic" for r in kinds for c in r),
+              repr(kinds))
+    # Species and formulas in ranges.
+    for i, s in enumerate(["CO2(g)", "H2O(l)", "H2O(g)", "Qq9(g)"]):
+        sh.put("K%d" % (i + 1), s)
+    for i, f in enumerate(["CH4", "H2O", "Ca(OH)2"]):
+        sh.put("M%d" % (i + 1), f)
+    hf = sh.array("L1:L4", "=SPECIESHF(K1:K4)")
+    single_hf = sh.evaluate(["=SPECIESHF(K%d)" % (i + 1) for i in range(3)])
+    for i in range(3):
+        checks.close("array SPECIESHF element %d = single" % (i + 1), hf[i][0].number,
+                     single_hf[i].number, 0)
+    checks.ok("array SPECIESHF unknown species shows Err:502",
+              hf[3][0].error == ERR_ILLEGAL_ARGUMENT, repr(hf[3][0]))
+    mm = sh.array("N1:P1", "=MOLARMASS(TRANSPOSE(M1:M3))")
+    checks.ok("MOLARMASS over an inline array of 3", len(mm[0]) == 3 and
+              all(c.number is not None for c in mm[0]), repr(mm))
+    mm_single = sh.evaluate(["=MOLARMASS(M%d)" % (i + 1) for i in range(3)])
+    for i in range(3):
+        checks.close("MOLARMASS array element %d = single" % (i + 1), mm[0][i].number,
+                     mm_single[i].number, 0)
+    bal = sh.array("Q1:Q2", "=RXNBALANCE(D1:D2)")
+    checks.ok("array RXNBALANCE gives text", all(c[0].kind == "text" for c in bal), repr(bal))
+
+
+def check_unicode(checks, sh, svc):
+    cells = sh.evaluate([
+        "=RXNDH(%s)" % q(CH4_COMBUSTION_UNICODE),
+        "=RXNDH(%s)" % q(CH4_COMBUSTION),
+        "=RXNDH(RXNREVERSE(%s))" % q(CH4_COMBUSTION_UNICODE),
+        "=SPECIESHF(\"CO\u2082(g)\")",
+        "=SPECIESHF(\"CO2(g)\")",
+        "=RXNCHECK(%s)" % q(CH4_COMBUSTION_UNICODE),
+        "=RXNCHECK(%s)" % q("CH\u2084(g) + O\u2082(g) \u2192 CO\u2082(g) \U0001F525"),
+        "=RXNDH(%s)" % q("CH\u2084(g) + O\u2082(g) \u2192 CO\u2082(g) \U0001F525"),
+        "=RXNDH(%s;\"350 \u00b0C\")" % q(CH4_COMBUSTION_GAS_UNICODE),
+        "=RXNDH(%s;623.15)" % q(CH4_COMBUSTION_GAS),
+    ])
+    checks.close("Unicode subscripts and arrow = ASCII reaction", cells[0].number,
+                 cells[1].number, 0)
+    if cells[0].number is not None:
+        checks.close("RXNREVERSE of the Unicode reaction = −RXNDH", cells[2].number,
+                     -cells[0].number, 1e-9)
+    checks.close("SPECIESHF CO₂(g) = CO2(g)", cells[3].number, cells[4].number, 0)
+    checks.ok("RXNCHECK Unicode reaction ok", cells[5].text == "ok", repr(cells[5]))
+    checks.ok("RXNCHECK with an emoji gives words", cells[6].text not in ("", "ok"),
+              repr(cells[6]))
+    checks.ok("RXNDH with an emoji is Err:502", cells[7].error == ERR_ILLEGAL_ARGUMENT,
+              repr(cells[7]))
+    checks.close("\"350 °C\" with a Unicode reaction", cells[8].number, cells[9].number, 1e-9)
+    more = sh.evaluate([
+        "=RXNCHECK(UNICHAR(128293)&\"H2\")",
+        "=RXNDH(UNICHAR(55357)&\"H2\")",
+        "=RXNCHECK(UNICHAR(55357)&\"H2\")",
+        "=RXNSCALE(%s;\"\u00bd\")" % q(CH4_COMBUSTION),
+        "=RXNSCALE(%s;\"1/2\")" % q(CH4_COMBUSTION),
+        "=RXNSCALE(%s;0.5)" % q(CH4_COMBUSTION),
+    ])
+    # A character outside the BMP (a UTF-16 surrogate pair) goes in and comes back in the
+    # engine's words intact.
+    checks.ok("astral-plane character survives UTF-16 -> UTF-8 -> UTF-16",
+              "\U0001F525" in more[0].text, repr(more[0]))
+    # Calc can make a lone surrogate (UNICHAR(55357)): not valid Unicode, refused in words.
+    checks.ok("lone surrogate: Err:502", more[1].error == ERR_ILLEGAL_ARGUMENT, repr(more[1]))
+    checks.ok("lone surrogate: RXNCHECK says it is not valid Unicode",
+              "not valid Unicode" in more[2].text, repr(more[2]))
+    checks.ok("RXNSCALE factor \"½\" = \"1/2\"", more[3].text == more[4].text != "",
+              "%r %r" % (more[3], more[4]))
+    checks.ok("RXNSCALE factor 0.5 = \"1/2\"", more[5].text == more[4].text, repr(more[5]))
+    # Text in and out of the component without loss: the same call made directly.
+    direct = svc.rxnCheck("CH\u2084(g) + O\u2082(g) \u2192 CO\u2082(g) \U0001F525", None, None)
+    checks.ok("RXNCHECK words identical through the cell and directly", direct == cells[6].text,
+              "%r vs %r" % (direct, cells[6].text))
+
+
+# Malformed reactions (and temperatures) that every numeric function must refuse with an error
+# in the cell, and that RXNCHECK must explain in words.
+MALFORMED = [
+    ("empty text", "", None),
+    ("unbalanced", "H2 + O2 -> H2O", None),
+    ("no products", "CH4(g) + 2 O2(g) ->", None),
+    ("no reactants", "-> CO2(g)", None),
+    ("doubled plus", "CH4(g) + + 2 O2(g) -> CO2(g) + 2 H2O(l)", None),
+    ("trailing plus", "H2(g) + Cl2(g) -> 2 HCl(g) +", None),
+    ("two arrows", "CH4(g) + 2 O2(g) -> -> CO2(g) + 2 H2O(l)", None),
+    ("no arrow", "CH4(g) + 2 O2(g) CO2(g) + 2 H2O(l)", None),
+    ("unknown element", "Qz(g) + O2(g) -> QzO2(g)", None),
+    ("unknown phase", "CH4(x) + 2 O2(g) -> CO2(g) + 2 H2O(l)", None),
+    ("zero denominator", "1/0 H2(g) + O2(g) -> H2O(l)", None),
+    ("open parentheses", "((((", None),
+    ("lower-case symbol", "ch4(g) + 2 o2(g) -> co2(g) + 2 h2o(l)", None),
+    ("ambiguous isomer", "C3H6(g) + 9/2 O2(g) -> 3 CO2(g) + 3 H2O(l)", None),
+    ("control character", "CH4(g)\u0001 + 2 O2(g) -> CO2(g) + 2 H2O(l)", None),
+    ("only an arrow", "->", None),
+    ("numbers only", "1 + 2 -> 3", None),
+    ("too long (5000 chars)", "H2(g) + " * 625 + "O2(g) -> H2O(l)", None),
+    ("temperature below the data", CH4_COMBUSTION, "10"),
+    ("liquid water above its data (600 K)", CH4_COMBUSTION, q("350 C")),
+    ("temperature above the data", CH4_COMBUSTION, "9000"),
+    ("negative kelvin", CH4_COMBUSTION, q("-5 K")),
+    ("unknown temperature unit", CH4_COMBUSTION, q("350 Q")),
+    ("temperature text without a number", CH4_COMBUSTION, q("hot")),
+]
+
+# Bad arguments other than the reaction: an error in the cell (RXNCHECK has no such argument).
+BAD_ARGUMENTS = [
+    ("unknown energy unit", "=RXNDH(%s;;\"kJ/kmol\")" % q(CH4_COMBUSTION)),
+    ("wrong case unit mJ/mol", "=RXNDH(%s;;\"mJ/mol\")" % q(CH4_COMBUSTION)),
+    ("mass unit without per", "=RXNDH(%s;;\"MJ/kg\")" % q(CH4_COMBUSTION)),
+    ("per species not in the reaction", "=RXNDH(%s;;;\"N2\")" % q(CH4_COMBUSTION)),
+    ("unit given as a number", "=RXNDH(%s;;5)" % q(CH4_COMBUSTION)),
+    ("reaction given as a number", "=RXNDH(42)"),
+    ("RXNLOAD unknown quantity unit", "=RXNLOAD(%s;500;\"furlong\";\"CH4\")" % q(CH4_COMBUSTION)),
+    ("RXNLOAD key not in the reaction", "=RXNLOAD(%s;500;\"kg/h\";\"N2\")" % q(CH4_COMBUSTION)),
+    ("RXNLOAD quantity as text", "=RXNLOAD(%s;\"lots\";\"kg/h\";\"CH4\")" % q(CH4_COMBUSTION)),
+    ("RXNLOAD total with a rate unit", "=RXNLOAD(%s;500;\"kg\";\"CH4\";\"kW\")" % q(CH4_COMBUSTION)),
+    ("RXNLOAD missing key", "=RXNLOAD(%s;500;\"kg/h\")" % q(CH4_COMBUSTION)),
+    ("RXNSCALE factor text", "=RXNSCALE(%s;\"twice\")" % q(CH4_COMBUSTION)),
+    ("SPECIESCP without temperature", "=SPECIESCP(\"N2(g)\")"),
+    ("SPECIESCP outside the data", "=SPECIESCP(\"N2(g)\";50)"),
+    ("SPECIESHF unknown species", "=SPECIESHF(\"Xx(g)\")"),
+    ("MOLARMASS not a formula", "=MOLARMASS(\"Hello\")"),
+    ("temperature as a range", "=RXNDH(%s;Z1:Z3)" % q(CH4_COMBUSTION)),
+    ("table that is one cell", "=RXNDH(%s;;;;\"CH4\")" % q(CH4_COMBUSTION)),
+    ("RXNBALANCE of text that is no reaction", "=RXNBALANCE(\"water\")"),
+]
+
+
+def check_errors(checks, sh, svc):
+    # Each malformed reaction sits in a cell of column AA, as on a user's sheet (a formula's
+    # own string literals are limited in length by Calc).
+    formulas = []
+    for k, (name, reaction, temperature) in enumerate(MALFORMED):
+        sh.put("AA%d" % (k + 1), reaction)
+        r = "AA%d" % (k + 1)
+        t = ";" + temperature if temperature else ""
+        formulas += ["=RXNDH(%s%s)" % (r, t), "=RXNDU(%s%s)" % (r, t),
+                     "=RXNKIND(%s%s)" % (r, t),
+                     "=RXNLOAD(%s;500;\"kg/h\";\"CH4\";;%s)" % (r, temperature or ""),
+                     "=RXNCHECK(%s%s)" % (r, t)]
+    t0 = time.monotonic()
+    cells = sh.evaluate(formulas)
+    elapsed = time.monotonic() - t0
+    checks.ok("%d malformed inputs × 5 functions recalculated in under 20 s" % len(MALFORMED),
+              elapsed < 20, "%.1f s" % elapsed)
+    for k, (name, reaction, temperature) in enumerate(MALFORMED):
+        dh, du, kind, load, words = cells[5 * k:5 * k + 5]
+        for fn, c in (("RXNDH", dh), ("RXNDU", du), ("RXNKIND", kind), ("RXNLOAD", load)):
+            checks.ok("malformed (%s): %s shows Err:502" % (name, fn),
+                      c.error == ERR_ILLEGAL_ARGUMENT, repr(c))
+        checks.ok("malformed (%s): RXNCHECK explains in words" % name,
+                  words.kind == "text" and words.text not in ("", "ok") and len(words.text) > 5,
+                  repr(words))
+        # The exception Calc receives carries the same words as RXNCHECK.
+        tval = None
+        if temperature:
+            tval = float(temperature) if not temperature.startswith('"') else temperature[1:-1]
+        try:
+            svc.rxnDH(reaction if reaction else None, tval, None, None, None)
+            checks.ok("malformed (%s): direct call raises" % name, False, "returned a value")
+        except Exception as e:
+            msg = getattr(e, "Message", None)
+            checks.ok("malformed (%s): IllegalArgumentException" % name,
+                      type(e).__name__.endswith("IllegalArgumentException"), type(e).__name__)
+            checks.ok("malformed (%s): its message = RXNCHECK's words" % name,
+                      msg == words.text, "%r vs %r" % (msg, words.text))
+    literal = sh.evaluate(["=RXNDH(\"\")", "=RXNCHECK(\"\")", "=RXNDH()", "=RXNCHECK()"])
+    checks.ok("RXNDH(\"\") shows Err:502", literal[0].error == ERR_ILLEGAL_ARGUMENT,
+              repr(literal[0]))
+    checks.ok("RXNCHECK(\"\") gives words", literal[1].text not in ("", "ok"), repr(literal[1]))
+    checks.ok("RXNDH() shows Err:502", literal[2].error == ERR_ILLEGAL_ARGUMENT, repr(literal[2]))
+    checks.ok("RXNCHECK() gives words", literal[3].text not in ("", "ok"), repr(literal[3]))
+    bad = sh.evaluate([f for _, f in BAD_ARGUMENTS])
+    for (name, _), c in zip(BAD_ARGUMENTS, bad):
+        checks.ok("bad argument (%s) shows Err:502" % name, c.error == ERR_ILLEGAL_ARGUMENT,
+                  repr(c))
+    # A malformed species table (no header naming the columns) is an error naming it.
+    sh.put("S1", "CH4")
+    sh.put("T1", "g")
+    sh.put("U1", -74.87)
+    tbl = sh.evaluate(["=RXNDH(%s;;;;S1:U1)" % q(CH4_COMBUSTION),
+                       "=RXNCHECK(%s;;S1:U1)" % q(CH4_COMBUSTION)])
+    checks.ok("malformed table: Err:502", tbl[0].error == ERR_ILLEGAL_ARGUMENT, repr(tbl[0]))
+    checks.ok("malformed table: RXNCHECK words", tbl[1].text not in ("", "ok"), repr(tbl[1]))
+    # A huge input is refused quickly, not parsed slowly.
+    sh.put("Y1", "H2(g) + " * 25000 + "O2(g) -> H2O(l)")
+    t0 = time.monotonic()
+    big = sh.evaluate(["=RXNDH(Y1)", "=RXNCHECK(Y1)"])
+    elapsed = time.monotonic() - t0
+    checks.ok("200,000-character reaction: Err:502", big[0].error == ERR_ILLEGAL_ARGUMENT,
+              repr(big[0]))
+    checks.ok("200,000-character reaction: RXNCHECK words", big[1].text not in ("", "ok"),
+              repr(big[1])[:200])
+    checks.ok("200,000-character reaction refused within 5 s", elapsed < 5, "%.2f s" % elapsed)
+
+
+def check_table(checks, sh):
+    """A user species table (SPEC 3.4): CH4(g) with the NIST-JANAF ΔfH° −74.87 kJ/mol
+    (4th ed., 1998; typed from memory) instead of the built-in −74.6."""
+    rows = [["formula", "phase", "dHf", "source"], ["CH4", "g", -74.87, "NIST-JANAF (test)"]]
+    for i, row in enumerate(rows):
+        for j, v in enumerate(row):
+            sh.put("%s%d" % ("VWXY"[j], 20 + i), v)
+    cells = sh.evaluate(["=RXNDH(%s;;;;V20:Y21)" % q(CH4_COMBUSTION),
+                         "=RXNDH(%s)" % q(CH4_COMBUSTION),
+                         "=RXNCHECK(%s;;V20:Y21)" % q(CH4_COMBUSTION),
+                         "=SPECIESHF(\"CH4(g)\";;;V20:Y21)"])
+    if cells[0].error:
+        # The engine may not support tables yet: then its error must reach the cell, in words.
+        checks.ok("species table unsupported: Err:502 in the cell",
+                  cells[0].error == ERR_ILLEGAL_ARGUMENT, repr(cells[0]))
+        checks.ok("species table unsupported: RXNCHECK says why", cells[2].text not in ("", "ok"),
+                  repr(cells[2]))
+        print("NOTE  species table: the engine answered: %s" % cells[2].text, flush=True)
+        return
+    if cells[1].number is not None:
+        # ΔrH° changes by −(−74.87 − (−74.6)) = +0.27 kJ/mol with the table's CH4.
+        checks.close("species table overrides CH4(g)", cells[0].number - cells[1].number,
+                     0.27, 0.05)
+    checks.close("SPECIESHF from the table", cells[3].number, -74.87, 1e-9)
+    checks.ok("RXNCHECK with the table ok", cells[2].text == "ok", repr(cells[2]))
+
+
+def check_alive(checks, off, sh):
+    checks.ok("office process still running", off.alive())
+    c = sh.one("=RXNDH(%s)+0" % q(CH4_COMBUSTION))
+    checks.close("office still answering: RXNDH after all the errors", c.number, -890.57, 0.15)
+    c = sh.one("=1+1")
+    checks.close("office still answering: =1+1", c.number, 2.0, 0)
+
+
+def check_save_reload(checks, off, workdir):
+    doc = off.new_calc()
+    sh = Sheet(doc)
+    sh.put("A1", CH4_COMBUSTION)
+    sh.put("A2", "2H2 + O2 = 2H2O")
+    sh.put("A3", "this is not a reaction")
+    formulas = {
+        "B1": "=RXNDH(A1)", "B2": "=RXNDH(A2;\"350 C\")", "B3": "=RXNDH(A3)",
+        "B4": "=RXNLOAD(A1;500;\"kg/h\";\"CH4\";\"kW\")", "B5": "=RXNKIND(A1)",
+        "B6": "=RXNCHECK(A3)", "B7": "=MOLARMASS(\"CH4\")", "B8": "=SPECIESCP(\"N2(g)\";\"500 K\")",
+        "B9": "=RXNBALANCE(\"H2 + O2 -> H2O\")", "B10": "=RXNVERSION()",
+    }
+    for a, f in formulas.items():
+        sh.cell(a).setFormula(f)
+    sh.cell("C1:C3").setArrayFormula("=RXNDH(A1:A3)")
+    doc.calculateAll()
+    cells = list(formulas) + ["C1", "C2", "C3"]
+    before = {a: repr(Cell(sh.cell(a))) for a in cells}
+    path = os.path.join(workdir, "saved-with-rxnheat.ods")
+    doc.storeToURL(officelib.file_url(path), (officelib.prop("FilterName", "calc8"),))
+    doc.close(True)
+    with zipfile.ZipFile(path) as z:
+        content = z.read("content.xml").decode("utf-8")
+    # ODF stores add-in calls by the service and method name (upper case), not the display name.
+    checks.ok("saved file stores the add-in calls by programmatic name",
+              "of:=ORG.RXNHEAT.CALC.FUNCTIONS.RXNDH([.A1])" in content)
+    doc = off.load(path)
+    sh2 = Sheet(doc)
+    cached = {a: repr(Cell(sh2.cell(a))) for a in cells}
+    checks.ok("reloaded cached results equal", cached == before, "%s vs %s" % (cached, before))
+    doc.calculateAll()
+    after = {a: repr(Cell(sh2.cell(a))) for a in cells}
+    checks.ok("reloaded and recalculated results equal", after == before,
+              "%s vs %s" % (after, before))
+    checks.ok("reloaded B1 is a number, not a name error", Cell(sh2.cell("B1")).value is not None)
+    doc.close(True)
+
+
+# ------------------------------------------------------------------------------------------
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    ap.add_argument("--oxt", required=True)
+    ap.add_argument("--version", required=True, help="the project version the .oxt must carry")
+    ap.add_argument("--cli", help="the rxnheat command line, for the engine's own answers")
+    ap.add_argument("--timeout", type=int, default=170)
+    ap.add_argument("--keep", action="store_true", help="keep the work folder")
+    args = ap.parse_args()
+
+    def on_alarm(signum, frame):
+        raise Timeout("the end-to-end test ran over %d s" % args.timeout)
+
+    signal.signal(signal.SIGALRM, on_alarm)
+    signal.alarm(args.timeout)
+    t_start = time.monotonic()
+    checks = Checks()
+    workdir = tempfile.mkdtemp(prefix="rxnheat-e2e-")
+    off = None
+    cli = EngineCli(args.cli) if args.cli and os.path.exists(args.cli) else None
+    try:
+        # The component's types, so this process can talk to it directly over the bridge.
+        with zipfile.ZipFile(args.oxt) as z:
+            z.extract("rxnheat.rdb", workdir)
+        local = uno.getComponentContext()
+        local.getValueByName("/singletons/com.sun.star.reflection.theTypeDescriptionManager") \
+            .insert(officelib.file_url(os.path.join(workdir, "rxnheat.rdb")))
+
+        off = officelib.Office(workdir, "install").start()
+        env = off.install_extension(args.oxt)
+        checks.ok("licence shown and approved on installation", env.approvals >= 1)
+        check_install(checks, off, args.version)
+        off.stop()
+
+        off = officelib.Office(workdir, "run").start()
+        svc = off.smgr.createInstanceWithContext("org.rxnheat.calc.Functions", off.ctx)
+        checks.ok("service org.rxnheat.calc.Functions can be created", svc is not None)
+        checks.ok("service supports com.sun.star.sheet.AddIn",
+                  svc.supportsService("com.sun.star.sheet.AddIn"))
+        checks.ok("service name", svc.getServiceName() == "org.rxnheat.calc.Functions")
+        checks.ok("display name of rxnDH", svc.getDisplayFunctionName("rxnDH") == "RXNDH")
+        checks.ok("programmatic name of RXNLOAD",
+                  svc.getProgrammaticFuntionName("RXNLOAD") == "rxnLoad")
+        check_wizard_texts(checks, off)
+        doc = off.new_calc()
+        sh = Sheet(doc)
+        sections = [("typical values", lambda: check_typical_values(checks, sh, cli, args.version)),
+                    ("temperatures", lambda: check_temperatures(checks, sh)),
+                    ("optional arguments", lambda: check_optional_arguments(checks, sh)),
+                    ("ranges", lambda: check_ranges(checks, sh)),
+                    ("unicode", lambda: check_unicode(checks, sh, svc)),
+                    ("errors", lambda: check_errors(checks, sh, svc)),
+                    ("species table", lambda: check_table(checks, sh)),
+                    ("alive", lambda: check_alive(checks, off, sh))]
+        for name, run in sections:
+            t0 = time.monotonic()
+            try:
+                run()
+            except Timeout:
+                raise
+            except Exception as e:
+                checks.ok("section %s ran" % name, False,
+                          "%s: %s\n%s" % (type(e).__name__, e, traceback.format_exc()))
+            print("----  %s: %.1f s" % (name, time.monotonic() - t0), flush=True)
+        doc.close(True)
+        check_save_reload(checks, off, workdir)
+        off.stop()
+        off = None
+    except Timeout as e:
+        checks.ok("finished in time", False, str(e))
+    except Exception as e:
+        checks.ok("test ran to the end", False,
+                  "%s: %s\n%s" % (type(e).__name__, e, traceback.format_exc()))
+    finally:
+        signal.alarm(0)
+        if off is not None:
+            off.kill()
+        if not args.keep:
+            shutil.rmtree(workdir, ignore_errors=True)
+    print("%d checks passed, %d failed, %d skipped in %.1f s" %
+          (checks.passed, len(checks.failed), len(checks.skipped), time.monotonic() - t_start))
+    for s in checks.skipped:
+        print("  skipped: " + s)
+    return 0 if not checks.failed else 1
+
+
+if __name__ == "__main__":
+    sys.exit(main())

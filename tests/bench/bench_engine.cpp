@@ -1,0 +1,177 @@
+// Benchmarks of the rxnheat engine through its public API (Google Benchmark).
+//
+//  cold    parse + resolve + evaluate: every iteration's text is new (spaces are inserted at
+//          three places: 64,000 distinct texts of nearly equal length, built before timing), so
+//          the engine's cache of prepared reactions misses.
+//  cached  the same text again and again: the cache hits and only the evaluation at T runs.
+//  load, balance, check, species_h: typical cell functions on cached text.
+#include <benchmark/benchmark.h>
+
+#include <rxnheat/rxnheat.hpp>
+
+#include <cstddef>
+#include <string>
+#include <utility>
+#include <vector>
+
+namespace {
+
+struct Typical {
+    const char* name;
+    const char* text;
+    double T;
+};
+
+const Typical typical[] = {
+    {"CH4_combustion_298K", "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)", 298.15},
+    {"water_gas_shift_1000K", "CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000},
+    {"ammonia_synthesis_700K", "N2(g) + 3 H2(g) -> 2 NH3(g)", 700},
+    {"calcination_1173K", "CaCO3(s) -> CaO(s) + CO2(g)", 1173},
+};
+
+/// A text that is the reaction with spaces inserted after its first species, after the arrow and
+/// at the end, their counts spelling `k` in base 40: distinct texts for k < 64,000.
+std::string unique_text(const std::string& base, std::size_t k) {
+    const std::size_t a = k % 40, b = (k / 40) % 40, c = (k / 1600) % 40;
+    std::string s = base;
+    const auto first_space = s.find(' ');
+    const auto arrow = s.find("->");
+    std::string out;
+    out.reserve(s.size() + a + b + c);
+    out += s.substr(0, first_space);
+    out += std::string(a, ' ');
+    out += s.substr(first_space, arrow + 2 - first_space);
+    out += std::string(b, ' ');
+    out += s.substr(arrow + 2);
+    out += std::string(c, ' ');
+    return out;
+}
+
+/// 64,000 distinct texts of one reaction, built before timing.
+const std::vector<std::string>& unique_texts(const std::string& base) {
+    static std::vector<std::pair<std::string, std::vector<std::string>>> all;
+    for (const auto& p : all)
+        if (p.first == base) return p.second;
+    std::vector<std::string> v;
+    v.reserve(64000);
+    for (std::size_t k = 0; k < 64000; ++k) v.push_back(unique_text(base, k));
+    all.emplace_back(base, std::move(v));
+    return all.back().second;
+}
+
+void BM_cold_dh(benchmark::State& state, const Typical* r) {
+    auto& e = rxnheat::Engine::shared();
+    const auto& texts = unique_texts(r->text);
+    // The position carries over between runs, so repetitions do not revisit recent texts (the
+    // engine's cache holds far fewer than 64,000 entries).
+    static std::size_t counter = 0;
+    for (auto _ : state) benchmark::DoNotOptimize(e.dh(texts[counter++ % texts.size()], r->T));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_cached_dh(benchmark::State& state, const Typical* r) {
+    auto& e = rxnheat::Engine::shared();
+    const std::string text = r->text;
+    e.dh(text, r->T);  // warm the cache
+    for (auto _ : state) benchmark::DoNotOptimize(e.dh(text, r->T));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_cached_report(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    const std::string text = "CO(g) + H2O(g) -> CO2(g) + H2(g)";
+    e.report(text, 1000);
+    for (auto _ : state) benchmark::DoNotOptimize(e.report(text, 1000));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_load_kg_per_h(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    const std::string text = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)";
+    e.load(text, 1000, "kg/h", "CH4(g)", "MW");
+    for (auto _ : state) benchmark::DoNotOptimize(e.load(text, 1000, "kg/h", "CH4(g)", "MW"));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_load_Nm3_per_h_1000K(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    const std::string text = "CO(g) + H2O(g) -> CO2(g) + H2(g)";
+    e.load(text, 5000, "Nm3/h", "CO(g)", "kW", 1000);
+    for (auto _ : state) benchmark::DoNotOptimize(e.load(text, 5000, "Nm3/h", "CO(g)", "kW", 1000));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_balance_cached(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    const std::string text = "KMnO4 + HCl -> KCl + MnCl2 + Cl2 + H2O";
+    e.balance(text);
+    for (auto _ : state) benchmark::DoNotOptimize(e.balance(text));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_balance_cold(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    const auto& texts = unique_texts("C3H8 + O2 -> CO2 + H2O");
+    static std::size_t counter = 0;
+    for (auto _ : state) benchmark::DoNotOptimize(e.balance(texts[counter++ % texts.size()]));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_check_cached(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    const std::string text = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)";
+    e.check(text);
+    for (auto _ : state) benchmark::DoNotOptimize(e.check(text));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_check_unbalanced(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    const std::string text = "H2(g) + O2(g) -> H2O(l)";
+    e.check(text);
+    for (auto _ : state) benchmark::DoNotOptimize(e.check(text));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_species_h(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    e.species_h("CO2(g)", 1000);
+    for (auto _ : state) benchmark::DoNotOptimize(e.species_h("CO2(g)", 1000));
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_molar_mass(benchmark::State& state) {
+    auto& e = rxnheat::Engine::shared();
+    for (auto _ : state) benchmark::DoNotOptimize(e.molar_mass("CuSO4·5H2O"));
+    state.SetItemsProcessed(state.iterations());
+}
+
+int register_all() {
+    for (const auto& r : typical) {
+        benchmark::RegisterBenchmark((std::string("cold_dh/") + r.name).c_str(), BM_cold_dh, &r);
+        benchmark::RegisterBenchmark((std::string("cached_dh/") + r.name).c_str(), BM_cached_dh, &r);
+    }
+    benchmark::RegisterBenchmark("cached_report/water_gas_shift_1000K", BM_cached_report);
+    benchmark::RegisterBenchmark("load/CH4_kg_per_h_to_MW", BM_load_kg_per_h);
+    benchmark::RegisterBenchmark("load/CO_Nm3_per_h_1000K", BM_load_Nm3_per_h_1000K);
+    benchmark::RegisterBenchmark("balance_cached/KMnO4_HCl", BM_balance_cached);
+    benchmark::RegisterBenchmark("balance_cold/C3H8_O2", BM_balance_cold);
+    benchmark::RegisterBenchmark("check_cached/ok", BM_check_cached);
+    benchmark::RegisterBenchmark("check_cached/unbalanced", BM_check_unbalanced);
+    benchmark::RegisterBenchmark("species_h/CO2_1000K", BM_species_h);
+    benchmark::RegisterBenchmark("molar_mass/CuSO4_5H2O", BM_molar_mass);
+    return 0;
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+    // First use builds the embedded data index; do it before timing anything.
+    rxnheat::Engine::shared().dh("H2(g) + 1/2 O2(g) -> H2O(l)");
+    register_all();
+    benchmark::Initialize(&argc, argv);
+    if (benchmark::ReportUnrecognizedArguments(argc, argv)) return 1;
+    benchmark::RunSpecifiedBenchmarks();
+    benchmark::Shutdown();
+    return 0;
+}

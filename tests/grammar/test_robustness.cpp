@@ -1,0 +1,197 @@
+// Robustness: random and mutated input from a fixed seed must only ever give a well-formed tree
+// or a ParseError (no other exception, crash or hang), and large hostile input is refused fast.
+#include "grammar_helpers.hpp"
+
+#include <chrono>
+#include <cstdint>
+#include <random>
+
+using namespace grammar_test;
+using rxnheat::grammar::parse_number;
+using rxnheat::grammar::parse_reaction;
+using rxnheat::grammar::parse_species;
+
+namespace {
+
+/// Upper bound for any position: characters of valid UTF-8, bytes otherwise.
+std::size_t length_bound(const std::string& s) { return s.size() + 1; }
+
+void check_species(const Species& s, std::size_t bound) {
+    CHECK(s.position >= 1);
+    CHECK(s.position <= bound);
+    CHECK_FALSE(s.written.empty());
+    CHECK((s.phase.empty() || s.phase == "g" || s.phase == "l" || s.phase == "s" || s.phase == "aq"));
+    if (s.is_name) {
+        CHECK_FALSE(s.name.empty());
+        CHECK(s.atoms.empty());
+        CHECK(s.charge == 0);
+    } else {
+        CHECK_FALSE(s.formula.empty());
+        CHECK_FALSE(s.atoms.empty());
+        for (const Atom& a : s.atoms) {
+            CHECK(a.count > 0);
+            CHECK(a.position >= s.position);
+            CHECK(a.position <= bound);
+        }
+        for (char c : s.formula) CHECK(static_cast<unsigned char>(c) < 0x80);  // ASCII form
+    }
+}
+
+/// Runs all three entry points; returns how many accepted the text.
+int exercise(const std::string& text) {
+    INFO("input bytes: " << text.size() << " text: " << text);
+    std::size_t const bound = length_bound(text);
+    int accepted = 0;
+    auto check_error = [&](const ParseError& e) {
+        CHECK(e.position() <= bound);
+        CHECK_FALSE(e.detail().empty());
+    };
+    try {
+        const Reaction r = parse_reaction(text);
+        ++accepted;
+        CHECK_FALSE(r.reactants.empty());
+        CHECK_FALSE(r.products.empty());
+        CHECK_FALSE(r.arrow.empty());
+        for (const auto* side : {&r.reactants, &r.products})
+            for (const Term& t : *side) {
+                CHECK(t.coefficient > 0);
+                CHECK(t.position >= 1);
+                CHECK(t.position <= t.species.position);
+                check_species(t.species, bound);
+            }
+    } catch (const ParseError& e) {
+        check_error(e);
+    } catch (const std::exception& e) {
+        FAIL("parse_reaction threw a non-ParseError: " << e.what());
+    }
+    try {
+        check_species(parse_species(text), bound);
+        ++accepted;
+    } catch (const ParseError& e) {
+        check_error(e);
+    } catch (const std::exception& e) {
+        FAIL("parse_species threw a non-ParseError: " << e.what());
+    }
+    try {
+        (void)parse_number(text);
+        ++accepted;
+    } catch (const ParseError& e) {
+        check_error(e);
+    } catch (const std::exception& e) {
+        FAIL("parse_number threw a non-ParseError: " << e.what());
+    }
+    return accepted;
+}
+
+// The notation's characters, and some that are not, as UTF-8 pieces.
+const char* const pieces[] = {
+    "H", "O", "C", "N", "Fe", "Cl", "Co", "a", "e", "n", "l", "g", "s", "aq", "cr", "q", "x",
+    "0", "1", "2", "3", "9", ".", "/", "+", "-", "−", "^", "{", "}", "(", ")", "[", "]", "*",
+    "·", "•", "⋅", ",", "=", "<", ">", "->", "=>", "<=>", "<->", "→", "⟶", "⇌", " ", "  ", "\t",
+    "\u00A0", "₂", "₃", "₀", "²", "³", "⁺", "⁻", "½", "¾", "⅛", "(g)", "(aq)", "(s)", "(liq)",
+    "ethanol", "n-octane", "$", "\u200B", "\xFF", "\xE2\x86", "\0",
+};
+
+const char* const seeds[] = {
+    "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)",
+    "2H2 + O2 = 2H2O",
+    "1/2 N2(g) + 3/2 H2(g) → NH3(g)",
+    "SO2(g) + 0.5 O2(g) ⇌ SO3(g)",
+    "CH₄(g) + 2O₂(g) → CO₂(g) + 2H₂O(l)",
+    "CuSO4·5H2O(s) -> CuSO4(s) + 5 H2O(l)",
+    "Ca(OH)2(s) + CO2(g) -> CaCO3(s) + H2O(l)",
+    "H+(aq) + OH-(aq) -> H2O(l)",
+    "Fe^3+(aq) + 3 OH^-(aq) -> Fe(OH)3(s)",
+    "ethanol(l) + 3 O2(g) -> 2 CO2(g) + 3 H2O(l)",
+    "[Cu(NH3)4]{2+}(aq) + SO₄²⁻ <=> ethylene oxide + Fe0.947O",
+};
+
+}  // namespace
+
+TEST_CASE("fuzz: random bytes", "[grammar][robustness]") {
+    std::mt19937 rng(20240611u);
+    for (int k = 0; k < 1000; ++k) {
+        std::string s(rng() % 65, '\0');
+        for (char& c : s) c = static_cast<char>(rng() & 0xFF);
+        exercise(s);
+    }
+}
+
+TEST_CASE("fuzz: random strings of notation characters", "[grammar][robustness]") {
+    std::mt19937 rng(777u);
+    constexpr std::size_t n = sizeof pieces / sizeof pieces[0];
+    for (int k = 0; k < 2000; ++k) {
+        std::string s;
+        for (std::uint32_t len = rng() % 24; len > 0; --len) {
+            const char* p = pieces[rng() % n];
+            s += (*p == '\0') ? std::string(1, '\0') : std::string(p);
+        }
+        exercise(s);
+    }
+}
+
+TEST_CASE("fuzz: mutated examples", "[grammar][robustness]") {
+    std::mt19937 rng(4242u);
+    constexpr std::size_t n = sizeof pieces / sizeof pieces[0];
+    int accepted = 0;
+    for (const char* seed : seeds) REQUIRE(exercise(seed) >= 1);  // the seeds themselves parse
+    for (int k = 0; k < 3000; ++k) {
+        std::string s = seeds[rng() % (sizeof seeds / sizeof seeds[0])];
+        for (std::uint32_t edits = 1 + rng() % 3; edits > 0; --edits) {
+            std::size_t const at = s.empty() ? 0 : rng() % (s.size() + 1);
+            switch (rng() % 4) {
+                case 0: s.insert(at, pieces[rng() % n]); break;                 // insert a piece
+                case 1: if (at < s.size()) s.erase(at, 1 + rng() % 3); break;   // delete bytes
+                case 2: if (at < s.size()) s[at] = static_cast<char>(rng() & 0xFF); break;  // flip a byte
+                case 3: s.insert(at, s.substr(at, rng() % 8)); break;           // duplicate a stretch
+            }
+        }
+        accepted += exercise(s) > 0;
+    }
+    // Not a fixed number (the mutations are random), but both outcomes must occur.
+    CHECK(accepted > 100);
+    CHECK(accepted < 3000);
+}
+
+namespace {
+double milliseconds_to_fail(const std::string& text) {
+    auto const t0 = std::chrono::steady_clock::now();
+    bool failed = false;
+    try {
+        (void)parse_reaction(text);
+    } catch (const ParseError&) {
+        failed = true;
+    }
+    auto const t1 = std::chrono::steady_clock::now();
+    CHECK(failed);
+    return std::chrono::duration<double, std::milli>(t1 - t0).count();
+}
+}  // namespace
+
+TEST_CASE("hostile input is refused fast", "[grammar][robustness]") {
+    CHECK(milliseconds_to_fail(std::string(4096, '(')) < 10.0);
+    CHECK(milliseconds_to_fail(std::string(4096, '[')) < 10.0);
+    CHECK(milliseconds_to_fail(std::string(4096, ')')) < 10.0);
+    CHECK(milliseconds_to_fail(std::string(1 << 20, '(')) < 10.0);  // refused by length
+    std::mt19937 rng(99u);
+    std::string bytes(4096, '\0');
+    for (char& c : bytes) c = static_cast<char>(rng() & 0xFF);
+    CHECK(milliseconds_to_fail(bytes) < 10.0);
+    std::string ascii(4096, ' ');
+    for (char& c : ascii) c = static_cast<char>(' ' + rng() % 95);  // printable ASCII
+    CHECK(milliseconds_to_fail(ascii) < 10.0);
+    std::string nested;  // deep but legal nesting, then an error at the very end
+    while (nested.size() < 4000) nested += "(((((((((((((((H)2)2)2)2)2)2)2)2)2)2)2)2)2)2)2 + ";
+    CHECK(milliseconds_to_fail(nested + "->") < 10.0);
+}
+
+TEST_CASE("a long legal reaction near the limit parses", "[grammar][robustness]") {
+    std::string text;
+    while (text.size() < 4000) text += "2 CH4(g) + ";
+    text += "O2 -> CO2";
+    auto const t0 = std::chrono::steady_clock::now();
+    const Reaction r = parse_reaction(text);
+    auto const ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+    CHECK(r.reactants.size() == 365);
+    CHECK(ms < 50.0);
+}
