@@ -190,7 +190,7 @@ std::string Substance::range_text() const {
             out += number_text(r->t_single) + " K only";
         else
             out += number_text(r->tmin()) + "–" + number_text(r->tmax()) + " K";
-        if (records.size() > 1 || true) out += " ('" + r->name + "')";
+        out += " ('" + r->name + "')";
     }
     return out;
 }
@@ -287,7 +287,9 @@ const Alias& known_alias(const Database& db, const grammar::Species& sp) {
 }
 }  // namespace
 
-Composition Database::composition(const grammar::Species& sp) const {
+Composition Database::composition(const grammar::Species& sp, const SpeciesTable* table) const {
+    if (table && table->impl())
+        if (auto user = find_user_species(*table->impl(), sp)) return composition(user->parsed);
     if (sp.is_name) {
         const Alias& a = known_alias(*this, sp);
         for (const std::string* n : {&a.gas, &a.liquid})

@@ -57,8 +57,9 @@ public:
     const Alias* alias(std::string_view name) const;
     const Record* record(std::string_view name) const;
 
-    /// Composition of a parsed species (element symbols checked; names via the alias table).
-    Composition composition(const grammar::Species& sp) const;
+    /// Composition of a parsed species (element symbols checked; names via the user table's
+    /// `name` column, then the alias table).
+    Composition composition(const grammar::Species& sp, const SpeciesTable* table = nullptr) const;
     double molar_mass(const Composition& c) const;
 
     /// Resolves a parsed species per SPEC 3.2-3.3 (user table rows first).

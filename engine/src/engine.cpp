@@ -194,8 +194,7 @@ std::string Engine::check(std::string_view reaction, double T, const SpeciesTabl
 }
 
 std::string Engine::balance(std::string_view reaction, const SpeciesTable* table) {
-    (void)table;  // balancing needs compositions only, which a user table does not change
-    return detail::balanced_text(*detail::prepare(reaction, nullptr));
+    return detail::balanced_text(*detail::prepare(reaction, table));  // a table may name species
 }
 
 std::string Engine::reverse(std::string_view reaction) {

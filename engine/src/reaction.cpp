@@ -162,10 +162,9 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
                                    std::size_t* term_index) const {
     require_thermo();
     const Database& db = Database::get();
-    const Composition want = db.composition(key);
+    const Composition want = db.composition(key, table);
     const std::string want_key = want.key();
     const char want_phase = key.phase.empty() ? 0 : key.phase == "aq" ? 'a' : key.phase[0];
-    (void)table;
     Rational net = 0;
     std::string identity;
     bool found = false;
@@ -271,7 +270,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     }
     const Database& db = Database::get();
     try {
-        for (const auto* t : p->terms) p->compositions.push_back(db.composition(t->species));
+        for (const auto* t : p->terms) p->compositions.push_back(db.composition(t->species, table));
     } catch (const Error& e) {
         p->composition_error = e;
         p->compositions.clear();

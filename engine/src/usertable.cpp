@@ -97,6 +97,9 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
             const auto sp = grammar::parse_species(formula);
             if (sp.is_name) table_error(row, "formula", "'" + formula + "' is not a formula");
             if (!sp.phase.empty()) table_error(row, "formula", "write the phase in the phase column");
+            for (const auto& atom : sp.atoms)
+                if (!detail::Database::get().element(atom.symbol))
+                    table_error(row, "formula", "'" + atom.symbol + "' is not an element symbol");
             u->formula = sp.formula;
             u->parsed = sp;
             if (sp.charge) u->formula += (sp.charge > 0 ? "+" : "-") + std::to_string(std::abs(sp.charge));
