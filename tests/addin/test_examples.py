@@ -1,0 +1,574 @@
+#!/usr/bin/python3
+"""The example workbooks (examples/*.fods) in a real headless LibreOffice with the add-in.
+
+Installs the built rxnheat.oxt into a private profile, opens each workbook, recalculates it
+(calculateAll) and checks its key numbers against values computed outside the office:
+
+- heat-load costing sheet: every RXNDH / RXNKIND / RXNLOAD cell against the `rxnheat` CLI
+  (same engine, other code path), every RXNLOAD cell against plain arithmetic
+  ΔrH° × n(key)/|ν(key)| with molar masses from IUPAC atomic weights (python3-periodictable)
+  and normal volumes from the ideal-gas law; utility costs and totals against the arithmetic
+  of the sheet's own input cells; inputs changed -> results follow;
+- operator template: sheet protected, input cells unlocked and marked, formula cells locked,
+  status "ok" for good inputs and RXNCHECK's words (the CLI's `check` text) for bad ones;
+- design sheet: every ΔrH°(T) cell against `rxnheat batch`, the chart (XY scatter, one series
+  per reaction over the temperature column), an out-of-range temperature giving an error;
+- all three: the stored numbers are the ones the engine computes now (else: run
+  scripts/make-examples), the add-in calls are stored the way LibreOffice stores them, the
+  invented plant and the cautions are on the sheet.
+
+Run by CTest. Time-bound (--timeout); the office is killed on any failure. Exit status 0 when
+every check passed.
+"""
+import argparse
+import json
+import math
+import os
+import re
+import shutil
+import signal
+import subprocess
+import sys
+import tempfile
+import time
+import traceback
+import xml.etree.ElementTree as ET
+
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import office as officelib  # noqa: E402  (needs the system python3 with python3-uno)
+
+TOP = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))
+COSTING = "heat-load-costing.fods"
+OPERATOR = "operator-template.fods"
+DESIGN = "design-dh-vs-temperature.fods"
+
+# Molar gas constant, CODATA 2018 (exact in the 2019 SI): 8.31446261815324 J/(mol K).
+R = 8.31446261815324
+# Normal cubic metre: 0 °C and 101.325 kPa (SPEC section 4); ideal gas, n = pV/(RT).
+MOL_PER_NM3 = 101325.0 / (R * 273.15)
+# Common names used as key species in the workbooks -> formula (from memory: ethanol C2H5OH).
+FORMULA_OF = {"ethanol": "C2H5OH"}
+ERR_ILLEGAL_ARGUMENT = 502  # Calc's Err:502
+
+
+class Timeout(Exception):
+    pass
+
+
+class Checks:
+    def __init__(self):
+        self.passed = 0
+        self.failed = []
+        self.skipped = []
+
+    def ok(self, name, condition, detail=""):
+        if condition:
+            self.passed += 1
+        else:
+            self.failed.append(name)
+            print("FAIL  %s%s" % (name, ": " + detail if detail else ""), flush=True)
+        return condition
+
+    def rel(self, name, got, want, rtol, atol=1e-9):
+        good = (isinstance(got, float) and isinstance(want, float) and math.isfinite(got)
+                and math.isfinite(want) and abs(got - want) <= max(atol, rtol * abs(want)))
+        return self.ok(name, good, "got %r, want %r (rtol %g)" % (got, want, rtol))
+
+    def skip(self, name, why):
+        self.skipped.append("%s: %s" % (name, why))
+        print("SKIP  %s: %s" % (name, why), flush=True)
+
+
+class Cli:
+    """The engine's own answers from the `rxnheat` command line (SPEC section 5)."""
+
+    def __init__(self, path):
+        self.path = path
+
+    def json(self, *args, stdin=None):
+        p = subprocess.run([self.path] + list(args) + ["--json"], input=stdin,
+                           capture_output=True, text=True, timeout=30)
+        return json.loads(p.stdout)
+
+
+def iupac_molar_mass(formula):
+    """g/mol from IUPAC standard atomic weights (Debian's python3-periodictable)."""
+    import periodictable
+    return float(periodictable.formula(formula).mass)
+
+
+def key_coefficient(reaction, key):
+    """|ν| of species `key` in a reaction written as `a A(p) + b B(p) -> ...`."""
+    sides = re.split(r"\s*(?:->|=>|<=>|<->|=|\u2192|\u27f6|\u21cc)\s*", reaction)
+    found = []
+    for side in sides:
+        for term in side.split(" + "):
+            m = re.match(r"^\s*(\d+(?:\.\d+)?(?:/\d+)?)?\s*(.+?)(\((?:g|l|s|aq|cr)\))?\s*$",
+                         term)
+            if m and m.group(2) == key:
+                num = m.group(1) or "1"
+                if "/" in num:
+                    a, b = num.split("/")
+                    found.append(float(a) / float(b))
+                else:
+                    found.append(float(num))
+    if len(found) != 1:
+        raise ValueError("key %r appears %d times in %r" % (key, len(found), reaction))
+    return found[0]
+
+
+def mol_per_s(quantity, unit, key):
+    """Flow of the key species in mol/s, from the sheet's throughput and unit."""
+    amount, per = unit.split("/")
+    seconds = {"s": 1.0, "min": 60.0, "h": 3600.0, "d": 86400.0}[per]
+    if amount == "Nm3":
+        mol = quantity * MOL_PER_NM3
+    elif amount in ("kg", "g", "t"):
+        grams = quantity * {"g": 1.0, "kg": 1e3, "t": 1e6}[amount]
+        mol = grams / iupac_molar_mass(FORMULA_OF.get(key, key))
+    elif amount in ("mol", "kmol"):
+        mol = quantity * {"mol": 1.0, "kmol": 1e3}[amount]
+    else:
+        raise ValueError("no arithmetic for unit %r" % unit)
+    return mol / seconds
+
+
+def rng(doc, name):
+    """The cell range of a named range of the workbook."""
+    content = doc.NamedRanges.getByName(name).getContent()   # e.g. $'Heat loads'.$C$6
+    sheet_name, ref = content.rsplit(".", 1)
+    sheet_name = sheet_name.lstrip("$").strip("'")
+    return doc.Sheets.getByName(sheet_name).getCellRangeByName(ref.replace("$", ""))
+
+
+def cell_number(cell):
+    if cell.getError() != 0:
+        return None
+    return float(cell.getValue())
+
+
+def sheet_text(sheet):
+    cur = sheet.createCursor()
+    cur.gotoEndOfUsedArea(False)
+    end = cur.RangeAddress
+    data = sheet.getCellRangeByPosition(0, 0, end.EndColumn, end.EndRow).getDataArray()
+    return "\n".join(str(v) for row in data for v in row if v != "")
+
+
+def stored_formulas(path):
+    """Every table:formula attribute of the flat ODF file (outside the chart)."""
+    ns = "urn:oasis:names:tc:opendocument:xmlns:table:1.0"
+    tree = ET.parse(path)
+    return [el.get("{%s}formula" % ns) for el in tree.iter()
+            if el.get("{%s}formula" % ns) is not None]
+
+
+def _rows(element, t):
+    """The table's own rows, in order (not the rows of a table inside a cell, e.g. a chart's)."""
+    for child in element:
+        if child.tag == "{%s}table-row" % t:
+            yield child
+        elif child.tag in ("{%s}table-header-rows" % t, "{%s}table-rows" % t,
+                           "{%s}table-row-group" % t):
+            yield from _rows(child, t)
+
+
+def stored_cells(path, sheet_name):
+    """What the file itself holds for each cell of one sheet: {(col, row): (type, value,
+    text)}, read from the flat ODF XML (repeated rows and columns expanded) -- the numbers a
+    user sees who opens the file without the add-in."""
+    t = "urn:oasis:names:tc:opendocument:xmlns:table:1.0"
+    o = "urn:oasis:names:tc:opendocument:xmlns:office:1.0"
+    tx = "urn:oasis:names:tc:opendocument:xmlns:text:1.0"
+    tree = ET.parse(path)
+    out = {}
+    for table in tree.iter("{%s}table" % t):
+        if table.get("{%s}name" % t) != sheet_name:
+            continue
+        row = 0
+        for tr in _rows(table, t):
+            col = 0
+            for cell in tr:
+                if cell.tag not in ("{%s}table-cell" % t, "{%s}covered-table-cell" % t):
+                    continue
+                n = int(cell.get("{%s}number-columns-repeated" % t, "1"))
+                kind = cell.get("{%s}value-type" % o)
+                if kind is not None:
+                    text = "\n".join("".join(p.itertext()) for p in cell.iter("{%s}p" % tx))
+                    value = cell.get("{%s}value" % o)
+                    for k in range(n):
+                        out[(col + k, row)] = (kind, value, text)
+                col += n
+            row += int(tr.get("{%s}number-rows-repeated" % t, "1"))
+    return out
+
+
+def check_common(checks, name, path, doc, sheet, formula_cells):
+    """Stored file form, plant, cautions, and stored numbers equal to the recalculated ones."""
+    formulas = stored_formulas(path)
+    ours = [f for f in formulas if re.search(r"RXN|SPECIES|MOLARMASS", f)]
+    checks.ok("%s: has rxnheat formulas" % name, len(ours) > 0)
+    bad = [f for f in ours if not f.startswith("of:=") or re.search(
+        r"(?<!FUNCTIONS\.)\b(RXNDH|RXNKIND|RXNLOAD|RXNCHECK|RXNSOURCE|RXNVERSION)\(", f)]
+    checks.ok("%s: add-in calls stored as LibreOffice stores them (programmatic name)" % name,
+              not bad, "; ".join(bad[:3]))
+    text = sheet_text(sheet)
+    for words in ("Hallistry Marsh Works", "invented plant", "screening estimates",
+                  "calorimetry", "process hazard analysis", "licensed engineers",
+                  "complete conversion", "standard-state"):
+        checks.ok("%s: the sheet says %r" % (name, words), words in text)
+    doc.calculateAll()
+    stored = stored_cells(path, sheet.Name)
+    stale = []
+    for c in formula_cells:
+        a = c.CellAddress
+        kind, value, text = stored.get((a.Column, a.Row), (None, None, None))
+        if c.getError() != 0:
+            good = False
+        elif kind == "float":
+            good = abs(float(value) - c.getValue()) <= 1e-9 * max(1.0, abs(c.getValue()))
+        else:
+            good = kind == "string" and text == c.getString()
+        if not good:
+            stale.append("%s: stored %r, now %r" % (c.AbsoluteName, value if kind == "float"
+                                                    else text, c.getString()))
+    checks.ok("%s: the numbers stored in the file are what the add-in computes now (else run "
+              "scripts/make-examples)" % name, not stale and formula_cells,
+              "; ".join(stale[:3]))
+
+
+# ------------------------------------------------------------------------------------------
+def check_costing(checks, office, path, cli):
+    name = "costing"
+    doc = office.load(path)
+    try:
+        table = rng(doc, "LoadTable")
+        sheet = table.getSpreadsheet()
+        rows = table.Rows.Count
+        checks.ok("costing: a table of at least 5 reactions", rows >= 5, str(rows))
+        formula_cells = [table.getCellByPosition(c, r) for r in range(rows)
+                         for c in (6, 7, 8, 10, 11)]
+        formula_cells += [rng(doc, n) for n in ("HeatToSupply", "HeatToRemove", "TotalCost")]
+        check_common(checks, name, path, doc, sheet, formula_cells)
+        ps = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
+        checks.ok("costing: printed landscape, one page wide", ps.IsLandscape and
+                  ps.ScaleToPagesX == 1)
+        checks.ok("costing: print area set", len(sheet.getPrintAreas()) == 1)
+
+        # The sheet's own inputs
+        hours = cell_number(rng(doc, "OperatingHours"))
+        per_mwh = {
+            "fuel gas": cell_number(rng(doc, "FuelPrice")) * 3.6
+            / cell_number(rng(doc, "HeaterEfficiency")),
+            "HP steam": cell_number(rng(doc, "SteamPrice")) * 3600.0
+            / cell_number(rng(doc, "SteamHeat")),
+            "cooling water": cell_number(rng(doc, "CoolingWaterPrice")) * 3600.0
+            / (cell_number(rng(doc, "CoolingWaterCp"))
+               * cell_number(rng(doc, "CoolingWaterRise"))),
+        }
+        utab = rng(doc, "UtilityCosts")
+        for r in range(utab.Rows.Count):
+            u = utab.getCellByPosition(0, r).getString()
+            checks.rel("costing: EUR/MWh of %s from the price inputs" % u,
+                       cell_number(utab.getCellByPosition(2, r)), per_mwh.get(u), 1e-12)
+
+        total = 0.0
+        supply = 0.0
+        remove = 0.0
+        for r in range(rows):
+            cell = lambda c: table.getCellByPosition(c, r)  # noqa: E731
+            reaction = cell(1).getString()
+            key = cell(2).getString()
+            qty = cell_number(cell(3))
+            unit = cell(4).getString()
+            t_k = cell_number(cell(5)) + 273.15
+            dh = cell_number(cell(6))
+            kind = cell(7).getString()
+            load = cell_number(cell(8))
+            utility = cell(9).getString()
+            label = "costing row %d (%s)" % (r + 1, reaction)
+            if not checks.ok(label + ": RXNDH and RXNLOAD computed", dh is not None
+                             and load is not None, "errors %d %d" % (cell(6).getError(),
+                                                                     cell(8).getError())):
+                continue
+            # Plain arithmetic, independent of the engine's unit code: ΔrH° × n(key)/|ν(key)|.
+            # Molar masses: IUPAC standard atomic weights (python3-periodictable); the engine's
+            # own table (data/elements.csv, CIAAW) differs by a few parts in 1e5 at most.
+            want = dh * mol_per_s(qty, unit, key) / key_coefficient(reaction, key)
+            checks.rel(label + ": load = dH x n/nu", load, want, 2e-4 if "Nm3" not in unit
+                       else 1e-9)
+            checks.ok(label + ": kind matches the sign of dH",
+                      kind == ("endothermic" if dh > 0.1 else "exothermic" if dh < -0.1
+                               else "thermoneutral"), kind)
+            if cli:
+                j = cli.json("dh", reaction, "-T", repr(t_k))
+                checks.rel(label + ": RXNDH = CLI dh", dh, float(j["value"]), 1e-12)
+                checks.ok(label + ": RXNKIND = CLI kind", kind == j["kind"],
+                          kind + " / " + j["kind"])
+                j = cli.json("load", reaction, repr(qty), unit, key, "-u", "kW", "-T", repr(t_k))
+                checks.rel(label + ": RXNLOAD = CLI load", load, float(j["value"]), 1e-12)
+            cost = abs(load) / 1000.0 * hours * per_mwh[utility]
+            checks.rel(label + ": cost/yr = |load| x hours x EUR/MWh", cell_number(cell(11)),
+                       cost, 1e-12)
+            total += cost
+            supply += max(load, 0.0)
+            remove += max(-load, 0.0)
+        checks.rel("costing: total cost/yr = sum of the rows", cell_number(rng(doc, "TotalCost")),
+                   total, 1e-12)
+        checks.rel("costing: heat to supply", cell_number(rng(doc, "HeatToSupply")), supply, 1e-12)
+        checks.rel("costing: heat to remove", cell_number(rng(doc, "HeatToRemove")), remove, 1e-12)
+        checks.ok("costing: both endothermic and exothermic loads", supply > 0 and remove > 0)
+
+        # Inputs drive the results: halve the hours, double the first throughput.
+        rng(doc, "OperatingHours").setValue(hours / 2)
+        load0 = cell_number(table.getCellByPosition(8, 0))
+        table.getCellByPosition(3, 0).setValue(2 * cell_number(table.getCellByPosition(3, 0)))
+        doc.calculateAll()
+        checks.rel("costing: doubled throughput doubles the load",
+                   cell_number(table.getCellByPosition(8, 0)), 2 * load0, 1e-12)
+        u0 = table.getCellByPosition(9, 0).getString()
+        new_total = total / 2 + abs(load0) / 1000.0 * (hours / 2) * per_mwh[u0]
+        checks.rel("costing: total follows the hours input", cell_number(rng(doc, "TotalCost")),
+                   new_total, 1e-12)
+        # A bad reaction gives an error in its cells, never a number.
+        table.getCellByPosition(1, 0).setString("CH4(g) + H2O(g) -> CO(g) + H2(g)")
+        doc.calculateAll()
+        checks.ok("costing: unbalanced reaction -> Err:502 in RXNDH and RXNLOAD",
+                  table.getCellByPosition(6, 0).getError() == ERR_ILLEGAL_ARGUMENT and
+                  table.getCellByPosition(8, 0).getError() == ERR_ILLEGAL_ARGUMENT)
+        checks.ok("costing: ... and the total is an error too, not a smaller number",
+                  rng(doc, "TotalCost").getError() != 0)
+    finally:
+        doc.close(True)
+
+
+# ------------------------------------------------------------------------------------------
+def check_operator(checks, office, path, cli):
+    name = "operator"
+    doc = office.load(path)
+    try:
+        inputs = ["Reaction", "KeySpecies", "Feed", "FeedUnit", "InletTemperature"]
+        results = ["Status", "ReactionEnthalpy", "Kind", "HeatLoad", "HeatReleased", "Sources",
+                   "Version"]
+        sheet = rng(doc, "Status").getSpreadsheet()
+        check_common(checks, name, path, doc, sheet, [rng(doc, n) for n in results])
+        checks.ok("operator: the sheet is protected", sheet.isProtected())
+        for n in inputs:
+            c = rng(doc, n)
+            checks.ok("operator: input %s unlocked" % n, not c.CellProtection.IsLocked)
+            checks.ok("operator: input %s marked with the input style" % n,
+                      c.CellStyle == "rxnheat Input", c.CellStyle)
+        for n in results:
+            c = rng(doc, n)
+            checks.ok("operator: result %s is a locked formula" % n,
+                      c.CellProtection.IsLocked and c.getFormula().startswith("="))
+        locked_inputs = [n for n in inputs if rng(doc, n).CellProtection.IsLocked]
+        checks.ok("operator: no input is locked", not locked_inputs, str(locked_inputs))
+        style = doc.StyleFamilies.getByName("CellStyles").getByName("rxnheat Input")
+        checks.ok("operator: the input style is unlocked and coloured",
+                  not style.CellProtection.IsLocked and style.CellBackColor not in (-1, 0xFFFFFF))
+        checks.ok("operator: a legend explains the input colour",
+                  "type into" in sheet_text(sheet))
+
+        def status():
+            doc.calculateAll()
+            return rng(doc, "Status").getString()
+
+        reaction = rng(doc, "Reaction").getString()
+        t_k = cell_number(rng(doc, "InletTemperature")) + 273.15
+        checks.ok("operator: status ok for the template's inputs", status() == "ok", status())
+        dh = cell_number(rng(doc, "ReactionEnthalpy"))
+        load = cell_number(rng(doc, "HeatLoad"))
+        key = rng(doc, "KeySpecies").getString()
+        feed = cell_number(rng(doc, "Feed"))
+        unit = rng(doc, "FeedUnit").getString()
+        if cli:
+            checks.rel("operator: dH = CLI dh", dh, float(cli.json("dh", reaction, "-T", repr(t_k))
+                                                          ["value"]), 1e-12)
+            checks.rel("operator: load = CLI load", load, float(cli.json(
+                "load", reaction, repr(feed), unit, key, "-u", "kW", "-T", repr(t_k))["value"]),
+                1e-12)
+        checks.rel("operator: load = dH x n/nu", load,
+                   dh * mol_per_s(feed, unit, key) / key_coefficient(reaction, key), 1e-9)
+        checks.rel("operator: heat released = -load for an exothermic bed",
+                   cell_number(rng(doc, "HeatReleased")), max(0.0, -load), 1e-12)
+        checks.ok("operator: data sources named", "NASA/TP-2002-211556" in
+                  rng(doc, "Sources").getString())
+
+        # Bad inputs: the status says what is wrong, in words; the numbers are errors.
+        bad_reactions = ["CO(g) + H2O(g) -> CO2(g)",          # unbalanced
+                         "CO(g) + H2O(g) -> CO2(g) + Xx(g)",   # not an element
+                         "CO(g) + H2O(g) ->"]                  # no products
+        for bad in bad_reactions:
+            rng(doc, "Reaction").setString(bad)
+            s = status()
+            if cli:
+                words = cli.json("check", bad, "-T", repr(t_k))
+                checks.ok("operator: status for %r is RXNCHECK's words" % bad,
+                          s == words.get("check") and s != "ok", "%r vs %r" % (s, words))
+            else:
+                checks.ok("operator: status for %r is words" % bad, s != "ok" and len(s) > 15, s)
+            checks.ok("operator: %r -> Err:502 in dH and load" % bad,
+                      rng(doc, "ReactionEnthalpy").getError() == ERR_ILLEGAL_ARGUMENT and
+                      rng(doc, "HeatLoad").getError() == ERR_ILLEGAL_ARGUMENT)
+        rng(doc, "Reaction").setString(reaction)
+        rng(doc, "InletTemperature").setValue(9000)   # 9273 K: beyond the data (6000 K)
+        s = status()
+        checks.ok("operator: temperature beyond the data -> words naming the range",
+                  "outside" in s and "K" in s, s)
+        rng(doc, "InletTemperature").setValue(t_k - 273.15)
+        rng(doc, "KeySpecies").setString("CH4")
+        s = status()
+        checks.ok("operator: key species not in the reaction -> words", s.startswith(
+            "the heat load cannot be computed"), s)
+        checks.ok("operator: ... and the load is Err:502",
+                  rng(doc, "HeatLoad").getError() == ERR_ILLEGAL_ARGUMENT)
+        rng(doc, "KeySpecies").setString(key)
+        rng(doc, "Feed").setString("")
+        s = status()
+        checks.ok("operator: blank feed -> words", s.startswith("enter the feed"), s)
+        rng(doc, "Feed").setValue(-5)
+        checks.ok("operator: negative feed -> words",
+                  status() == "the feed must be greater than zero")
+        rng(doc, "Feed").setValue(feed)
+        checks.ok("operator: good inputs again -> ok", status() == "ok", status())
+    finally:
+        doc.close(True)
+
+
+# ------------------------------------------------------------------------------------------
+def check_design(checks, office, path, cli):
+    name = "design"
+    doc = office.load(path)
+    try:
+        table = rng(doc, "DesignTable")
+        reactions_rng = rng(doc, "DesignReactions")
+        sheet = table.getSpreadsheet()
+        n_t = table.Rows.Count
+        n_r = reactions_rng.Columns.Count
+        cells = [table.getCellByPosition(c, r) for r in range(n_t) for c in range(1, 1 + n_r)]
+        check_common(checks, name, path, doc, sheet, cells)
+        temps = [cell_number(table.getCellByPosition(0, r)) for r in range(n_t)]
+        checks.ok("design: temperatures 300..1200 K every 100 K",
+                  temps == [float(t) for t in range(300, 1201, 100)], str(temps))
+        reactions = [reactions_rng.getCellByPosition(c, 0).getString() for c in range(n_r)]
+        checks.ok("design: two or three reactions", n_r in (2, 3), str(reactions))
+        if cli:
+            csv = "".join('"%s",%r\n' % (rx, t) for t in temps for rx in reactions)
+            j = cli.json("batch", "-", stdin=csv)
+            want = [float(x["value"]) if "value" in x else None for x in j["results"]]
+            for i, c in enumerate(cells):
+                checks.rel("design: %s at %g K = CLI batch" % (reactions[i % n_r], temps[i // n_r]),
+                           cell_number(c), want[i], 1e-12)
+        # each column against the CLI's dh at one temperature too (another command)
+        if cli:
+            for c, rx in enumerate(reactions):
+                checks.rel("design: %s at 800 K = CLI dh" % rx, cell_number(
+                    table.getCellByPosition(c + 1, 5)), float(cli.json("dh", rx, "-T", "800")
+                                                             ["value"]), 1e-12)
+
+        # The chart: one, XY scatter, a series per reaction over the temperature column.
+        charts = sheet.getCharts()
+        checks.ok("design: one chart on the sheet", charts.Count == 1, str(charts.Count))
+        if charts.Count:
+            chart = charts.getByIndex(0).getEmbeddedObject()
+            series = []
+            kinds = []
+            for cs in chart.getFirstDiagram().getCoordinateSystems():
+                for ct in cs.getChartTypes():
+                    kinds.append(ct.getChartType())
+                    series.extend(ct.getDataSeries())
+            checks.ok("design: the chart is an XY scatter", kinds ==
+                      ["com.sun.star.chart2.ScatterChartType"], str(kinds))
+            checks.ok("design: %d series, one per reaction" % n_r, len(series) == n_r,
+                      str(len(series)))
+            t_col = table.getCellRangeByPosition(0, 0, 0, n_t - 1).AbsoluteName
+            for i, s in enumerate(series):
+                roles = {}
+                label = None
+                for ls in s.getDataSequences():
+                    v = ls.getValues()
+                    roles[v.getPropertyValue("Role")] = v.getSourceRangeRepresentation()
+                    if ls.getLabel() is not None and v.getPropertyValue("Role") == "values-y":
+                        label = ls.getLabel().getData()[0]
+                y_col = table.getCellRangeByPosition(i + 1, 0, i + 1, n_t - 1).AbsoluteName
+                checks.ok("design: series %d x = the temperature column" % (i + 1),
+                          roles.get("values-x") == t_col, "%r vs %r" % (roles, t_col))
+                checks.ok("design: series %d y = its reaction's column" % (i + 1),
+                          roles.get("values-y") == y_col, "%r vs %r" % (roles, y_col))
+                checks.ok("design: series %d named after its reaction, with the unit" % (i + 1),
+                          label is not None and "kJ/mol" in label, str(label))
+            checks.ok("design: chart has a title and axis titles",
+                      chart.HasMainTitle and chart.getDiagram().HasXAxisTitle
+                      and chart.getDiagram().HasYAxisTitle)
+
+        # A temperature beyond the data: errors in that row, never an extrapolated number.
+        table.getCellByPosition(0, n_t - 1).setValue(7000)
+        doc.calculateAll()
+        errs = [table.getCellByPosition(c, n_t - 1).getError() for c in range(1, 1 + n_r)]
+        checks.ok("design: 7000 K -> Err:502 in every column", errs == [ERR_ILLEGAL_ARGUMENT] * n_r,
+                  str(errs))
+    finally:
+        doc.close(True)
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    ap.add_argument("--oxt", required=True)
+    ap.add_argument("--cli", help="the rxnheat command line, for the engine's own answers")
+    ap.add_argument("--examples", default=os.path.join(TOP, "examples"))
+    ap.add_argument("--timeout", type=int, default=170)
+    args = ap.parse_args()
+
+    def on_alarm(signum, frame):
+        raise Timeout("ran over %d s" % args.timeout)
+
+    signal.signal(signal.SIGALRM, on_alarm)
+    signal.alarm(args.timeout)
+    t_start = time.monotonic()
+    checks = Checks()
+    cli = Cli(args.cli) if args.cli and os.path.exists(args.cli) else None
+    if cli is None:
+        checks.skip("comparisons with the CLI", "no --cli given or not built")
+    workdir = tempfile.mkdtemp(prefix="rxnheat-examples-")
+    off = None
+    try:
+        off = officelib.Office(workdir, "examples-install").start()
+        off.install_extension(args.oxt)
+        off.stop()
+        off = officelib.Office(workdir, "examples").start()
+        for name, fn, check in ((COSTING, "costing", check_costing),
+                                (OPERATOR, "operator", check_operator),
+                                (DESIGN, "design", check_design)):
+            path = os.path.join(args.examples, name)
+            if not checks.ok("%s exists" % name, os.path.exists(path)):
+                continue
+            t0 = time.monotonic()
+            try:
+                check(checks, off, path, cli)
+            except Timeout:
+                raise
+            except Exception as e:
+                checks.ok("%s checks ran" % fn, False, "%s: %s\n%s" % (
+                    type(e).__name__, e, traceback.format_exc()))
+            print("----  %s: %.1f s" % (name, time.monotonic() - t0), flush=True)
+        checks.ok("office still alive at the end", off.alive())
+        off.stop()
+        off = None
+    except Timeout as e:
+        checks.ok("finished in time", False, str(e))
+    except Exception as e:
+        checks.ok("ran to the end", False, "%s: %s\n%s" % (type(e).__name__, e,
+                                                         traceback.format_exc()))
+    finally:
+        signal.alarm(0)
+        if off is not None:
+            off.kill()
+        shutil.rmtree(workdir, ignore_errors=True)
+    print("%d checks passed, %d failed, %d skipped in %.1f s" %
+          (checks.passed, len(checks.failed), len(checks.skipped), time.monotonic() - t_start))
+    return 0 if not checks.failed else 1
+
+
+if __name__ == "__main__":
+    sys.exit(main())
