@@ -139,29 +139,13 @@ public:
     uno::Any SAL_CALL rxnDH(const uno::Any& reaction, const uno::Any& temperature,
                             const uno::Any& unit, const uno::Any& per,
                             const uno::Any& table) override {
-        return guarded(self(), [&] {
-            const double T = temperature_arg(temperature, "temperature", 1);
-            const std::string u = text_arg(unit, "unit", 2);
-            const std::string p = text_arg(per, "per", 3);
-            const auto t = table_arg(table, 4);
-            return over_primary(reaction, "reaction", [&](const std::string& r) {
-                return uno::Any(engine().dh(r, T, u.empty() ? "kJ/mol" : u, p, t.get()));
-            });
-        });
+        return per_amount(&rxnheat::Engine::dh, reaction, temperature, unit, per, table);
     }
 
     uno::Any SAL_CALL rxnDU(const uno::Any& reaction, const uno::Any& temperature,
                             const uno::Any& unit, const uno::Any& per,
                             const uno::Any& table) override {
-        return guarded(self(), [&] {
-            const double T = temperature_arg(temperature, "temperature", 1);
-            const std::string u = text_arg(unit, "unit", 2);
-            const std::string p = text_arg(per, "per", 3);
-            const auto t = table_arg(table, 4);
-            return over_primary(reaction, "reaction", [&](const std::string& r) {
-                return uno::Any(engine().du(r, T, u.empty() ? "kJ/mol" : u, p, t.get()));
-            });
-        });
+        return per_amount(&rxnheat::Engine::du, reaction, temperature, unit, per, table);
     }
 
     uno::Any SAL_CALL rxnLoad(const uno::Any& reaction, const uno::Any& quantity,
@@ -291,7 +275,7 @@ public:
             const std::string u = text_arg(unit, "unit", 2);
             const auto t = table_arg(table, 3);
             return over_primary(species, "species", [&](const std::string& s) {
-                return uno::Any(engine().species_hf(s, T, u.empty() ? "kJ/mol" : u, t.get()));
+                return uno::Any(engine().species_hf(s, T, u, t.get()));
             });
         });
     }
@@ -405,6 +389,23 @@ public:
     }
 
 private:
+    // RXNDH and RXNDU: the same arguments, one engine function each. An empty unit is the
+    // engine's default (kJ/mol).
+    using PerAmount = double (rxnheat::Engine::*)(std::string_view, double, std::string_view,
+                                                   std::string_view, const rxnheat::SpeciesTable*);
+    uno::Any per_amount(PerAmount f, const uno::Any& reaction, const uno::Any& temperature,
+                        const uno::Any& unit, const uno::Any& per, const uno::Any& table) {
+        return guarded(self(), [&] {
+            const double T = temperature_arg(temperature, "temperature", 1);
+            const std::string u = text_arg(unit, "unit", 2);
+            const std::string p = text_arg(per, "per", 3);
+            const auto t = table_arg(table, 4);
+            return over_primary(reaction, "reaction", [&](const std::string& r) {
+                return uno::Any((engine().*f)(r, T, u, p, t.get()));
+            });
+        });
+    }
+
     uno::XInterface* self() { return static_cast<cppu::OWeakObject*>(this); }
     static std::string safe_utf8(const OUString& s) {
         try {

@@ -12,8 +12,6 @@ Run by CTest (tests/CMakeLists.txt). Everything is time-bound: the office is kil
 failure or after --timeout seconds. Exit status 0 when every check passed.
 """
 import argparse
-import json
-import math
 import os
 import shutil
 import signal
@@ -27,6 +25,7 @@ import zipfile
 sys.dont_write_bytecode = True  # no __pycache__ in the source tree
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import office as officelib  # noqa: E402  (needs the system python3 with python3-uno)
+from common import Checks, EngineCli, Timeout, iupac_molar_mass  # noqa: E402
 import uno  # noqa: E402
 
 R = 8.314462618  # J/(mol K), CODATA 2018 exact value of the molar gas constant
@@ -55,34 +54,6 @@ SPEC_FUNCTIONS = {
 }
 
 ERR_ILLEGAL_ARGUMENT = 502  # what Calc shows as Err:502
-
-
-class Timeout(Exception):
-    pass
-
-
-class Checks:
-    def __init__(self):
-        self.passed = 0
-        self.failed = []
-        self.skipped = []
-
-    def ok(self, name, condition, detail=""):
-        if condition:
-            self.passed += 1
-        else:
-            self.failed.append(name + (": " + detail if detail else ""))
-            print("FAIL  " + name + (": " + detail if detail else ""), flush=True)
-        return condition
-
-    def close(self, name, got, want, tol, source=""):
-        good = (isinstance(got, float) and isinstance(want, (int, float))
-                and math.isfinite(got) and abs(got - want) <= tol)
-        return self.ok(name, good, "got %r, want %r ± %g %s" % (got, want, tol, source))
-
-    def skip(self, name, why):
-        self.skipped.append(name + ": " + why)
-        print("SKIP  %s: %s" % (name, why), flush=True)
 
 
 def q(text):
@@ -153,26 +124,6 @@ class Sheet:
         return rows
 
 
-class EngineCli:
-    """The engine's own answers from the `rxnheat` command line (SPEC section 5)."""
-
-    def __init__(self, path):
-        self.path = path
-
-    def json(self, *args):
-        out = subprocess.run([self.path] + list(args) + ["--json"], capture_output=True,
-                             text=True, timeout=30)
-        return json.loads(out.stdout)
-
-    def value(self, *args):
-        return float(self.json(*args)["value"])
-
-    def text(self, *args):
-        out = subprocess.run([self.path] + list(args), capture_output=True, text=True,
-                             timeout=30)
-        return out.stdout.strip()
-
-
 def gnu_units(frm, to):
     """GNU units (Debian package `units`): the factor from `frm` to `to`, or None."""
     exe = shutil.which("units")
@@ -183,15 +134,6 @@ def gnu_units(frm, to):
         return float(out.stdout.split()[0])
     except (ValueError, IndexError):
         return None
-
-
-def iupac_molar_mass(formula):
-    """IUPAC standard atomic weights via Debian's python3-periodictable."""
-    try:
-        import periodictable
-    except ImportError:
-        return None
-    return float(periodictable.formula(formula).mass)
 
 
 # ------------------------------------------------------------------------------------------

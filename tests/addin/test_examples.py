@@ -21,13 +21,10 @@ Run by CTest. Time-bound (--timeout); the office is killed on any failure. Exit 
 every check passed.
 """
 import argparse
-import json
-import math
 import os
 import re
 import shutil
 import signal
-import subprocess
 import sys
 import tempfile
 import time
@@ -36,6 +33,7 @@ import xml.etree.ElementTree as ET
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 import office as officelib  # noqa: E402  (needs the system python3 with python3-uno)
+from common import Checks, EngineCli, Timeout, iupac_molar_mass  # noqa: E402
 
 TOP = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))
 COSTING = "heat-load-costing.fods"
@@ -49,52 +47,6 @@ MOL_PER_NM3 = 101325.0 / (R * 273.15)
 # Common names used as key species in the workbooks -> formula (from memory: ethanol C2H5OH).
 FORMULA_OF = {"ethanol": "C2H5OH"}
 ERR_ILLEGAL_ARGUMENT = 502  # Calc's Err:502
-
-
-class Timeout(Exception):
-    pass
-
-
-class Checks:
-    def __init__(self):
-        self.passed = 0
-        self.failed = []
-        self.skipped = []
-
-    def ok(self, name, condition, detail=""):
-        if condition:
-            self.passed += 1
-        else:
-            self.failed.append(name)
-            print("FAIL  %s%s" % (name, ": " + detail if detail else ""), flush=True)
-        return condition
-
-    def rel(self, name, got, want, rtol, atol=1e-9):
-        good = (isinstance(got, float) and isinstance(want, float) and math.isfinite(got)
-                and math.isfinite(want) and abs(got - want) <= max(atol, rtol * abs(want)))
-        return self.ok(name, good, "got %r, want %r (rtol %g)" % (got, want, rtol))
-
-    def skip(self, name, why):
-        self.skipped.append("%s: %s" % (name, why))
-        print("SKIP  %s: %s" % (name, why), flush=True)
-
-
-class Cli:
-    """The engine's own answers from the `rxnheat` command line (SPEC section 5)."""
-
-    def __init__(self, path):
-        self.path = path
-
-    def json(self, *args, stdin=None):
-        p = subprocess.run([self.path] + list(args) + ["--json"], input=stdin,
-                           capture_output=True, text=True, timeout=30)
-        return json.loads(p.stdout)
-
-
-def iupac_molar_mass(formula):
-    """g/mol from IUPAC standard atomic weights (Debian's python3-periodictable)."""
-    import periodictable
-    return float(periodictable.formula(formula).mass)
 
 
 def key_coefficient(reaction, key):
@@ -527,7 +479,7 @@ def main():
     signal.alarm(args.timeout)
     t_start = time.monotonic()
     checks = Checks()
-    cli = Cli(args.cli) if args.cli and os.path.exists(args.cli) else None
+    cli = EngineCli(args.cli) if args.cli and os.path.exists(args.cli) else None
     if cli is None:
         checks.skip("comparisons with the CLI", "no --cli given or not built")
     workdir = tempfile.mkdtemp(prefix="rxnheat-examples-")

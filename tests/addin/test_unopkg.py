@@ -21,15 +21,12 @@ import time
 
 sys.dont_write_bytecode = True  # no __pycache__ in the source tree
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+from common import Timeout  # noqa: E402
 import office as officelib  # noqa: E402
 
 UNOPKG = shutil.which("unopkg") or "/usr/bin/unopkg"
 IDENTIFIER = "org.rxnheat.calc"
 REACTION = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)"
-
-
-class Timeout(Exception):
-    pass
 
 
 def main():
