@@ -10,7 +10,9 @@ profile, and kills it afterwards):
     /usr/bin/python3 tests/bench/bench_addin.py \\
         --oxt build-bench/addin/rxnheat.oxt \\
         --noop-oxt build-bench/tests/bench/noop_addin/bench_noop.oxt \\
-        [--rows 20000] [--runs 5] [--trials 5] [--markdown table.md]
+        [--rows 20000] [--runs 9] [--trials 5] [--markdown table.md]
+
+It takes about 7 minutes on 2 cores (4 installs, 1 + 15 office starts).
 
 What it measures (medians over --runs recalculations, or over --trials fresh offices):
   recalculation  the time of XCalculatable.calculateAll() on a sheet whose column A holds
@@ -22,13 +24,16 @@ What it measures (medians over --runs recalculations, or over --trials fresh off
                  with their whitespace varied so that every text differs and the engine's cache
                  of prepared reactions (by exact text) cannot help. Every run's results are
                  checked (no error cells; RXNDH equal on both sheets and in the array form; LEN
-                 equal to the text length; BENCHNOOP 0). Wall time and the office's CPU time
-                 (utime+stime of soffice.bin from /proc) are both reported: on a machine shared
-                 with other work, CPU time is the steadier figure.
+                 equal to the text length; BENCHNOOP 0). Wall time, the office's CPU time and
+                 its time spent waiting for a CPU (all soffice.bin threads, from
+                 /proc/PID/task/*/schedstat) are reported: on a machine shared with other work,
+                 CPU time is the steadier figure, and the wait says how much others took.
   first call     from starting a fresh office (the add-in installed in its profile) to the
                  first =RXNDH result, split into office start, new document, first formula;
                  the same with =BENCHNOOP (add-in loading without the engine) and =LEN (no
-                 add-in) in offices whose profiles hold only that add-in or none.
+                 add-in) in offices whose profiles hold only that add-in or none. The office
+                 start is quantised by tests/addin/office.py, which polls for the connection
+                 every 0.25 s; the first-result time is measured to the microsecond.
   memory         VmRSS (and the peak, VmHWM) of soffice.bin from /proc/PID/status: with an
                  empty document before the first add-in call, after the first call, and after
                  recalculating the --rows-cell sheet (mix, then distinct).
@@ -525,7 +530,7 @@ def main():
     ap.add_argument("--oxt", required=True, help="rxnheat.oxt")
     ap.add_argument("--noop-oxt", required=True, help="bench_noop.oxt (target bench_noop_oxt)")
     ap.add_argument("--rows", type=int, default=20000)
-    ap.add_argument("--runs", type=int, default=5, help="timed recalculations per case (>= 3)")
+    ap.add_argument("--runs", type=int, default=9, help="timed recalculations per case (>= 3)")
     ap.add_argument("--trials", type=int, default=5, help="fresh offices per first-call case")
     ap.add_argument("--markdown", help="also write the report to this file")
     ap.add_argument("--keep", action="store_true", help="keep the work folder")
