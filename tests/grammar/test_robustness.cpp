@@ -38,7 +38,7 @@ void check_species(const Species& s, std::size_t bound) {
 }
 
 /// Runs all three entry points; returns how many accepted the text.
-int exercise(const std::string& text) {
+int parse_all_ways(const std::string& text) {
     INFO("input bytes: " << text.size() << " text: " << text);
     std::size_t const bound = length_bound(text);
     int accepted = 0;
@@ -113,7 +113,7 @@ TEST_CASE("fuzz: random bytes", "[grammar][robustness]") {
     for (int k = 0; k < 1000; ++k) {
         std::string s(rng() % 65, '\0');
         for (char& c : s) c = static_cast<char>(rng() & 0xFF);
-        exercise(s);
+        parse_all_ways(s);
     }
 }
 
@@ -126,7 +126,7 @@ TEST_CASE("fuzz: random strings of notation characters", "[grammar][robustness]"
             const char* p = pieces[rng() % n];
             s += (*p == '\0') ? std::string(1, '\0') : std::string(p);
         }
-        exercise(s);
+        parse_all_ways(s);
     }
 }
 
@@ -134,7 +134,7 @@ TEST_CASE("fuzz: mutated examples", "[grammar][robustness]") {
     std::mt19937 rng(4242u);
     constexpr std::size_t n = sizeof pieces / sizeof pieces[0];
     int accepted = 0;
-    for (const char* seed : seeds) REQUIRE(exercise(seed) >= 1);  // the seeds themselves parse
+    for (const char* seed : seeds) REQUIRE(parse_all_ways(seed) >= 1);  // the seeds themselves parse
     for (int k = 0; k < 3000; ++k) {
         std::string s = seeds[rng() % (sizeof seeds / sizeof seeds[0])];
         for (std::uint32_t edits = 1 + rng() % 3; edits > 0; --edits) {
@@ -146,7 +146,7 @@ TEST_CASE("fuzz: mutated examples", "[grammar][robustness]") {
                 case 3: s.insert(at, s.substr(at, rng() % 8)); break;           // duplicate a stretch
             }
         }
-        accepted += exercise(s) > 0;
+        accepted += parse_all_ways(s) > 0;
     }
     // Not a fixed number (the mutations are random), but both outcomes must occur.
     CHECK(accepted > 100);
