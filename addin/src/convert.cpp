@@ -1,173 +1,23 @@
 #include "convert.hpp"
 
-#include <rtl/string.hxx>
-#include <rtl/textenc.h>
-#include <rtl/textcvt.h>
-#include <sal/mathconf.h>
-
-#include <cmath>
-#include <cstdio>
-#include <cstdlib>
-#include <limits>
 #include <list>
 #include <mutex>
+#include <string>
 #include <utility>
+#include <vector>
 
 namespace rxnheat_addin {
 
-namespace {
-
-using Rows = uno::Sequence<uno::Sequence<uno::Any>>;
-
-bool is_space(char c) { return c == ' ' || c == '\t' || c == '\r' || c == '\n'; }
-
-std::string trimmed(std::string s) {
-    std::size_t b = 0, e = s.size();
-    while (b < e && is_space(s[b])) ++b;
-    while (e > b && is_space(s[e - 1])) --e;
-    return s.substr(b, e - b);
-}
-
-std::string quoted(const char* name) { return std::string("'") + name + "'"; }
-
-// Shortest decimal text that reads back as the same double (cells of a species table).
-std::string number_text(double v) {
-    char buf[40];
-    for (int precision = 15; precision <= 17; ++precision) {
-        std::snprintf(buf, sizeof buf, "%.*g", precision, v);
-        if (std::strtod(buf, nullptr) == v) break;
-    }
-    return buf;
-}
-
-// The single cell of a 1x1 range, or the value itself; ArgError for a bigger range.
-const uno::Any& single(const uno::Any& value, const char* name, int position) {
-    if (classify(value) != Given::range) return value;
-    const Rows* rows = static_cast<const Rows*>(value.getValue());
-    if (rows->getLength() == 1 && (*rows)[0].getLength() == 1) return (*rows)[0][0];
-    std::size_t cells = 0;
-    for (const auto& row : *rows) cells += static_cast<std::size_t>(row.getLength());
-    throw ArgError(quoted(name) + " must be a single value, not a range of " +
-                       std::to_string(cells) + " cells",
-                   position);
-}
-
-}  // namespace
-
-std::string to_utf8(const OUString& text, int position) {
-    OString out;
-    if (!text.convertToString(&out, RTL_TEXTENCODING_UTF8,
-                              RTL_UNICODETOTEXT_FLAGS_UNDEFINED_ERROR |
-                                  RTL_UNICODETOTEXT_FLAGS_INVALID_ERROR))
-        throw ArgError("the text contains a character that is not valid Unicode "
-                       "(a lone UTF-16 surrogate)",
-                       position);
-    return std::string(out.getStr(), static_cast<std::size_t>(out.getLength()));
-}
-
-OUString from_utf8(std::string_view text) {
-    return OUString(text.data(), static_cast<sal_Int32>(text.size()), RTL_TEXTENCODING_UTF8);
-}
-
-Given classify(const uno::Any& value) {
-    switch (value.getValueTypeClass()) {
-    case uno::TypeClass_VOID:
-        return Given::nothing;
-    case uno::TypeClass_STRING:
-        return Given::text;
-    case uno::TypeClass_DOUBLE:
-    case uno::TypeClass_FLOAT:
-    case uno::TypeClass_LONG:
-    case uno::TypeClass_UNSIGNED_LONG:
-    case uno::TypeClass_SHORT:
-    case uno::TypeClass_UNSIGNED_SHORT:
-    case uno::TypeClass_HYPER:
-    case uno::TypeClass_UNSIGNED_HYPER:
-    case uno::TypeClass_BYTE:
-    case uno::TypeClass_BOOLEAN:
-        return Given::number;
-    case uno::TypeClass_SEQUENCE:
-        if (value.getValueType() == cppu::UnoType<Rows>::get()) return Given::range;
-        [[fallthrough]];
-    default:
-        break;
-    }
-    throw ArgError("unexpected kind of value from the spreadsheet (" +
-                           to_utf8(value.getValueTypeName()) + ")",
-                   -1);
-}
-
-bool is_blank(const uno::Any& value) {
-    switch (classify(value)) {
-    case Given::nothing:
-        return true;
-    case Given::number: {
-        double d = 0;
-        value >>= d;
-        return d == 0;
-    }
-    case Given::text: {
-        OUString s;
-        value >>= s;
-        return s.trim().isEmpty();
-    }
-    case Given::range:
-        return false;
-    }
-    return false;
-}
-
 double temperature_arg(const uno::Any& raw, const char* name, int position, double fallback) {
-    const uno::Any& value = single(raw, name, position);
-    if (is_blank(value)) return fallback;
-    if (classify(value) == Given::number) {
-        double t = 0;
-        value >>= t;
-        if (!std::isfinite(t))
-            throw ArgError(quoted(name) + " is not a finite number", position);
-        return t;
-    }
-    OUString s;
-    value >>= s;
-    return rxnheat::parse_temperature(trimmed(to_utf8(s, position)));
-}
-
-std::string text_arg(const uno::Any& raw, const char* name, int position) {
-    const uno::Any& value = single(raw, name, position);
-    if (is_blank(value)) return {};
-    if (classify(value) == Given::number)
-        throw ArgError(quoted(name) + " must be text, not a number", position);
-    OUString s;
-    value >>= s;
-    return trimmed(to_utf8(s, position));
-}
-
-std::string required_text_arg(const uno::Any& raw, const char* name, int position) {
-    std::string s = text_arg(raw, name, position);
-    if (s.empty()) throw ArgError(quoted(name) + " is required but empty", position);
-    return s;
-}
-
-double number_arg(const uno::Any& raw, const char* name, int position, double fallback) {
-    const uno::Any& value = single(raw, name, position);
-    if (is_blank(value)) return fallback;
-    return required_number_arg(value, name, position);
-}
-
-double required_number_arg(const uno::Any& raw, const char* name, int position) {
-    const uno::Any& value = single(raw, name, position);
-    switch (classify(value)) {
-    case Given::nothing:
-        throw ArgError(quoted(name) + " is required", position);
+    const NumberOrText value = number_or_text_arg(raw, name, position);
+    switch (value.kind) {
+    case Given::number:
+        return value.number;
     case Given::text:
-        throw ArgError(quoted(name) + " must be a number, not text", position);
+        return rxnheat::parse_temperature(value.text);
     default:
-        break;
+        return fallback;
     }
-    double d = 0;
-    value >>= d;
-    if (!std::isfinite(d)) throw ArgError(quoted(name) + " is not a finite number", position);
-    return d;
 }
 
 std::shared_ptr<const rxnheat::SpeciesTable> table_arg(const uno::Any& value, int position) {
@@ -177,39 +27,14 @@ std::shared_ptr<const rxnheat::SpeciesTable> table_arg(const uno::Any& value, in
                        "(formula, phase, dHf, ...)",
                        position);
     }
-    const Rows* cells = static_cast<const Rows*>(value.getValue());
-    std::vector<std::vector<std::string>> rows;
-    rows.reserve(static_cast<std::size_t>(cells->getLength()));
+    std::vector<std::vector<std::string>> rows = range_texts(value, "table", position);
     std::string key;
-    for (const auto& cell_row : *cells) {
-        std::vector<std::string> row;
-        row.reserve(static_cast<std::size_t>(cell_row.getLength()));
-        for (const auto& cell : cell_row) {
-            std::string text;
-            switch (classify(cell)) {
-            case Given::nothing:
-                break;
-            case Given::number: {
-                double d = 0;
-                cell >>= d;
-                text = number_text(d);
-                break;
-            }
-            case Given::text: {
-                OUString s;
-                cell >>= s;
-                text = to_utf8(s, position);
-                break;
-            }
-            case Given::range:
-                throw ArgError("'table': nested range", position);
-            }
+    for (const auto& row : rows) {
+        for (const auto& text : row) {
             key += text;
             key += '\x1f';
-            row.push_back(std::move(text));
         }
         key += '\x1e';
-        rows.push_back(std::move(row));
     }
 
     // A small cache by content: the same range feeds many cells of a sheet.
@@ -231,14 +56,6 @@ std::shared_ptr<const rxnheat::SpeciesTable> table_arg(const uno::Any& value, in
     cache.emplace_front(std::move(key), table);
     if (cache.size() > cache_size) cache.pop_back();
     return table;
-}
-
-double error_element(bool internal) {
-    // LibreOffice's formula error codes: 502 = invalid argument, 519 = #VALUE!.
-    sal_math_Double v;
-    v.value = std::numeric_limits<double>::quiet_NaN();
-    v.nan_parts.fraction_lo = internal ? 519u : 502u;
-    return v.value;
 }
 
 }  // namespace rxnheat_addin

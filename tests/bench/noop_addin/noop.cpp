@@ -1,10 +1,13 @@
 // Benchmark only (tests/bench/bench_addin.py), never shipped in rxnheat.oxt.
 //
 // BENCHNOOP(reaction; [temperature]; [unit]; [per]; [table]) has RXNDH's shape and reads its
-// arguments the way the rxnheat add-in does (type checks, blank and omitted arguments, 1x1
-// ranges, UTF-16 -> UTF-8 conversion and trimming of the text, a range as the first argument
-// giving an array of the same shape), then returns 0.0 for every reaction without calling any
-// engine. The time a sheet of BENCHNOOP cells takes is the floor that RXNDH's own cost sits on.
+// arguments with the rxnheat add-in's own engine-free code (addin/src/uno_args.hpp: type
+// checks, blank and omitted arguments, 1x1 ranges, UTF-16 -> UTF-8 conversion and trimming of
+// the text, a range as the first argument giving an array of the same shape), then returns 0.0
+// for every reaction without calling any engine. The time a sheet of BENCHNOOP cells takes is
+// the floor that RXNDH's own cost sits on.
+#include "uno_args.hpp"
+
 #include <com/sun/star/lang/IllegalArgumentException.hpp>
 #include <com/sun/star/lang/Locale.hpp>
 #include <com/sun/star/lang/XServiceInfo.hpp>
@@ -17,10 +20,6 @@
 #include <cppuhelper/supportsservice.hxx>
 #include <cppuhelper/weak.hxx>
 #include <org/rxnheat/benchnoop/XBenchNoop.hpp>
-#include <rtl/string.hxx>
-#include <rtl/textcvt.h>
-#include <rtl/textenc.h>
-#include <rtl/ustring.hxx>
 #include <sal/types.h>
 
 #include <string>
@@ -30,9 +29,11 @@ namespace {
 namespace uno = ::com::sun::star::uno;
 namespace lang = ::com::sun::star::lang;
 namespace sheet = ::com::sun::star::sheet;
-using ::rtl::OString;
 using ::rtl::OUString;
 using Rows = uno::Sequence<uno::Sequence<uno::Any>>;
+using rxnheat_addin::ArgError;
+using rxnheat_addin::Given;
+using rxnheat_addin::classify;
 
 constexpr const char* service_name = "org.rxnheat.benchnoop.Functions";
 constexpr const char* implementation_name = "org.rxnheat.benchnoop.FunctionsImpl";
@@ -43,112 +44,31 @@ const char* const argument_names[] = {"reaction", "temperature", "unit", "per", 
 
 OUString ascii(const char* s) { return OUString::createFromAscii(s); }
 
-struct BadArgument {
-    const char* what;
-    int position;
-};
+// What RXNDH computes from a reaction's text, here nothing: the text has been read.
+uno::Any noop_result(const std::string&) { return uno::Any(0.0); }
 
-enum class Given { nothing, text, number, range };
-
-Given classify(const uno::Any& v) {
-    switch (v.getValueTypeClass()) {
-    case uno::TypeClass_VOID:
-        return Given::nothing;
-    case uno::TypeClass_STRING:
-        return Given::text;
-    case uno::TypeClass_DOUBLE:
-    case uno::TypeClass_FLOAT:
-    case uno::TypeClass_LONG:
-    case uno::TypeClass_UNSIGNED_LONG:
-    case uno::TypeClass_SHORT:
-    case uno::TypeClass_UNSIGNED_SHORT:
-    case uno::TypeClass_HYPER:
-    case uno::TypeClass_UNSIGNED_HYPER:
-    case uno::TypeClass_BYTE:
-    case uno::TypeClass_BOOLEAN:
-        return Given::number;
-    case uno::TypeClass_SEQUENCE:
-        if (v.getValueType() == cppu::UnoType<Rows>::get()) return Given::range;
-        [[fallthrough]];
-    default:
-        throw BadArgument{"unexpected kind of value", -1};
-    }
-}
-
-// The one cell of a 1x1 range, or the value itself.
-const uno::Any& single(const uno::Any& v, int position) {
-    if (classify(v) != Given::range) return v;
-    const Rows* rows = static_cast<const Rows*>(v.getValue());
-    if (rows->getLength() == 1 && (*rows)[0].getLength() == 1) return (*rows)[0][0];
-    throw BadArgument{"a single value was expected, not a range", position};
-}
-
-bool blank(const uno::Any& v) {
-    switch (classify(v)) {
-    case Given::nothing:
-        return true;
-    case Given::number: {
-        double d = 0;
-        v >>= d;
-        return d == 0;
-    }
-    case Given::text: {
+// One element of the array result, as RXNDH gives it: a blank cell or blank text stays blank,
+// a number or a nested range is the office's error value (Err:502), text gives the result.
+uno::Any noop_element(const uno::Any& cell) {
+    try {
+        const Given kind = classify(cell);
+        if (kind == Given::nothing) return uno::Any();
+        if (kind != Given::text) return uno::Any(rxnheat_addin::error_element(false));
         OUString s;
-        v >>= s;
-        return s.trim().isEmpty();
+        cell >>= s;
+        const OUString t = s.trim();
+        return t.isEmpty() ? uno::Any() : noop_result(rxnheat_addin::to_utf8(t));
+    } catch (const ArgError&) {
+        return uno::Any(rxnheat_addin::error_element(false));
     }
-    case Given::range:
-        break;
-    }
-    return false;
 }
 
-std::string utf8(const OUString& s, int position) {
-    OString out;
-    if (!s.convertToString(&out, RTL_TEXTENCODING_UTF8,
-                           RTL_UNICODETOTEXT_FLAGS_UNDEFINED_ERROR |
-                               RTL_UNICODETOTEXT_FLAGS_INVALID_ERROR))
-        throw BadArgument{"text that is not valid UTF-16", position};
-    return std::string(out.getStr(), static_cast<std::size_t>(out.getLength()));
-}
-
-// Optional text (unit, per): empty when not given.
-std::string optional_text(const uno::Any& raw, int position) {
-    const uno::Any& v = single(raw, position);
-    if (blank(v)) return {};
-    if (classify(v) == Given::number) throw BadArgument{"text expected, not a number", position};
-    OUString s;
-    v >>= s;
-    return utf8(s.trim(), position);
-}
-
-// Optional temperature: a number, or text (read, not parsed: parsing belongs to the engine).
-double optional_temperature(const uno::Any& raw, int position) {
-    const uno::Any& v = single(raw, position);
-    if (blank(v)) return 298.15;
-    if (classify(v) == Given::number) {
-        double t = 0;
-        v >>= t;
-        return t;
-    }
-    OUString s;
-    v >>= s;
-    return static_cast<double>(utf8(s.trim(), position).size());
-}
-
-// Optional table: every cell read as text, as the add-in does before building a table.
-std::size_t optional_table(const uno::Any& v, int position) {
-    if (classify(v) != Given::range) {
-        if (blank(v)) return 0;
-        throw BadArgument{"a cell range was expected", position};
-    }
-    std::size_t bytes = 0;
-    for (const auto& row : *static_cast<const Rows*>(v.getValue()))
-        for (const auto& cell : row) {
-            OUString s;
-            if (classify(cell) == Given::text && (cell >>= s)) bytes += utf8(s, position).size();
-        }
-    return bytes;
+// The table argument, read as RXNDH reads it before building a species table.
+void read_table(const uno::Any& table, int position) {
+    if (classify(table) == Given::range)
+        rxnheat_addin::range_texts(table, "table", position);
+    else if (!rxnheat_addin::is_blank(table))
+        throw ArgError("'table' must be a cell range", position);
 }
 
 class NoopFunctions
@@ -161,34 +81,26 @@ public:
                                 const uno::Any& unit, const uno::Any& per,
                                 const uno::Any& table) override {
         try {
-            optional_temperature(temperature, 1);
-            optional_text(unit, 2);
-            optional_text(per, 3);
-            optional_table(table, 4);
-            if (classify(reaction) == Given::range) {
-                const Rows& in = *static_cast<const Rows*>(reaction.getValue());
-                Rows out(in.getLength());
-                for (sal_Int32 r = 0; r < in.getLength(); ++r) {
-                    const uno::Sequence<uno::Any>& row = in[r];
-                    uno::Sequence<uno::Any> result(row.getLength());
-                    for (sal_Int32 c = 0; c < row.getLength(); ++c) {
-                        OUString s;
-                        if (classify(row[c]) != Given::text || !(row[c] >>= s)) continue;
-                        OUString t = s.trim();
-                        if (t.isEmpty()) continue;
-                        utf8(t, 0);
-                        result.getArray()[c] <<= 0.0;
-                    }
-                    out.getArray()[r] = result;
-                }
-                return uno::Any(out);
+            // Temperature text is read, not parsed: parsing belongs to the engine.
+            rxnheat_addin::number_or_text_arg(temperature, "temperature", 1);
+            rxnheat_addin::text_arg(unit, "unit", 2);
+            rxnheat_addin::text_arg(per, "per", 3);
+            read_table(table, 4);
+            if (classify(reaction) != Given::range)
+                return noop_result(rxnheat_addin::required_text_arg(reaction, "reaction", 0));
+            Rows in;
+            reaction >>= in;
+            Rows out(in.getLength());
+            for (sal_Int32 r = 0; r < in.getLength(); ++r) {
+                uno::Sequence<uno::Any> result(in[r].getLength());
+                for (sal_Int32 c = 0; c < in[r].getLength(); ++c)
+                    result.getArray()[c] = noop_element(in[r][c]);
+                out.getArray()[r] = result;
             }
-            if (optional_text(reaction, 0).empty())
-                throw BadArgument{"'reaction' is required but empty", 0};
-            return uno::Any(0.0);
-        } catch (const BadArgument& e) {
-            throw lang::IllegalArgumentException(ascii(e.what), self(),
-                                                 static_cast<sal_Int16>(e.position));
+            return uno::Any(out);
+        } catch (const ArgError& e) {
+            throw lang::IllegalArgumentException(rxnheat_addin::from_utf8(e.what()), self(),
+                                                 static_cast<sal_Int16>(e.position()));
         }
     }
 
