@@ -2,6 +2,7 @@
 // or a ParseError (no other exception, crash or hang), and large hostile input is refused fast.
 #include "grammar_helpers.hpp"
 
+#include <algorithm>
 #include <chrono>
 #include <cstdint>
 #include <random>
@@ -154,17 +155,23 @@ TEST_CASE("fuzz: mutated examples", "[grammar][robustness]") {
 }
 
 namespace {
+// The fastest of three tries, so that a time slice lost to another process on a busy machine
+// does not count as parsing time.
 double milliseconds_to_fail(const std::string& text) {
-    auto const t0 = std::chrono::steady_clock::now();
-    bool failed = false;
-    try {
-        (void)parse_reaction(text);
-    } catch (const ParseError&) {
-        failed = true;
+    double best = 1e300;
+    for (int attempt = 0; attempt < 3; ++attempt) {
+        auto const t0 = std::chrono::steady_clock::now();
+        bool failed = false;
+        try {
+            (void)parse_reaction(text);
+        } catch (const ParseError&) {
+            failed = true;
+        }
+        auto const t1 = std::chrono::steady_clock::now();
+        CHECK(failed);
+        best = std::min(best, std::chrono::duration<double, std::milli>(t1 - t0).count());
     }
-    auto const t1 = std::chrono::steady_clock::now();
-    CHECK(failed);
-    return std::chrono::duration<double, std::milli>(t1 - t0).count();
+    return best;
 }
 }  // namespace
 
