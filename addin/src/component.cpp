@@ -283,11 +283,7 @@ public:
     uno::Any SAL_CALL speciesCp(const uno::Any& species, const uno::Any& temperature,
                                 const uno::Any& table) override {
         return guarded(self(), [&] {
-            if (is_blank(temperature))
-                throw ArgError("'temperature' is required (a number in K, or text such as "
-                               "\"350 C\")",
-                               1);
-            const double T = temperature_arg(temperature, "temperature", 1);
+            const double T = required_temperature_arg(temperature);
             const auto t = table_arg(table, 2);
             return over_primary(species, "species", [&](const std::string& s) {
                 return uno::Any(engine().species_cp(s, T, t.get()));
@@ -299,11 +295,7 @@ public:
                                const uno::Any& referenceTemperature,
                                const uno::Any& table) override {
         return guarded(self(), [&] {
-            if (is_blank(temperature))
-                throw ArgError("'temperature' is required (a number in K, or text such as "
-                               "\"350 C\")",
-                               1);
-            const double T = temperature_arg(temperature, "temperature", 1);
+            const double T = required_temperature_arg(temperature);
             const double Tref = temperature_arg(referenceTemperature, "reference_temperature", 2);
             const auto t = table_arg(table, 3);
             return over_primary(species, "species", [&](const std::string& s) {
@@ -389,6 +381,13 @@ public:
     }
 
 private:
+    // SPECIESCP and SPECIESH: the temperature (argument 1) has no default.
+    static double required_temperature_arg(const uno::Any& temperature) {
+        if (is_blank(temperature))
+            throw ArgError("'temperature' is required (a number in K, or text such as \"350 C\")", 1);
+        return temperature_arg(temperature, "temperature", 1);
+    }
+
     // RXNDH and RXNDU: the same arguments, one engine function each. An empty unit is the
     // engine's default (kJ/mol).
     using PerAmount = double (rxnheat::Engine::*)(std::string_view, double, std::string_view,

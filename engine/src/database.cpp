@@ -357,7 +357,7 @@ Substance Database::resolve(const grammar::Species& sp, const SpeciesTable* tabl
         if (found.empty())
             throw Error(ErrorKind::phase, sp.written + ": the data have no " + phase_word(sp.phase[0]) +
                                               " form of " + a.name);
-        return resolve_records(sp, std::move(found), shown);
+        return resolve_records(sp, std::move(found), shown, nullptr);
     }
     const Composition comp = composition(sp);
     auto it = by_composition_.find(comp.key());
@@ -381,11 +381,11 @@ Substance Database::resolve(const grammar::Species& sp, const SpeciesTable* tabl
     for (const Record* r : found)
         if (lower(base_and_tag(*r).first) == lower(sp.formula)) named.push_back(r);
     if (!named.empty()) found = std::move(named);
-    return resolve_records(sp, std::move(found), shown);
+    return resolve_records(sp, std::move(found), shown, &comp);
 }
 
 Substance Database::resolve_records(const grammar::Species& sp, std::vector<const Record*> found,
-                                    const std::string& shown) const {
+                                    const std::string& shown, const Composition* comp) const {
     // Group the records into substances: one substance may have several phases or polymorphs.
     struct Group {
         std::string base, tag;
@@ -440,7 +440,7 @@ Substance Database::resolve_records(const grammar::Species& sp, std::vector<cons
     for (const Record* r : recs)
         if (phase_char(r->phase) == phase) s.records.push_back(r);
     std::sort(s.records.begin(), s.records.end(), [](const Record* a, const Record* b) { return a->tmin() < b->tmin(); });
-    s.composition = sp.is_name ? composition_of(*s.records.front()) : composition(sp);
+    s.composition = comp ? *comp : composition_of(*s.records.front());
     s.molar_mass = molar_mass(s.composition);
     return s;
 }

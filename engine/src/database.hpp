@@ -83,8 +83,9 @@ private:
     std::unordered_map<const Record*, std::string> alias_of_;  ///< a common name for a record
     std::string identity_;
 
+    /// `comp`: the species' composition when written as a formula (a name takes its record's).
     Substance resolve_records(const grammar::Species& sp, std::vector<const Record*> found,
-                              const std::string& shown) const;
+                              const std::string& shown, const Composition* comp) const;
     std::string describe(const Record* r) const;
 };
 

@@ -169,7 +169,7 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     std::string identity;
     bool found = false;
     for (std::size_t i = 0; i < terms.size(); ++i) {
-        if (compositions[i].key() != want_key) continue;
+        if (composition_keys[i] != want_key) continue;
         if (want_phase && substances[i].phase != want_phase) continue;
         if (found && substances[i].identity() != identity)
             throw Error(ErrorKind::argument, "'" + key.written + "' fits more than one species of the reaction (" +
@@ -270,10 +270,14 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     }
     const Database& db = Database::get();
     try {
-        for (const auto* t : p->terms) p->compositions.push_back(db.composition(t->species, table));
+        for (const auto* t : p->terms) {
+            p->compositions.push_back(db.composition(t->species, table));
+            p->composition_keys.push_back(p->compositions.back().key());
+        }
     } catch (const Error& e) {
         p->composition_error = e;
         p->compositions.clear();
+        p->composition_keys.clear();
     }
     if (!p->composition_error) {
         check_balance(*p);

@@ -19,6 +19,7 @@ struct Prepared {
     std::vector<const grammar::Term*> terms;  ///< reactants then products
     std::vector<Rational> nu;                 ///< signed: reactants < 0, products > 0
     std::vector<Composition> compositions;    ///< per term (empty if composition_error)
+    std::vector<std::string> composition_keys;  ///< Composition::key() per term, for matching `per`/`key`
     std::optional<Error> composition_error;   ///< a bad element symbol or unknown name
     std::optional<Error> balance_error;       ///< unbalanced elements or charge
     std::vector<Substance> substances;        ///< per term (empty if resolve_error)
