@@ -160,7 +160,7 @@ public:
             const double T = temperature_arg(temperature, "temperature", 5);
             const auto t = table_arg(table, 6);
             return over_primary(reaction, "reaction", [&](const std::string& r) {
-                return uno::Any(engine().load(r, q, qu, k, ru, T, t.get()));
+                return uno::Any(engine().load(r, q, qu, k, ru, {T, t.get()}));
             });
         });
     }
@@ -172,7 +172,7 @@ public:
             const double tol = number_arg(tolerance, "tolerance", 2, 0.1);
             const auto t = table_arg(table, 3);
             return over_primary(reaction, "reaction", [&](const std::string& r) {
-                return text_result(engine().kind(r, T, tol, t.get()));
+                return text_result(rxnheat::to_string(engine().kind(r, {T, t.get()}, tol)));
             });
         });
     }
@@ -194,7 +194,7 @@ public:
             }
             auto check = [&](const std::string& r) -> std::string {
                 if (!problem.empty()) return problem;
-                return engine().check(r, T, t.get());
+                return engine().check(r, {T, t.get()});
             };
             if (classify(reaction) != Given::range) {
                 std::string r;
@@ -234,7 +234,7 @@ public:
         return guarded(self(), [&] {
             const auto t = table_arg(table, 1);
             return over_primary(reaction, "reaction", [&](const std::string& r) {
-                return text_result(engine().balance(r, t.get()));
+                return text_result(engine().balance(r, {rxnheat::T_ref, t.get()}));
             });
         });
     }
@@ -275,7 +275,7 @@ public:
             const std::string u = text_arg(unit, "unit", 2);
             const auto t = table_arg(table, 3);
             return over_primary(species, "species", [&](const std::string& s) {
-                return uno::Any(engine().species_hf(s, T, u, t.get()));
+                return uno::Any(engine().species_hf(s, {T, t.get()}, u));
             });
         });
     }
@@ -286,7 +286,7 @@ public:
             const double T = required_temperature_arg(temperature);
             const auto t = table_arg(table, 2);
             return over_primary(species, "species", [&](const std::string& s) {
-                return uno::Any(engine().species_cp(s, T, t.get()));
+                return uno::Any(engine().species_cp(s, {T, t.get()}));
             });
         });
     }
@@ -299,7 +299,7 @@ public:
             const double Tref = temperature_arg(referenceTemperature, "reference_temperature", 2);
             const auto t = table_arg(table, 3);
             return over_primary(species, "species", [&](const std::string& s) {
-                return uno::Any(engine().species_h(s, T, Tref, t.get()));
+                return uno::Any(engine().species_h(s, {T, t.get()}, Tref));
             });
         });
     }
@@ -318,7 +318,7 @@ public:
             const auto t = table_arg(table, 1);
             return over_primary(reactionOrSpecies, "reaction_or_species",
                                 [&](const std::string& x) {
-                                    return text_result(engine().source(x, t.get()));
+                                    return text_result(engine().source(x, {rxnheat::T_ref, t.get()}));
                                 });
         });
     }
@@ -390,8 +390,8 @@ private:
 
     // RXNDH and RXNDU: the same arguments, one engine function each. An empty unit is the
     // engine's default (kJ/mol).
-    using PerAmount = double (rxnheat::Engine::*)(std::string_view, double, std::string_view,
-                                                   std::string_view, const rxnheat::SpeciesTable*);
+    using PerAmount = double (rxnheat::Engine::*)(std::string_view, const rxnheat::Conditions&,
+                                                   std::string_view, std::string_view);
     uno::Any per_amount(PerAmount f, const uno::Any& reaction, const uno::Any& temperature,
                         const uno::Any& unit, const uno::Any& per, const uno::Any& table) {
         return guarded(self(), [&] {
@@ -400,7 +400,7 @@ private:
             const std::string p = text_arg(per, "per", 3);
             const auto t = table_arg(table, 4);
             return over_primary(reaction, "reaction", [&](const std::string& r) {
-                return uno::Any((engine().*f)(r, T, u, p, t.get()));
+                return uno::Any((engine().*f)(r, {T, t.get()}, u, p));
             });
         });
     }

@@ -182,18 +182,18 @@ int run_dh_du(Context& c, bool is_du) {
     const std::string& reaction = c.args.positional[0];
     const std::string unit = c.args.unit.value_or("kJ/mol");
     const std::string per = c.args.per.value_or("");
-    const double value = is_du ? c.engine.du(reaction, c.T, unit, per, c.table)
-                               : c.engine.dh(reaction, c.T, unit, per, c.table);
-    const rxnheat::ReactionReport rep = c.engine.report(reaction, c.T, c.table);
+    const double value = is_du ? c.engine.du(reaction, {c.T, c.table}, unit, per)
+                               : c.engine.dh(reaction, {c.T, c.table}, unit, per);
+    const rxnheat::ReactionReport rep = c.engine.report(reaction, {c.T, c.table});
 
     std::string plain = plain_number(value) + " " + unit;
     if (!per.empty()) plain += " of " + per;
-    if (!is_du) plain += " (" + rep.kind + ")";
+    if (!is_du) plain += " (" + std::string(rxnheat::to_string(rep.kind)) + ")";
 
     JsonObject j;
     j.num("value", value).str("unit", unit);
     if (!per.empty()) j.str("per", per);
-    if (!is_du) j.str("kind", rep.kind);
+    if (!is_du) j.str("kind", rxnheat::to_string(rep.kind));
     j.num("temperature_K", rep.temperature_K).str("reaction", rep.canonical);
     if (is_du) j.num("dn_gas", rep.dn_gas).num("dH_kJ_per_mol", rep.dH_kJ_per_mol);
     j.raw("sources", sources_json(rep.sources));
@@ -220,14 +220,14 @@ int run_load(Context& c) {
     const std::string& quantity_unit = p[2];
     const std::string& key = p[3];
     const std::string unit = c.args.unit.value_or(is_flow_unit(quantity_unit) ? "kW" : "kJ");
-    const double value = c.engine.load(reaction, quantity, quantity_unit, key, unit, c.T, c.table);
-    const rxnheat::ReactionReport rep = c.engine.report(reaction, c.T, c.table);
+    const double value = c.engine.load(reaction, quantity, quantity_unit, key, unit, {c.T, c.table});
+    const rxnheat::ReactionReport rep = c.engine.report(reaction, {c.T, c.table});
 
-    const std::string plain = plain_number(value) + " " + unit + " (" + rep.kind + ")";
+    const std::string plain = plain_number(value) + " " + unit + " (" + std::string(rxnheat::to_string(rep.kind)) + ")";
     JsonObject j;
     j.num("value", value)
         .str("unit", unit)
-        .str("kind", rep.kind)
+        .str("kind", rxnheat::to_string(rep.kind))
         .num("quantity", quantity)
         .str("quantity_unit", quantity_unit)
         .str("key", key)
@@ -242,8 +242,8 @@ int run_load(Context& c) {
 int run_kind(Context& c) {
     const std::string& reaction = c.args.positional[0];
     const double tol = c.args.tolerance ? parse_finite(*c.args.tolerance, "--tolerance") : 0.1;
-    const std::string word = c.engine.kind(reaction, c.T, tol, c.table);
-    const rxnheat::ReactionReport rep = c.engine.report(reaction, c.T, c.table);
+    const std::string word = rxnheat::to_string(c.engine.kind(reaction, {c.T, c.table}, tol));
+    const rxnheat::ReactionReport rep = c.engine.report(reaction, {c.T, c.table});
     JsonObject j;
     j.str("kind", word)
         .num("dH_kJ_per_mol", rep.dH_kJ_per_mol)
@@ -256,7 +256,7 @@ int run_kind(Context& c) {
 
 int run_check(Context& c) {
     const std::string& reaction = c.args.positional[0];
-    const std::string verdict = c.engine.check(reaction, c.T, c.table);
+    const std::string verdict = c.engine.check(reaction, {c.T, c.table});
     const bool ok = verdict == "ok";
     JsonObject j;
     j.boolean("ok", ok).str("check", verdict);
@@ -273,7 +273,7 @@ int run_text_result(Context& c, const std::string& result) {
     return exit_ok;
 }
 
-int run_balance(Context& c) { return run_text_result(c, c.engine.balance(c.args.positional[0], c.table)); }
+int run_balance(Context& c) { return run_text_result(c, c.engine.balance(c.args.positional[0], {rxnheat::T_ref, c.table})); }
 int run_reverse(Context& c) { return run_text_result(c, c.engine.reverse(c.args.positional[0])); }
 
 int run_scale(Context& c) {
@@ -285,7 +285,7 @@ int run_scale(Context& c) {
 }
 
 int run_species(Context& c) {
-    const rxnheat::SpeciesReport r = c.engine.species_report(c.args.positional[0], c.T, c.table);
+    const rxnheat::SpeciesReport r = c.engine.species_report(c.args.positional[0], {c.T, c.table});
     const bool has_range = r.tmax_K > 0;
     std::string plain;
     auto line = [&](const char* label, const std::string& value) {
@@ -355,9 +355,9 @@ void compute_row(BatchRow& r, rxnheat::Engine& engine, const rxnheat::SpeciesTab
         r.unit = r.unit_text.empty() ? default_unit : r.unit_text;
         r.T = r.temperature_text.empty() ? default_T : rxnheat::parse_temperature(r.temperature_text);
         r.has_T = true;
-        const rxnheat::ReactionReport rep = engine.report(r.reaction, r.T, table);
-        r.value = r.unit == "kJ/mol" ? rep.dH_kJ_per_mol : engine.dh(r.reaction, r.T, r.unit, {}, table);
-        r.kind = rep.kind;
+        const rxnheat::ReactionReport rep = engine.report(r.reaction, {r.T, table});
+        r.value = r.unit == "kJ/mol" ? rep.dH_kJ_per_mol : engine.dh(r.reaction, {r.T, table}, r.unit);
+        r.kind = rxnheat::to_string(rep.kind);
     } catch (const rxnheat::Error& e) {
         r.error = e.what();
         r.internal = e.kind() == rxnheat::ErrorKind::internal;

@@ -21,20 +21,7 @@ void copy_text(const std::string& s, char* buf, size_t size) {
 }
 
 rxnheat_status status_of(rxnheat::ErrorKind k) {
-    using K = rxnheat::ErrorKind;
-    switch (k) {
-    case K::syntax: return RXNHEAT_E_SYNTAX;
-    case K::too_long: return RXNHEAT_E_TOO_LONG;
-    case K::unknown_species: return RXNHEAT_E_UNKNOWN_SPECIES;
-    case K::ambiguous_species: return RXNHEAT_E_AMBIGUOUS_SPECIES;
-    case K::phase: return RXNHEAT_E_PHASE;
-    case K::out_of_range: return RXNHEAT_E_OUT_OF_RANGE;
-    case K::unbalanced: return RXNHEAT_E_UNBALANCED;
-    case K::unit: return RXNHEAT_E_UNIT;
-    case K::argument: return RXNHEAT_E_ARGUMENT;
-    case K::table: return RXNHEAT_E_TABLE;
-    default: return RXNHEAT_E_INTERNAL;
-    }
+    return static_cast<rxnheat_status>(rxnheat::error_kind_info(k).c_status);
 }
 
 std::string_view sv(const char* s) { return s ? std::string_view(s) : std::string_view(); }
@@ -150,7 +137,7 @@ rxnheat_status rxnheat_kind(rxnheat_engine* h, const char* reaction, double T, d
                             size_t out_size, char* err, size_t err_size) {
     return text_call(out, out_size, err, err_size, [&] {
         need(reaction, "the reaction");
-        return engine_of(h).kind(reaction, T, tolerance_kJ);
+        return std::string(rxnheat::to_string(engine_of(h).kind(reaction, T, tolerance_kJ)));
     });
 }
 

@@ -21,27 +21,33 @@ using detail::Prepared;
 using detail::Rational;
 using detail::Substance;
 
-struct Engine::Impl {};
+// What one engine owns: the data it reads (the embedded set, parsed once and shared by every
+// engine) and its own cache of prepared reactions.
+struct Engine::Impl {
+    const Database& db;
+    detail::PreparedCache cache;
+    explicit Impl(const EngineOptions& o) : db(Database::get()), cache(o.prepared_cache_entries) {}
+    std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table) {
+        return detail::prepare(text, table, &cache);
+    }
+};
 
-Engine::Engine() : impl_(std::make_unique<Impl>()) {}
+Engine::Engine(const EngineOptions& options) : impl_(std::make_unique<Impl>(options)) {}
 Engine::~Engine() = default;
 
 Engine& Engine::shared() {
-    static Engine engine;
+    static Engine engine{EngineOptions{}};
     return engine;
 }
 
-namespace {
+CacheStats Engine::cache_stats() const { return impl_->cache.stats(); }
+void Engine::clear_cache() { impl_->cache.clear(); }
 
-std::string num(double x) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.10g", x);
-    return buf;
-}
+namespace {
 
 void check_temperature(double T) {
     if (!std::isfinite(T) || T <= 0)
-        throw Error(ErrorKind::argument, "the temperature must be a positive number of kelvin (got " + num(T) + ")");
+        throw Error(ErrorKind::argument, "the temperature must be a positive number of kelvin (got " + number_words(T) + ")");
 }
 
 grammar::Species parse_one_species(std::string_view text, const char* what) {
@@ -91,19 +97,19 @@ Rational rational_from_double(double x) {
     return grammar::parse_number(buf);
 }
 
-std::string scaled(std::string_view reaction, const Rational& factor) {
+std::string scaled(const Prepared& prepared, const Rational& factor) {
     if (factor <= 0)
         throw Error(ErrorKind::argument, "the factor must be above zero (to exchange the sides, reverse the reaction)");
-    const auto p = detail::prepare(reaction, nullptr);
+    const Prepared* p = &prepared;
     std::vector<Rational> l, r;
     for (const auto& t : p->ast.reactants) l.push_back(t.coefficient * factor);
     for (const auto& t : p->ast.products) r.push_back(t.coefficient * factor);
     return detail::reaction_text(p->ast, l, r);
 }
 
-const char* kind_word(double dH_kJ, double tolerance_kJ) {
-    if (std::fabs(dH_kJ) <= tolerance_kJ) return "thermoneutral";
-    return dH_kJ < 0 ? "exothermic" : "endothermic";
+HeatKind kind_of(double dH_kJ, double tolerance_kJ) {
+    if (std::fabs(dH_kJ) <= tolerance_kJ) return HeatKind::thermoneutral;
+    return dH_kJ < 0 ? HeatKind::exothermic : HeatKind::endothermic;
 }
 
 bool looks_like_reaction(std::string_view s) {
@@ -126,7 +132,7 @@ double formation_enthalpy(const Substance& s, double T) {
             for (const auto& iv : r->intervals)
                 if (T <= iv.tmax + 1e-6) return detail::h_over_RT(iv, T) * detail::R_nasa * T / atoms;
         }
-        throw Error(ErrorKind::out_of_range, "no reference-state data for the element " + sym + " at " + num(T) +
+        throw Error(ErrorKind::out_of_range, "no reference-state data for the element " + sym + " at " + number_words(T) +
                                                  " K, so ΔfH° there cannot be formed");
     };
     for (const auto& [sym, n] : s.composition.atoms) h -= detail::to_double(n) * element_h(sym);
@@ -143,48 +149,54 @@ double formation_enthalpy(const Substance& s, double T) {
 
 }  // namespace
 
-double Engine::dh(std::string_view reaction, double T, std::string_view unit, std::string_view per,
-                  const SpeciesTable* table) {
-    check_temperature(T);
-    const auto p = detail::prepare(reaction, table);
-    return per_extent_in_unit(*p, p->dH(T), unit, per, table);
+double Engine::dh(std::string_view reaction, const Conditions& at, std::string_view unit, std::string_view per) {
+    check_temperature(at.temperature_K);
+    const auto p = impl_->prepare(reaction, at.table);
+    return per_extent_in_unit(*p, p->dH(at.temperature_K), unit, per, at.table);
 }
 
-double Engine::du(std::string_view reaction, double T, std::string_view unit, std::string_view per,
-                  const SpeciesTable* table) {
-    check_temperature(T);
-    const auto p = detail::prepare(reaction, table);
+double Engine::du(std::string_view reaction, const Conditions& at, std::string_view unit, std::string_view per) {
+    check_temperature(at.temperature_K);
+    const auto p = impl_->prepare(reaction, at.table);
+    const double T = at.temperature_K;
     const double dU = p->dH(T) - p->dn_gas() * detail::R * T;
-    return per_extent_in_unit(*p, dU, unit, per, table);
+    return per_extent_in_unit(*p, dU, unit, per, at.table);
 }
 
 double Engine::load(std::string_view reaction, double quantity, std::string_view quantity_unit,
-                    std::string_view key, std::string_view result_unit, double T, const SpeciesTable* table) {
-    check_temperature(T);
+                    std::string_view key, std::string_view result_unit, const Conditions& at) {
+    check_temperature(at.temperature_K);
     if (!std::isfinite(quantity)) throw Error(ErrorKind::argument, "the quantity must be a finite number");
     if (quantity < 0)
         throw Error(ErrorKind::argument, "the quantity must not be negative (give the amount that reacts or forms)");
-    const auto p = detail::prepare(reaction, table);
-    const double dH = p->dH(T);
+    const auto p = impl_->prepare(reaction, at.table);
+    const double dH = p->dH(at.temperature_K);
     if (key.empty()) throw Error(ErrorKind::argument, "name the key species whose quantity is given");
     const auto sp = parse_one_species(key, "the key species");
     std::size_t idx = 0;
-    const double nu = std::fabs(detail::to_double(p->key_coefficient(sp, table, &idx)));
+    const double nu = std::fabs(detail::to_double(p->key_coefficient(sp, at.table, &idx)));
     const auto qu = detail::quantity_unit(quantity_unit);
     const double mol = detail::quantity_to_mol(quantity, quantity_unit, p->substances[idx].molar_mass);
     return detail::load_result(dH * mol / nu, result_unit, qu.is_rate(), quantity_unit);
 }
 
-std::string Engine::kind(std::string_view reaction, double T, double tolerance_kJ, const SpeciesTable* table) {
-    if (!std::isfinite(tolerance_kJ) || tolerance_kJ < 0)
-        throw Error(ErrorKind::argument, "the tolerance must be a number of kJ/mol, zero or more");
-    return kind_word(dh(reaction, T, "kJ/mol", {}, table), tolerance_kJ);
+std::string Engine::load_unit(std::string_view quantity_unit, std::string_view result_unit) {
+    result_unit = trim(result_unit);
+    if (!result_unit.empty()) return std::string(result_unit);
+    return std::string(detail::quantity_unit(quantity_unit).is_rate() ? detail::default_rate_unit
+                                                                      : detail::default_total_unit);
 }
 
-std::string Engine::check(std::string_view reaction, double T, const SpeciesTable* table) noexcept {
+HeatKind Engine::kind(std::string_view reaction, const Conditions& at, double tolerance_kJ) {
+    if (!std::isfinite(tolerance_kJ) || tolerance_kJ < 0)
+        throw Error(ErrorKind::argument, "the tolerance must be a number of kJ/mol, zero or more");
+    return kind_of(dh(reaction, at, "kJ/mol"), tolerance_kJ);
+}
+
+std::string Engine::check(std::string_view reaction, const Conditions& at) noexcept {
     try {
-        check_temperature(T);
-        detail::prepare(reaction, table)->dH(T);
+        check_temperature(at.temperature_K);
+        impl_->prepare(reaction, at.table)->dH(at.temperature_K);
         return "ok";
     } catch (const std::exception& e) {
         return e.what();
@@ -193,12 +205,12 @@ std::string Engine::check(std::string_view reaction, double T, const SpeciesTabl
     }
 }
 
-std::string Engine::balance(std::string_view reaction, const SpeciesTable* table) {
-    return detail::balanced_text(*detail::prepare(reaction, table));  // a table may name species
+std::string Engine::balance(std::string_view reaction, const Conditions& at) {
+    return detail::balanced_text(*impl_->prepare(reaction, at.table));  // a table may name species
 }
 
 std::string Engine::reverse(std::string_view reaction) {
-    const auto p = detail::prepare(reaction, nullptr);
+    const auto p = impl_->prepare(reaction, nullptr);
     grammar::Reaction r;
     r.reactants = p->ast.products;
     r.products = p->ast.reactants;
@@ -217,18 +229,19 @@ std::string Engine::scale(std::string_view reaction, std::string_view factor) {
     } catch (const grammar::ParseError& e) {
         throw Error(ErrorKind::argument, std::string("the factor: ") + e.what());
     }
-    return scaled(reaction, f);
+    return scaled(*impl_->prepare(reaction, nullptr), f);
 }
 
 std::string Engine::scale(std::string_view reaction, double factor) {
     if (!std::isfinite(factor) || factor <= 0)
         throw Error(ErrorKind::argument, "the factor must be a number above zero (to exchange the sides, reverse the reaction)");
-    return scaled(reaction, rational_from_double(factor));
+    return scaled(*impl_->prepare(reaction, nullptr), rational_from_double(factor));
 }
 
-ReactionReport Engine::report(std::string_view reaction, double T, const SpeciesTable* table) {
+ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {
+    const double T = at.temperature_K;
     check_temperature(T);
-    const auto p = detail::prepare(reaction, table);
+    const auto p = impl_->prepare(reaction, at.table);
     ReactionReport r;
     r.temperature_K = T;
     const double dH = p->dH(T);
@@ -236,7 +249,7 @@ ReactionReport Engine::report(std::string_view reaction, double T, const Species
     r.dn_gas = p->dn_gas();
     r.dU_kJ_per_mol = (dH - r.dn_gas * detail::R * T) / 1000.0;
     r.canonical = p->canonical();
-    r.kind = kind_word(r.dH_kJ_per_mol, 0.1);
+    r.kind = kind_of(r.dH_kJ_per_mol, default_tolerance_kJ_per_mol);
     std::set<std::string> seen;
     for (const auto& s : p->substances) {
         if (!seen.insert(s.identity()).second) continue;
@@ -246,31 +259,33 @@ ReactionReport Engine::report(std::string_view reaction, double T, const Species
     return r;
 }
 
-double Engine::species_hf(std::string_view species, double T, std::string_view unit, const SpeciesTable* table) {
-    const Substance s = resolve_one(species, table);
-    return detail::from_J_per_mol(formation_enthalpy(s, T), unit, s.molar_mass);
+double Engine::species_hf(std::string_view species, const Conditions& at, std::string_view unit) {
+    const Substance s = resolve_one(species, at.table);
+    return detail::from_J_per_mol(formation_enthalpy(s, at.temperature_K), unit, s.molar_mass);
 }
 
-double Engine::species_cp(std::string_view species, double T, const SpeciesTable* table) {
-    check_temperature(T);
-    return resolve_one(species, table).Cp(T);
+double Engine::species_cp(std::string_view species, const Conditions& at) {
+    check_temperature(at.temperature_K);
+    return resolve_one(species, at.table).Cp(at.temperature_K);
 }
 
-double Engine::species_h(std::string_view species, double T, double Tref, const SpeciesTable* table) {
+double Engine::species_h(std::string_view species, const Conditions& at, double Tref) {
+    const double T = at.temperature_K;
     check_temperature(T);
     check_temperature(Tref);
-    const Substance s = resolve_one(species, table);
+    const Substance s = resolve_one(species, at.table);
     return (s.H(T) - s.H(Tref)) / 1000.0;
 }
 
-double Engine::species_s(std::string_view species, double T, const SpeciesTable* table) {
-    check_temperature(T);
-    return resolve_one(species, table).S(T);
+double Engine::species_s(std::string_view species, const Conditions& at) {
+    check_temperature(at.temperature_K);
+    return resolve_one(species, at.table).S(at.temperature_K);
 }
 
-SpeciesReport Engine::species_report(std::string_view species, double T, const SpeciesTable* table) {
+SpeciesReport Engine::species_report(std::string_view species, const Conditions& at) {
+    const double T = at.temperature_K;
     check_temperature(T);
-    const Substance s = resolve_one(species, table);
+    const Substance s = resolve_one(species, at.table);
     SpeciesReport r;
     r.species = s.display;
     r.record = s.records.empty() ? "user table" : s.records.front()->name;
@@ -308,10 +323,11 @@ double Engine::molar_mass(std::string_view formula) {
     return db.molar_mass(db.composition(sp));
 }
 
-std::string Engine::source(std::string_view text, const SpeciesTable* table) {
+std::string Engine::source(std::string_view text, const Conditions& at) {
+    const SpeciesTable* table = at.table;
     std::string out;
     if (looks_like_reaction(text)) {
-        const auto p = detail::prepare(text, table);
+        const auto p = impl_->prepare(text, table);
         p->require_thermo();
         std::set<std::string> seen;
         for (const auto& s : p->substances)

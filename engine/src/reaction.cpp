@@ -70,39 +70,6 @@ void check_balance(Prepared& p) {
     p.balance_error = Error(ErrorKind::unbalanced, msg);
 }
 
-class PreparedCache {
-public:
-    explicit PreparedCache(std::size_t capacity) : capacity_(capacity) {}
-    std::shared_ptr<const Prepared> find(const std::string& key) {
-        std::lock_guard<std::mutex> lock(mutex_);
-        auto it = map_.find(key);
-        if (it == map_.end()) return nullptr;
-        lru_.splice(lru_.begin(), lru_, it->second);
-        return it->second->second;
-    }
-    void put(const std::string& key, std::shared_ptr<const Prepared> value) {
-        std::lock_guard<std::mutex> lock(mutex_);
-        if (auto it = map_.find(key); it != map_.end()) return;
-        lru_.emplace_front(key, std::move(value));
-        map_.emplace(key, lru_.begin());
-        if (map_.size() > capacity_) {
-            map_.erase(lru_.back().first);
-            lru_.pop_back();
-        }
-    }
-
-private:
-    using Entry = std::pair<std::string, std::shared_ptr<const Prepared>>;
-    std::size_t capacity_;
-    std::mutex mutex_;
-    std::list<Entry> lru_;
-    std::unordered_map<std::string, std::list<Entry>::iterator> map_;
-};
-
-PreparedCache& cache() {
-    static PreparedCache c(4096);
-    return c;
-}
 
 
 }  // namespace
@@ -248,11 +215,59 @@ std::string balanced_text(const Prepared& prepared) {
                                  std::vector<Rational>(v.begin() + nl, v.end()));
 }
 
-std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table) {
+std::string PreparedCache::key_of(std::string_view text, const SpeciesTable* table) {
+    char fp[17] = "0000000000000000";
+    if (table && table->impl())
+        std::snprintf(fp, sizeof fp, "%016llx", static_cast<unsigned long long>(table->fingerprint()));
+    std::string key(fp, 16);
+    key.append(text.data(), text.size());
+    return key;
+}
+
+std::shared_ptr<const Prepared> PreparedCache::find(std::string_view text, const SpeciesTable* table) {
+    if (capacity_ == 0) return nullptr;
+    const std::string key = key_of(text, table);
+    const SpeciesTable::Impl* want = table ? table->impl() : nullptr;
+    std::lock_guard<std::mutex> lock(mutex_);
+    auto it = map_.find(key);
+    if (it == map_.end() || (it->second->table.get() != want &&
+                             (!want || !it->second->table || it->second->table->identity != want->identity))) {
+        ++misses_;
+        return nullptr;
+    }
+    ++hits_;
+    lru_.splice(lru_.begin(), lru_, it->second);
+    return it->second->value;
+}
+
+void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::shared_ptr<const Prepared> value) {
+    if (capacity_ == 0) return;
+    std::string key = key_of(text, table);
+    std::lock_guard<std::mutex> lock(mutex_);
+    if (map_.count(key)) return;  // a colliding table keeps the first entry; the other is not cached
+    lru_.push_front({key, table ? table->shared_impl() : nullptr, std::move(value)});
+    map_.emplace(std::move(key), lru_.begin());
+    if (map_.size() > capacity_) {
+        map_.erase(lru_.back().key);
+        lru_.pop_back();
+    }
+}
+
+CacheStats PreparedCache::stats() const {
+    std::lock_guard<std::mutex> lock(mutex_);
+    return {map_.size(), capacity_, hits_, misses_};
+}
+
+void PreparedCache::clear() {
+    std::lock_guard<std::mutex> lock(mutex_);
+    map_.clear();
+    lru_.clear();
+}
+
+std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table, PreparedCache* cache) {
     check_input_text(text, "the reaction");
-    std::string key(text);
-    if (table && table->impl()) key = table_identity(*table->impl()) + "\x1d" + key;
-    if (auto hit = cache().find(key)) return hit;
+    if (cache)
+        if (auto hit = cache->find(text, table)) return hit;
 
     auto p = std::make_shared<Prepared>();
     try {
@@ -288,7 +303,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
             p->substances.clear();
         }
     }
-    cache().put(key, p);
+    if (cache) cache->put(text, table, p);
     return p;
 }
 

@@ -4,7 +4,10 @@
 #include "database.hpp"
 #include "rxnheat/rxnheat.hpp"
 
+#include <list>
 #include <memory>
+#include <mutex>
+#include <unordered_map>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -38,8 +41,34 @@ struct Prepared {
     Rational key_coefficient(const grammar::Species& key, const SpeciesTable* table, std::size_t* term_index) const;
 };
 
-/// Parses and prepares (parse errors throw); cached by exact text and table.
-std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table);
+/// Prepared reactions by (table fingerprint, exact text), least recently used first out. Owned
+/// by an Engine (Engine::Impl); thread-safe. A fingerprint match is confirmed on the table's
+/// content before a hit is used, so two tables can never share a result.
+class PreparedCache {
+public:
+    explicit PreparedCache(std::size_t capacity) : capacity_(capacity) {}
+    std::shared_ptr<const Prepared> find(std::string_view text, const SpeciesTable* table);
+    void put(std::string_view text, const SpeciesTable* table, std::shared_ptr<const Prepared> value);
+    CacheStats stats() const;
+    void clear();
+
+private:
+    struct Entry {
+        std::string key;                                  ///< fingerprint (16 hex) + text
+        std::shared_ptr<const SpeciesTable::Impl> table;  ///< to confirm a fingerprint match
+        std::shared_ptr<const Prepared> value;
+    };
+    static std::string key_of(std::string_view text, const SpeciesTable* table);
+    std::size_t capacity_;
+    mutable std::mutex mutex_;
+    std::list<Entry> lru_;
+    std::unordered_map<std::string, std::list<Entry>::iterator> map_;
+    std::size_t hits_ = 0, misses_ = 0;
+};
+
+/// Parses and prepares (parse errors throw); through `cache` when one is given.
+std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table,
+                                        PreparedCache* cache);
 
 /// The reaction with the smallest whole-number coefficients that balance elements and charge
 /// (exact rational null space), species as written. Throws Error(unbalanced) when there is no

@@ -80,15 +80,22 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
                 return col_of[k] >= 0 && static_cast<std::size_t>(col_of[k]) < r.size() ? trim(r[col_of[k]]) : "";
         return {};
     };
+    // The table's identity: every cell of every row, the header included (two tables with the
+    // same cells under other headers are different tables), each cell length-prefixed so that no
+    // cell text can forge another table's identity. It is hashed once into the fingerprint.
     std::string identity;
+    auto add_row_identity = [&identity](const std::vector<std::string>& r) {
+        for (const auto& c : r) identity += std::to_string(c.size()) + ":" + c;
+        identity += "\n";
+    };
+    add_row_identity(rows.front());
     for (std::size_t i = 1; i < rows.size(); ++i) {
         const auto& r = rows[i];
         const std::size_t row = i + 1;
         bool blank = true;
         for (const auto& c : r) blank = blank && trim(c).empty();
         if (blank) continue;
-        for (const auto& c : r) identity += c + "\x1f";
-        identity += "\x1e";
+        add_row_identity(r);
         auto u = std::make_shared<UserSpecies>();
         u->row = row;
         const std::string formula = cell(r, "formula");
@@ -142,7 +149,10 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
         u->source = cell(r, "source");
         impl->rows.push_back(std::move(u));
     }
-    impl->identity = identity;
+    std::uint64_t h = 1469598103934665603ull;  // FNV-1a, 64 bits
+    for (unsigned char c : identity) h = (h ^ c) * 1099511628211ull;
+    impl->fingerprint = h;
+    impl->identity = std::move(identity);
     SpeciesTable t;
     t.impl_ = std::move(impl);
     return t;
@@ -248,4 +258,6 @@ std::shared_ptr<const UserSpecies> find_user_species(const SpeciesTable::Impl& t
 const std::string& table_identity(const SpeciesTable::Impl& table) { return table.identity; }
 
 }  // namespace detail
+
+std::uint64_t SpeciesTable::fingerprint() const noexcept { return impl_ ? impl_->fingerprint : 0; }
 }  // namespace rxnheat

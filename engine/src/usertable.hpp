@@ -4,6 +4,7 @@
 #include "grammar/parse.hpp"
 #include "rxnheat/rxnheat.hpp"
 
+#include <cstdint>
 #include <memory>
 #include <optional>
 #include <string>
@@ -42,5 +43,6 @@ const std::string& table_identity(const SpeciesTable::Impl& table);
 
 struct rxnheat::SpeciesTable::Impl {
     std::vector<std::shared_ptr<const detail::UserSpecies>> rows;
-    std::string identity;
+    std::string identity;          ///< every cell, header included, length-prefixed
+    std::uint64_t fingerprint = 0; ///< hash of `identity`, taken once
 };

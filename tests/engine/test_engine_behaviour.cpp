@@ -100,6 +100,8 @@ Outcome attempt(F&& f) {
         using R = decltype(f());
         if constexpr (std::is_same_v<R, double>) {
             o.value = f();
+        } else if constexpr (std::is_same_v<R, rxnheat::HeatKind>) {
+            o.text = rxnheat::to_string(f());
         } else {
             o.text = f();
         }
@@ -341,14 +343,14 @@ TEST_CASE("RXNLOAD for amounts, masses, normal volumes and flows", "[behaviour][
 }
 
 TEST_CASE("kind classifies with a tolerance", "[behaviour]") {
-    CHECK(eng().kind(CH4_COMB) == "exothermic");                                       // ΔH ≈ −890 kJ/mol (CODATA)
-    CHECK(eng().kind("CH4(g) + H2O(g) -> CO(g) + 3 H2(g)", 1100) == "endothermic");    // ΔH ≈ +226 kJ/mol (JANAF)
-    CHECK(eng().kind("CaCO3(s) -> CaO(s) + CO2(g)") == "endothermic");                 // calcination absorbs heat (common practice)
+    CHECK(eng().kind(CH4_COMB) == rxnheat::HeatKind::exothermic);                                       // ΔH ≈ −890 kJ/mol (CODATA)
+    CHECK(eng().kind("CH4(g) + H2O(g) -> CO(g) + 3 H2(g)", 1100) == rxnheat::HeatKind::endothermic);    // ΔH ≈ +226 kJ/mol (JANAF)
+    CHECK(eng().kind("CaCO3(s) -> CaO(s) + CO2(g)") == rxnheat::HeatKind::endothermic);                 // calcination absorbs heat (common practice)
     const double wgs = eng().dh("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000);
-    CHECK(eng().kind("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000, std::fabs(wgs) + 0.01) == "thermoneutral");  // SPEC 4: |ΔH| <= tolerance
-    CHECK(eng().kind("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000, std::fabs(wgs) - 0.01) == "exothermic");     // SPEC 4
-    CHECK(eng().kind(CH4_COMB, 298.15, 1000) == "thermoneutral");  // SPEC 4: within tolerance
-    CHECK(eng().report(CH4_COMB).kind == "exothermic");            // SPEC 5: kind in the report
+    CHECK(eng().kind("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000, std::fabs(wgs) + 0.01) == rxnheat::HeatKind::thermoneutral);  // SPEC 4: |ΔH| <= tolerance
+    CHECK(eng().kind("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000, std::fabs(wgs) - 0.01) == rxnheat::HeatKind::exothermic);     // SPEC 4
+    CHECK(eng().kind(CH4_COMB, 298.15, 1000) == rxnheat::HeatKind::thermoneutral);  // SPEC 4: within tolerance
+    CHECK(eng().report(CH4_COMB).kind == rxnheat::HeatKind::exothermic);            // SPEC 5: kind in the report
     auto nan_tol = attempt([] { return eng().kind(CH4_COMB, 298.15, std::nan("")); });
     REQUIRE_ENGINE_ERROR(nan_tol);  // RULES: bad input gets a clear error
     auto neg_tol = attempt([] { return eng().kind(CH4_COMB, 298.15, -1.0); });
@@ -631,9 +633,9 @@ TEST_CASE("user species tables", "[behaviour][usertable]") {
     // SPEC 3.4. A constant-cp species: H(T) − H(298.15) = cp·(T − 298.15) exactly.
     const auto t = rxnheat::SpeciesTable::from_rows({{"formula", "phase", "dHf", "cp", "tmin", "tmax", "name", "source"},
                                                      {"XeF6", "g", "-279", "120", "250", "600", "xenon hexafluoride", "demo row"}});
-    CHECK(eng().species_hf("XeF6(g)", 298.15, "kJ/mol", &t) == Approx(-279).margin(1e-9));         // the table row
-    CHECK(eng().species_h("XeF6(g)", 400, 298.15, &t) == Approx(0.120 * (400 - 298.15)).margin(1e-9));  // integral of a constant cp
-    CHECK(eng().dh("Xe(g) + 3 F2(g) -> XeF6(g)", 298.15, "kJ/mol", {}, &t) == Approx(-279).margin(1e-6));  // elements are zero
+    CHECK(eng().species_hf("XeF6(g)", {298.15, &t}, "kJ/mol") == Approx(-279).margin(1e-9));         // the table row
+    CHECK(eng().species_h("XeF6(g)", {400, &t}, 298.15) == Approx(0.120 * (400 - 298.15)).margin(1e-9));  // integral of a constant cp
+    CHECK(eng().dh("Xe(g) + 3 F2(g) -> XeF6(g)", {298.15, &t}, "kJ/mol") == Approx(-279).margin(1e-6));  // elements are zero
     // Shomate form (NIST WebBook N2, 100–500 K: A 28.98641, B 1.853978, C −9.647459, D 16.63537,
     // E 0.000117, from memory), overriding the built-in N2(g): H(500) − H(298.15) from the
     // closed-form integral, and ≈ 5.912 kJ/mol (NIST-JANAF, from memory).
@@ -641,13 +643,13 @@ TEST_CASE("user species tables", "[behaviour][usertable]") {
     auto sh = [&](double T) { const double x = T / 1000; return A * x + B * x * x / 2 + C * x * x * x / 3 + D * x * x * x * x / 4 - E / x; };
     const auto n2 = rxnheat::SpeciesTable::from_rows({{"formula", "phase", "dHf", "a", "b", "c", "d", "e", "tmin", "tmax"},
                                                       {"N2", "g", "0", "28.98641", "1.853978", "-9.647459", "16.63537", "0.000117", "100", "500"}});
-    CHECK(eng().species_h("N2(g)", 500, 298.15, &n2) == Approx(sh(500) - sh(298.15)).margin(1e-6));  // Shomate integral (NIST form)
-    CHECK(eng().species_h("N2(g)", 500, 298.15, &n2) == Approx(5.912).margin(0.01));                 // NIST-JANAF, from memory
-    auto out = attempt([&] { return eng().species_h("N2(g)", 600, 298.15, &n2); });
+    CHECK(eng().species_h("N2(g)", {500, &n2}, 298.15) == Approx(sh(500) - sh(298.15)).margin(1e-6));  // Shomate integral (NIST form)
+    CHECK(eng().species_h("N2(g)", {500, &n2}, 298.15) == Approx(5.912).margin(0.01));                 // NIST-JANAF, from memory
+    auto out = attempt([&] { return eng().species_h("N2(g)", {600, &n2}, 298.15); });
     REQUIRE_ENGINE_ERROR(out);  // SPEC 3.3/3.4: outside tmax is an error
     // Overriding built-in data (SPEC 3.4: rows override the same formula and phase).
     const auto w = rxnheat::SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"H2O", "l", "-300"}});
-    CHECK(eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)", 298.15, "kJ/mol", {}, &w) == Approx(-300).margin(1e-6));  // the table row
+    CHECK(eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)", {298.15, &w}, "kJ/mol") == Approx(-300).margin(1e-6));  // the table row
     CHECK(eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)") == Approx(-285.83).margin(0.01));  // built-in unchanged (CODATA, from memory)
     // A malformed table names the row and the column (SPEC 3.4).
     auto bad = attempt([] {

@@ -27,15 +27,15 @@ TEST_CASE("aqueous neutralisation from a user table", "[usertable]") {
     // ΔrH° = ΔfH°(H2O, l) − ΔfH°(OH−, aq) = −285.830 + 230.015 = −55.815 kJ/mol (CODATA Key
     // Values, Cox et al. 1989, from memory; H2O(l) comes from the built-in NASA Glenn record,
     // which carries the CODATA value).
-    CHECK(e.dh("H+(aq) + OH-(aq) -> H2O(l)", 298.15, "kJ/mol", {}, &t) == Approx(-55.815).margin(0.001));
+    CHECK(e.dh("H+(aq) + OH-(aq) -> H2O(l)", {298.15, &t}, "kJ/mol") == Approx(-55.815).margin(0.001));
     // a species may be named by the table's name column
-    CHECK(e.dh("H+(aq) + hydroxide(aq) -> H2O(l)", 298.15, "kJ/mol", {}, &t) == Approx(-55.815).margin(0.001));
-    CHECK(e.balance("H+ + hydroxide(aq) -> H2O", &t) == "H+ + hydroxide(aq) -> H2O");
-    CHECK(e.source("H+(aq) + OH-(aq) -> H2O(l)", &t).find("user species table row 3") != std::string::npos);
+    CHECK(e.dh("H+(aq) + hydroxide(aq) -> H2O(l)", {298.15, &t}, "kJ/mol") == Approx(-55.815).margin(0.001));
+    CHECK(e.balance("H+ + hydroxide(aq) -> H2O", {rxnheat::T_ref, &t}) == "H+ + hydroxide(aq) -> H2O");
+    CHECK(e.source("H+(aq) + OH-(aq) -> H2O(l)", {rxnheat::T_ref, &t}).find("user species table row 3") != std::string::npos);
     // without the table, the built-in data have no aqueous species and say so
     CHECK(e.check("H+(aq) + OH-(aq) -> H2O(l)").find("aqueous") != std::string::npos);
     // the rows cover 298.15 K only (no cp given): another temperature is a range error
-    CHECK_THROWS_WITH(e.dh("H+(aq) + OH-(aq) -> H2O(l)", 310, "kJ/mol", {}, &t),
+    CHECK_THROWS_WITH(e.dh("H+(aq) + OH-(aq) -> H2O(l)", {310, &t}, "kJ/mol"),
                       Catch::Contains("covers 298.15–298.15 K"));
 }
 
@@ -45,8 +45,8 @@ TEST_CASE("a user row overrides the built-in record of the same formula and phas
     // deliberately different cp, so the override is visible in the sensible heat.
     const auto t = SpeciesTable::from_rows({{"formula", "phase", "dHf", "cp", "tmin", "tmax"},
                                             {"CO2", "g", "-393.51", "40", "298.15", "400"}});
-    CHECK(e.species_h("CO2(g)", 398.15, 298.15, &t) == Approx(4.0).margin(1e-9));  // 40 J/(mol K) × 100 K
-    CHECK(e.species_hf("CO2(g)", 298.15, "kJ/mol", &t) == Approx(-393.51));
+    CHECK(e.species_h("CO2(g)", {398.15, &t}, 298.15) == Approx(4.0).margin(1e-9));  // 40 J/(mol K) × 100 K
+    CHECK(e.species_hf("CO2(g)", {298.15, &t}, "kJ/mol") == Approx(-393.51));
     CHECK(e.species_h("CO2(g)", 398.15) != Approx(4.0).margin(0.01));  // the NASA record differs
 }
 

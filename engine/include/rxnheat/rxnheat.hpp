@@ -9,6 +9,7 @@
 // per mole of reaction extent (the reaction as written) unless a `per` species is given.
 #pragma once
 
+#include <cstdint>
 #include <memory>
 #include <stdexcept>
 #include <string>
@@ -23,7 +24,8 @@
 
 namespace rxnheat {
 
-/// What went wrong, for hosts that map errors to their own codes.
+/// What went wrong, for hosts that map errors to their own codes. Each kind's name, C status
+/// and whether it is a bug are in one table: error_kind_info().
 enum class ErrorKind {
     syntax,             ///< the reaction or species text does not parse
     too_long,           ///< input over the 4096-character limit
@@ -38,6 +40,16 @@ enum class ErrorKind {
     internal            ///< a bug: please report
 };
 
+/// One row of the error-kind table, read by the CLI (`error_kind` in --json), the C ABI
+/// (status codes) and the add-in (bad input -> Err:502, a bug -> #VALUE!).
+struct ErrorKindInfo {
+    ErrorKind kind;
+    const char* name;   ///< "unknown_species"
+    int c_status;       ///< the rxnheat_status of rxnheat.h
+    bool internal;      ///< a bug in rxnheat rather than bad input
+};
+RXNHEAT_API const ErrorKindInfo& error_kind_info(ErrorKind kind) noexcept;
+
 class RXNHEAT_API Error : public std::runtime_error {
 public:
     Error(ErrorKind kind, const std::string& message);
@@ -48,8 +60,21 @@ private:
 
 /// Standard reference temperature, K.
 inline constexpr double T_ref = 298.15;
-/// Longest reaction or species text accepted, in characters.
+/// Standard pressure, bar (IUPAC: 1 bar = 100 kPa).
+inline constexpr double P_standard_bar = 1.0;
+/// Longest reaction, species or argument text accepted, in characters (the one input limit).
 inline constexpr std::size_t max_input_chars = 4096;
+/// Band of |ΔrH°| counted as thermoneutral by kind()/RXNKIND unless told otherwise, kJ/mol.
+inline constexpr double default_tolerance_kJ_per_mol = 0.1;
+
+/// Text helpers shared by every layer, so that the add-in, the CLI and the engine trim and
+/// print numbers the same way.
+/// Without blanks (space, tab, CR, LF) at either end.
+RXNHEAT_API std::string_view trim(std::string_view text) noexcept;
+/// The shortest decimal text that reads back as the same double ("0.1", "-890.5701757717673").
+RXNHEAT_API std::string exact_number(double x);
+/// A number for messages in words: 10 significant digits ("623.15", "1e+306").
+RXNHEAT_API std::string number_words(double x);
 
 /// Temperature text -> kelvin: "350 C", "350 °C", "662 F", "1100 R", "623.15 K", or a bare
 /// number (kelvin). Throws Error(unit/argument) for anything else or below 0 K.
@@ -63,10 +88,40 @@ public:
     static SpeciesTable from_rows(const std::vector<std::vector<std::string>>& rows);
     /// Reads a CSV file with the same columns (for the CLI's --table).
     static SpeciesTable from_csv_file(const std::string& path);
+    /// A fingerprint of the parsed table (header and cells, escaped), taken once when the table
+    /// is built; prepared reactions are cached under (fingerprint, reaction text).
+    std::uint64_t fingerprint() const noexcept;
     struct Impl;
     const Impl* impl() const noexcept { return impl_.get(); }
+    std::shared_ptr<const Impl> shared_impl() const noexcept { return impl_; }
 private:
     std::shared_ptr<const Impl> impl_;
+};
+
+/// The state a function is evaluated at. One struct instead of the same positional defaults in
+/// every signature. A bare number converts to it (the temperature in K), so `dh(r, 500)` reads
+/// as "at 500 K".
+struct Conditions {
+    double temperature_K = T_ref;
+    double pressure_bar = P_standard_bar;  ///< for the equilibrium and steam functions to come
+    const SpeciesTable* table = nullptr;   ///< user species table over the built-in data, or none
+    Conditions() = default;
+    Conditions(double T_K, const SpeciesTable* user_table = nullptr)  // NOLINT: implicit on purpose
+        : temperature_K(T_K), table(user_table) {}
+};
+
+/// The sign of ΔrH°, as RXNKIND words it.
+enum class HeatKind { exothermic, endothermic, thermoneutral };
+/// "exothermic", "endothermic", "thermoneutral".
+RXNHEAT_API const char* to_string(HeatKind kind) noexcept;
+
+/// Sizes of an engine's own caches (prepared reactions), for tests and hosts that watch memory.
+struct EngineOptions {
+    std::size_t prepared_cache_entries = 4096;  ///< 0: no cache
+};
+struct CacheStats {
+    std::size_t entries = 0, capacity = 0;
+    std::size_t hits = 0, misses = 0;
 };
 
 /// Where one number came from, for RXNSOURCE and --json "sources".
@@ -83,7 +138,7 @@ struct ReactionReport {
     double dH_kJ_per_mol = 0;     ///< ΔrH° per mole of extent
     double dU_kJ_per_mol = 0;     ///< ΔrU° = ΔrH° − Δn(gas)·R·T
     double dn_gas = 0;            ///< moles of gas, products minus reactants
-    std::string kind;             ///< exothermic / endothermic / thermoneutral
+    HeatKind kind = HeatKind::thermoneutral;  ///< at the default tolerance
     std::vector<SourceLine> sources;
 };
 
@@ -103,73 +158,77 @@ struct SpeciesReport {
     std::string source;
 };
 
-/// Every function below takes an optional user species table (nullptr: built-in data only).
+/// The engine. Every function takes the Conditions it is evaluated at (temperature, pressure,
+/// user table); the text arguments are as a user types them.
 class RXNHEAT_API Engine {
 public:
     /// The engine over the embedded data set; created on first use, shared, thread-safe.
     static Engine& shared();
+    /// An engine of its own (own cache) over the same embedded data.
+    explicit Engine(const EngineOptions& options);
 
     // --- reactions -------------------------------------------------------------------------
-    /// ΔrH° of the reaction as written at T. `unit`: J/mol, kJ/mol, MJ/kmol, kcal/mol, cal/mol,
-    /// BTU/lbmol; with `per` (a species of the reaction) also kJ/kg, MJ/kg, kJ/g, kcal/kg, BTU/lb.
-    double dh(std::string_view reaction, double T = T_ref, std::string_view unit = "kJ/mol",
-              std::string_view per = {}, const SpeciesTable* table = nullptr);
+    /// ΔrH° of the reaction as written. `unit` (empty: kJ/mol): J/mol, kJ/mol, MJ/kmol,
+    /// kcal/mol, cal/mol, BTU/lbmol; with `per` (a species of the reaction) also kJ/kg, MJ/kg,
+    /// kJ/g, kcal/kg, BTU/lb.
+    double dh(std::string_view reaction, const Conditions& at = {}, std::string_view unit = {},
+              std::string_view per = {});
     /// ΔrU° = ΔrH° − Δn(gas)·R·T, same arguments as dh().
-    double du(std::string_view reaction, double T = T_ref, std::string_view unit = "kJ/mol",
-              std::string_view per = {}, const SpeciesTable* table = nullptr);
+    double du(std::string_view reaction, const Conditions& at = {}, std::string_view unit = {},
+              std::string_view per = {});
     /// Enthalpy change when `quantity` (in `quantity_unit`) of species `key` reacts or forms.
     /// Amount/mass/normal-volume units give a total (default kJ); "…/s|min|h|d" give a rate
     /// (default kW). Empty result_unit picks the default.
     double load(std::string_view reaction, double quantity, std::string_view quantity_unit,
-                std::string_view key, std::string_view result_unit = {}, double T = T_ref,
-                const SpeciesTable* table = nullptr);
-    /// "exothermic", "endothermic" or "thermoneutral" (|ΔrH°| <= tolerance kJ/mol).
-    std::string kind(std::string_view reaction, double T = T_ref, double tolerance_kJ = 0.1,
-                     const SpeciesTable* table = nullptr);
+                std::string_view key, std::string_view result_unit = {}, const Conditions& at = {});
+    /// The unit load() answers in for these units: `result_unit`, or kJ / kW when it is empty.
+    static std::string load_unit(std::string_view quantity_unit, std::string_view result_unit);
+    /// Exothermic, endothermic or thermoneutral (|ΔrH°| <= tolerance, kJ/mol).
+    HeatKind kind(std::string_view reaction, const Conditions& at = {},
+                  double tolerance_kJ = default_tolerance_kJ_per_mol);
     /// "ok", or the first problem in words (the same diagnosis dh() would throw). Never throws.
-    std::string check(std::string_view reaction, double T = T_ref,
-                      const SpeciesTable* table = nullptr) noexcept;
+    std::string check(std::string_view reaction, const Conditions& at = {}) noexcept;
     /// The reaction with the smallest whole-number coefficients (exact rational null space).
-    std::string balance(std::string_view reaction, const SpeciesTable* table = nullptr);
+    /// Only the table of `at` is used (it may name species).
+    std::string balance(std::string_view reaction, const Conditions& at = {});
     /// Products and reactants exchanged.
     std::string reverse(std::string_view reaction);
     /// Every coefficient times `factor` ("2", "0.5", "1/2", "½"); exact fractions kept.
     std::string scale(std::string_view reaction, std::string_view factor);
     std::string scale(std::string_view reaction, double factor);
     /// Everything at once, for reports.
-    ReactionReport report(std::string_view reaction, double T = T_ref,
-                          const SpeciesTable* table = nullptr);
+    ReactionReport report(std::string_view reaction, const Conditions& at = {});
 
     // --- species ---------------------------------------------------------------------------
     /// ΔfH° of one species; at T ≠ 298.15 K the standard enthalpy of formation from the
     /// elements in their reference states at T. `unit` as for dh() (per mole of species).
-    double species_hf(std::string_view species, double T = T_ref, std::string_view unit = "kJ/mol",
-                      const SpeciesTable* table = nullptr);
+    double species_hf(std::string_view species, const Conditions& at = {}, std::string_view unit = {});
     /// Cp° in J/(mol·K).
-    double species_cp(std::string_view species, double T, const SpeciesTable* table = nullptr);
+    double species_cp(std::string_view species, const Conditions& at);
     /// H°(T) − H°(Tref) in kJ/mol (sensible heat, phase changes included).
-    double species_h(std::string_view species, double T, double Tref = T_ref,
-                     const SpeciesTable* table = nullptr);
+    double species_h(std::string_view species, const Conditions& at, double Tref_K = T_ref);
     /// S°(T) in J/(mol·K).
-    double species_s(std::string_view species, double T, const SpeciesTable* table = nullptr);
-    SpeciesReport species_report(std::string_view species, double T = T_ref,
-                                 const SpeciesTable* table = nullptr);
+    double species_s(std::string_view species, const Conditions& at);
+    SpeciesReport species_report(std::string_view species, const Conditions& at = {});
 
     /// g/mol from standard atomic weights. Formula only (a phase is allowed and ignored).
     double molar_mass(std::string_view formula);
 
     /// Where every number used came from, one line per item, for a reaction or a species.
-    std::string source(std::string_view reaction_or_species, const SpeciesTable* table = nullptr);
+    std::string source(std::string_view reaction_or_species, const Conditions& at = {});
 
     /// Library version and data-set identity.
     static std::string version();
+
+    // --- the engine's own state ----------------------------------------------------------------
+    CacheStats cache_stats() const;
+    void clear_cache();
 
     struct Impl;
     ~Engine();
     Engine(const Engine&) = delete;
     Engine& operator=(const Engine&) = delete;
 private:
-    Engine();
     std::unique_ptr<Impl> impl_;
 };
 

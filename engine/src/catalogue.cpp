@@ -1,0 +1,622 @@
+// The function catalogue (catalogue.hpp): the one table of cell functions, and the one set of
+// rules by which every host's arguments are read and spread into arrays.
+#include "rxnheat/catalogue.hpp"
+
+#include <cerrno>
+#include <cmath>
+#include <cstdlib>
+#include <list>
+#include <mutex>
+#include <utility>
+
+#ifndef RXNHEAT_VERSION
+#define RXNHEAT_VERSION "0.0.0"
+#endif
+
+namespace rxnheat {
+
+// ---- the arguments of one evaluation, read ----------------------------------------------------
+
+struct Bound {
+    struct Value {
+        bool given = false;
+        bool is_text = false;  ///< factor: given as text (kept exact)
+        double number = 0;     ///< numbers; temperatures in K
+        std::string text;      ///< trimmed text
+    };
+    std::vector<Value> values;  ///< one per ArgSpec
+    Conditions at;              ///< temperature (the argument named "temperature") and table
+    const std::vector<Arg>* all = nullptr;  ///< the call's arguments as given (for `rest`)
+    std::size_t rest_from = 0;
+    const HostRules* rules = nullptr;
+
+    bool given(std::size_t i) const { return i < values.size() && values[i].given; }
+    std::string_view text(std::size_t i) const { return given(i) ? std::string_view(values[i].text) : std::string_view(); }
+    double number(std::size_t i, double fallback = 0) const { return given(i) ? values[i].number : fallback; }
+};
+
+namespace {
+
+// ---- texts shared by several rows ---------------------------------------------------------------
+
+constexpr const char* reaction_help =
+    "Reaction text as chemists write it, e.g. CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l) "
+    "(arrows -> = → ⇌, Unicode subscripts allowed), or a cell holding it. A range of "
+    "reactions gives an array of the same shape (enter as an array formula); an element "
+    "that fails shows Err:502, and RXNCHECK over the same range says why.";
+constexpr const char* temperature_help =
+    "Temperature: a number in kelvin, or text with a unit such as \"350 C\", \"350 °C\", "
+    "\"662 F\", \"1100 R\", \"623.15 K\". Omitted, empty or blank: 298.15 K.";
+constexpr const char* temperature_required_help =
+    "Temperature: a number in kelvin, or text with a unit such as \"350 C\", \"350 °C\", "
+    "\"662 F\", \"1100 R\", \"623.15 K\".";
+constexpr const char* energy_unit_help =
+    "Result unit: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of "
+    "reaction as written); with 'per' also kJ/kg, MJ/kg, kJ/g, kcal/kg, BTU/lb.";
+constexpr const char* per_help =
+    "A species of the reaction, e.g. \"CH4\": the result is then per mole of that species, or "
+    "per mass of it with a mass unit such as MJ/kg. Omitted: per mole of reaction.";
+constexpr const char* table_help =
+    "A cell range with your own species data; its first row names the columns: formula, phase, "
+    "dHf (kJ/mol at 298.15 K), and optionally S (J/(mol·K)), cp (J/(mol·K)) or a, b, c, d, e "
+    "(Shomate, T in K/1000), tmin, tmax, name, source. Its rows override the built-in data for "
+    "the same formula and phase.";
+constexpr const char* species_help =
+    "Species with its phase, e.g. CO2(g), H2O(l), Fe(s), or a name such as ethanol(l); or a cell "
+    "holding it. A range gives an array of the same shape (enter as an array formula); an "
+    "element that fails shows Err:502.";
+// Appended (by literal concatenation) to the descriptions of the functions that give heat loads
+// and temperature rises.
+#define RXNHEAT_CAUTION                                                                            \
+    " CAUTION: a screening estimate for the standard state, ideal gas and complete conversion. "   \
+    "Thermal runaway and relief sizing need calorimetry and a process hazard analysis; defer to "  \
+    "local codes and licensed engineers."
+
+// Argument rows used by several functions.
+ArgSpec reaction_arg() { return {"reaction", ArgKind::reaction, true, "", reaction_help, true, nullptr, "REACTION"}; }
+ArgSpec temperature_arg() {
+    return {"temperature", ArgKind::temperature, false, "298.15 K", temperature_help, true, "-T,--temperature", "TEMP"};
+}
+ArgSpec temperature_required_arg() {
+    return {"temperature", ArgKind::temperature, true, "", temperature_required_help, true, "-T,--temperature", "TEMP"};
+}
+ArgSpec table_arg() { return {"table", ArgKind::table, false, "", table_help, false, "--table", "FILE.csv"}; }
+ArgSpec species_arg() { return {"species", ArgKind::species, true, "", species_help, true, nullptr, "SPECIES"}; }
+
+std::string unit_or(std::string_view given, const char* fallback) {
+    return given.empty() ? std::string(fallback) : std::string(given);
+}
+
+Outcome dh_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.dh(b.text(0), b.at, b.text(2), b.text(3)), unit_or(b.text(2), "kJ/mol"));
+}
+Outcome du_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.du(b.text(0), b.at, b.text(2), b.text(3)), unit_or(b.text(2), "kJ/mol"));
+}
+Outcome load_call(Engine& e, const Bound& b) {
+    const double v = e.load(b.text(0), b.number(1), b.text(2), b.text(3), b.text(4), b.at);
+    return Outcome::of(v, Engine::load_unit(b.text(2), b.text(4)));
+}
+Outcome kind_call(Engine& e, const Bound& b) {
+    return Outcome::of_text(to_string(e.kind(b.text(0), b.at, b.number(2, default_tolerance_kJ_per_mol))));
+}
+Outcome check_call(Engine& e, const Bound& b) {
+    // The same evaluation as check(), so that the failure keeps its kind (RXNWHY, the CLI);
+    // errors_as_text turns it into RXNCHECK's words.
+    e.dh(b.text(0), b.at);
+    return Outcome::of_text("ok");
+}
+Outcome balance_call(Engine& e, const Bound& b) { return Outcome::of_text(e.balance(b.text(0), b.at)); }
+Outcome reverse_call(Engine& e, const Bound& b) { return Outcome::of_text(e.reverse(b.text(0))); }
+Outcome scale_call(Engine& e, const Bound& b) {
+    const Bound::Value& f = b.values[1];
+    return Outcome::of_text(f.is_text ? e.scale(b.text(0), std::string_view(f.text)) : e.scale(b.text(0), f.number));
+}
+Outcome hf_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.species_hf(b.text(0), b.at, b.text(2)), unit_or(b.text(2), "kJ/mol"));
+}
+Outcome cp_call(Engine& e, const Bound& b) { return Outcome::of(e.species_cp(b.text(0), b.at), "J/(mol·K)"); }
+Outcome h_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.species_h(b.text(0), b.at, b.number(2, T_ref)), "kJ/mol");
+}
+Outcome molar_mass_call(Engine& e, const Bound& b) { return Outcome::of(e.molar_mass(b.text(0)), "g/mol"); }
+Outcome source_call(Engine& e, const Bound& b) { return Outcome::of_text(e.source(b.text(0), b.at)); }
+Outcome version_call(Engine&, const Bound& b) {
+    return Outcome::of_text(std::string("rxnheat ") + b.rules->host_name + " " + RXNHEAT_VERSION + "; engine " +
+                            Engine::version());
+}
+Outcome why_call(Engine& e, const Bound& b);
+
+std::vector<FunctionSpec> make_catalogue() {
+    const char* none = "";
+    return {
+        {"RXNDH", "rxnDH", "dh", "standard reaction enthalpy ΔrH° of the reaction as written",
+         "Standard reaction enthalpy ΔrH° of the reaction as written (per mole of reaction extent), at "
+         "298.15 K or the temperature given, from the built-in data (NASA Glenn, NASA/TP-2002-211556) or "
+         "your table. Negative means heat is released (exothermic). Default unit kJ/mol.",
+         {reaction_arg(), temperature_arg(),
+          {"unit", ArgKind::unit, false, "kJ/mol", energy_unit_help, false, "-u,--unit", "UNIT"},
+          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"}, table_arg()},
+         Returns::number, layer_all, none, false, dh_call},
+        {"RXNDU", "rxnDU", "du", "standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T",
+         "Standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T of the reaction as written, for "
+         "constant-volume (bomb calorimeter) work. Default unit kJ/mol. Same arguments as RXNDH.",
+         {reaction_arg(), temperature_arg(),
+          {"unit", ArgKind::unit, false, "kJ/mol", energy_unit_help, false, "-u,--unit", "UNIT"},
+          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"}, table_arg()},
+         Returns::number, layer_all, none, false, du_call},
+        {"RXNLOAD", "rxnLoad", "load", "heat load when an amount or flow of a key species reacts",
+         "Heat load: the enthalpy change when the given amount or flow of the key species reacts (or forms) by "
+         "the reaction as written. An amount gives a total (default kJ); a flow (per s, min, h, d) gives a rate "
+         "(default kW). Negative means heat is released." RXNHEAT_CAUTION,
+         {reaction_arg(),
+          {"quantity", ArgKind::number, true, "",
+           "How much of the key species reacts or forms, as a number in quantity_unit (e.g. 500).", false,
+           nullptr, "QUANTITY"},
+          {"quantity_unit", ArgKind::unit, true, "",
+           "Amount: mol, kmol, lbmol; mass: g, kg, t, lb; normal gas volume: Nm3 (0 °C, 101.325 kPa) or scf "
+           "(60 °F, 14.696 psia); or any of these per s, min, h or d for a flow, e.g. \"kg/h\".",
+           false, nullptr, "QUANTITY_UNIT"},
+          {"key", ArgKind::species, true, "", "The species of the reaction that the quantity refers to, e.g. \"CH4\".",
+           false, nullptr, "KEY"},
+          {"result_unit", ArgKind::unit, false, "kJ or kW",
+           "For a total: kJ (default), J, MJ, GJ, kWh, MWh, kcal, BTU, MMBTU, therm. For a flow: kW (default), "
+           "W, MW, kcal/h, BTU/h, MMBTU/h, TR (12,000 BTU/h).",
+           false, "-u,--unit", "UNIT"},
+          temperature_arg(), table_arg()},
+         Returns::number, layer_all, none, false, load_call},
+        {"RXNKIND", "rxnKind", "kind", "exothermic, endothermic or thermoneutral",
+         "Classifies the reaction as text: exothermic (ΔrH° < 0), endothermic (ΔrH° > 0) or thermoneutral "
+         "(|ΔrH°| within the tolerance).",
+         {reaction_arg(), temperature_arg(),
+          {"tolerance", ArgKind::number, false, "0.1 kJ/mol",
+           "Band in kJ/mol (per mole of reaction) counted as thermoneutral. Omitted, empty or blank: 0.1 kJ/mol.",
+           false, "--tolerance", "KJ"},
+          table_arg()},
+         Returns::text, layer_all, none, false, kind_call},
+        {"RXNCHECK", "rxnCheck", "check", "ok, or the first problem with a reaction in words",
+         "Checks a reaction and returns ok, or the first problem in plain words: where the text does not "
+         "parse, which element or charge does not balance, an unknown or ambiguous species, a missing phase, a "
+         "temperature outside the data. It is the same diagnosis with which RXNDH and the other numeric "
+         "functions fail (Err:502).",
+         {reaction_arg(), temperature_arg(), table_arg()}, Returns::text, layer_all, none, true, check_call},
+        {"RXNBALANCE", "rxnBalance", "balance", "the reaction with the smallest whole-number coefficients",
+         "Balances a reaction: returns its text with the smallest whole-number coefficients that balance every "
+         "element and the charge. An error if no balance exists or if more than one independent balance does.",
+         {reaction_arg(), table_arg()}, Returns::text, layer_all, none, false, balance_call},
+        {"RXNREVERSE", "rxnReverse", "reverse", "products and reactants exchanged",
+         "Returns the reaction text with products and reactants exchanged (ΔrH° changes sign).",
+         {reaction_arg()}, Returns::text, layer_all, none, false, reverse_call},
+        {"RXNSCALE", "rxnScale", "scale", "every coefficient times a factor, fractions kept",
+         "Returns the reaction text with every coefficient multiplied by the factor; exact fractions are kept "
+         "(1/2 O2). ΔrH° scales by the same factor.",
+         {reaction_arg(),
+          {"factor", ArgKind::factor, true, "", "A number, or text such as \"1/2\", \"0.5\" or \"½\".", false,
+           nullptr, "FACTOR"}},
+         Returns::text, layer_all, none, false, scale_call},
+        {"RXNWHY", "rxnWhy", "why", "ok, or in words why a call of another rxnheat function fails",
+         "Diagnoses a call of any rxnheat function: give the function's name (e.g. \"RXNLOAD\") and then that "
+         "function's arguments in order. Returns ok, or in words exactly what is wrong: the unit, the key "
+         "species, the quantity, the table, the temperature or the reaction.",
+         {{"function", ArgKind::text, true, "", "The name of an rxnheat function, e.g. \"RXNLOAD\".", false,
+           nullptr, "FUNCTION"},
+          {"arguments", ArgKind::rest, false, "",
+           "That function's arguments, in its order, exactly as in the call being diagnosed.", false, nullptr,
+           "ARGS"}},
+         Returns::text, layer_all, none, true, why_call},
+        {"SPECIESHF", "speciesHf", "hf", "standard enthalpy of formation ΔfH° of one species",
+         "Standard enthalpy of formation ΔfH° of one species, default kJ/mol at 298.15 K. At another "
+         "temperature: the enthalpy of formation from the elements in their reference states at that "
+         "temperature.",
+         {species_arg(), temperature_arg(),
+          {"unit", ArgKind::unit, false, "kJ/mol",
+           "J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of the species).", false,
+           "-u,--unit", "UNIT"},
+          table_arg()},
+         Returns::number, layer_all, none, false, hf_call},
+        {"SPECIESCP", "speciesCp", "cp", "standard molar heat capacity Cp° of one species",
+         "Standard molar heat capacity Cp° of one species at the temperature, in J/(mol·K).",
+         {species_arg(), temperature_required_arg(), table_arg()}, Returns::number, layer_all, none, false,
+         cp_call},
+        {"SPECIESH", "speciesH", "sensible", "sensible heat H°(T) − H°(Tref) of one species",
+         "Sensible heat H°(T) − H°(Tref) of one species in kJ/mol, including phase changes covered by the "
+         "data (no extrapolation outside the data's range).",
+         {species_arg(), temperature_required_arg(),
+          {"reference_temperature", ArgKind::temperature, false, "298.15 K",
+           "The reference temperature Tref, as a number in kelvin or text with a unit. Omitted, empty or blank: "
+           "298.15 K.",
+           false, "--tref", "TEMP"},
+          table_arg()},
+         Returns::number, layer_all, none, false, h_call},
+        {"MOLARMASS", "molarMass", "molarmass", "molar mass from standard atomic weights",
+         "Molar mass in g/mol from the IUPAC standard atomic weights.",
+         {{"formula", ArgKind::formula, true, "",
+           "Chemical formula, e.g. CH4, Ca(OH)2, CuSO4·5H2O (a phase is allowed and ignored), or a cell holding "
+           "it. A range gives an array of the same shape.",
+           true, nullptr, "FORMULA"}},
+         Returns::number, layer_all, none, false, molar_mass_call},
+        {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
+         "Text naming where every number used for the reaction or species came from: the data set, its record "
+         "and its publication.",
+         {{"reaction_or_species", ArgKind::reaction, true, "",
+           "A reaction or a species, as text or a cell. A range gives an array of the same shape.", true, nullptr,
+           "REACTION_OR_SPECIES"},
+          table_arg()},
+         Returns::text, layer_all, none, false, source_call},
+        {"RXNVERSION", "rxnVersion", "version", "version and data-set identity, for template audits",
+         "Version of rxnheat and identity of its data set, for template audits.", {}, Returns::text, layer_all,
+         none, false, version_call},
+    };
+}
+
+const std::vector<FunctionSpec>& table() {
+    static const std::vector<FunctionSpec> all = make_catalogue();
+    return all;
+}
+
+bool same_ascii_ignoring_case(std::string_view a, std::string_view b) {
+    if (a.size() != b.size()) return false;
+    for (std::size_t i = 0; i < a.size(); ++i) {
+        char x = a[i], y = b[i];
+        if (x >= 'a' && x <= 'z') x = static_cast<char>(x - 'a' + 'A');
+        if (y >= 'a' && y <= 'z') y = static_cast<char>(y - 'a' + 'A');
+        if (x != y) return false;
+    }
+    return true;
+}
+
+// ---- reading one value ------------------------------------------------------------------------
+
+std::string quoted(const char* name) { return std::string("'") + name + "'"; }
+
+[[noreturn]] void bad(const ArgSpec& a, const std::string& what) {
+    throw Error(ErrorKind::argument, quoted(a.name) + " " + what);
+}
+
+bool is_text_kind(ArgKind k) {
+    return k == ArgKind::reaction || k == ArgKind::species || k == ArgKind::formula || k == ArgKind::unit ||
+           k == ArgKind::text;
+}
+
+/// True when the cell means "not given" under the host's rules.
+bool blank_cell(const Cell& c, const ArgSpec& a, const HostRules& rules) {
+    switch (c.kind) {
+    case Cell::Kind::empty: return true;
+    case Cell::Kind::text: return trim(c.text).empty();
+    case Cell::Kind::number:
+        // Calc gives a blank cell as 0; a required number or factor keeps its 0.
+        return rules.zero_is_blank && c.number == 0 &&
+               !(a.required && (a.kind == ArgKind::number || a.kind == ArgKind::factor));
+    }
+    return true;
+}
+
+double strict_number(const ArgSpec& a, std::string_view text) {
+    const std::string s(text);
+    char* end = nullptr;
+    errno = 0;
+    const double v = std::strtod(s.c_str(), &end);
+    if (s.empty() || end != s.c_str() + s.size() || !std::isfinite(v))
+        bad(a, "must be a number, not '" + s + "'");
+    return v;
+}
+
+/// Reads one given (non-blank) cell into `out` by the argument's kind.
+void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::Value& out) {
+    out.given = true;
+    if (c.kind == Cell::Kind::text) {
+        const std::string_view t = trim(c.text);
+        std::size_t chars = 0;
+        for (unsigned char ch : t)
+            if ((ch & 0xC0) != 0x80) ++chars;
+        if (chars > max_input_chars)
+            throw Error(ErrorKind::too_long, quoted(a.name) + " is " + std::to_string(chars) +
+                                                 " characters long; rxnheat reads at most " +
+                                                 std::to_string(max_input_chars));
+        out.text = std::string(t);
+    }
+    const bool number = c.kind == Cell::Kind::number;
+    if (number && !std::isfinite(c.number)) bad(a, "is not a finite number");
+    switch (a.kind) {
+    case ArgKind::reaction:
+    case ArgKind::species:
+    case ArgKind::formula:
+    case ArgKind::unit:
+    case ArgKind::text:
+        if (number) bad(a, "must be text, not a number");
+        return;
+    case ArgKind::temperature:
+        out.number = number ? c.number : parse_temperature(out.text);
+        return;
+    case ArgKind::number:
+        if (!number && !rules.text_numbers) bad(a, "must be a number, not text");
+        out.number = number ? c.number : strict_number(a, out.text);
+        return;
+    case ArgKind::factor:
+        out.is_text = !number;
+        if (number) out.number = c.number;
+        return;
+    case ArgKind::table:
+    case ArgKind::rest:
+        return;  // read elsewhere
+    }
+}
+
+std::string cell_text(const Cell& c) {
+    switch (c.kind) {
+    case Cell::Kind::empty: return {};
+    case Cell::Kind::number: return exact_number(c.number);
+    case Cell::Kind::text: return c.text;
+    }
+    return {};
+}
+
+/// A species table from a range. Tables are kept by content (a small cache), since one range
+/// usually feeds many cells of a sheet.
+std::shared_ptr<const SpeciesTable> table_from_range(const Arg& arg) {
+    std::vector<std::vector<std::string>> rows(arg.rows);
+    std::string key;
+    for (std::size_t r = 0; r < arg.rows; ++r) {
+        for (std::size_t c = 0; c < arg.cols; ++c) {
+            rows[r].push_back(cell_text(arg.cells[r * arg.cols + c]));
+            key += std::to_string(rows[r].back().size()) + ":" + rows[r].back();
+        }
+        key += '\n';
+    }
+    static std::mutex mutex;
+    static std::list<std::pair<std::string, std::shared_ptr<const SpeciesTable>>> cache;
+    constexpr std::size_t cache_size = 16;
+    {
+        std::lock_guard<std::mutex> lock(mutex);
+        for (auto it = cache.begin(); it != cache.end(); ++it)
+            if (it->first == key) {
+                cache.splice(cache.begin(), cache, it);
+                return cache.front().second;
+            }
+    }
+    auto table = std::make_shared<const SpeciesTable>(SpeciesTable::from_rows(rows));
+    std::lock_guard<std::mutex> lock(mutex);
+    cache.emplace_front(std::move(key), table);
+    if (cache.size() > cache_size) cache.pop_back();
+    return table;
+}
+
+std::string shape_text(std::size_t rows, std::size_t cols) {
+    return std::to_string(rows) + "×" + std::to_string(cols);
+}
+
+/// Reads a whole (non-spreading, or spreading but given as one value) argument.
+void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound& b,
+                std::shared_ptr<const SpeciesTable>& table_holder, std::size_t i) {
+    Bound::Value& out = b.values[i];
+    if (a.kind == ArgKind::table) {
+        if (arg.kind == Arg::Kind::table) {
+            table_holder = arg.table;
+        } else if (arg.kind == Arg::Kind::range) {
+            table_holder = table_from_range(arg);
+        } else if (arg.kind == Arg::Kind::cell && !blank_cell(arg.cell, a, rules)) {
+            bad(a, "must be a cell range whose first row names the columns (formula, phase, dHf, ...)");
+        }
+        out.given = table_holder != nullptr;
+        b.at.table = table_holder.get();
+        return;
+    }
+    const Cell* cell = nullptr;
+    if (arg.kind == Arg::Kind::cell) {
+        cell = &arg.cell;
+    } else if (arg.kind == Arg::Kind::range) {
+        if (arg.rows * arg.cols != 1)
+            bad(a, "must be a single value, not a range of " + std::to_string(arg.rows * arg.cols) + " cells");
+        cell = &arg.cells.front();
+    } else if (arg.kind == Arg::Kind::table) {
+        bad(a, "must be a single value, not a species table");
+    }
+    if (!cell || blank_cell(*cell, a, rules)) {
+        if (a.required) {
+            if (is_text_kind(a.kind) && cell && cell->kind != Cell::Kind::empty)
+                bad(a, "is required but empty");
+            bad(a, a.kind == ArgKind::temperature
+                       ? "is required (a number in K, or text such as \"350 C\")"
+                       : "is required");
+        }
+        return;
+    }
+    read_cell(*cell, a, rules, out);
+}
+
+void set_temperature(const FunctionSpec& f, Bound& b) {
+    for (std::size_t i = 0; i < f.args.size(); ++i)
+        if (f.args[i].kind == ArgKind::temperature && std::string_view(f.args[i].name) == "temperature")
+            b.at.temperature_K = b.number(i, T_ref);
+}
+
+Outcome run(const FunctionSpec& f, Engine& engine, const Bound& b) {
+    try {
+        return f.call(engine, b);
+    } catch (const Error& e) {
+        return Outcome::failed(e);
+    } catch (const std::bad_alloc&) {
+        throw;
+    } catch (const std::exception& e) {
+        return Outcome::failed(Error(ErrorKind::internal, std::string("internal error: ") + e.what()));
+    }
+}
+
+Result single(Outcome o) {
+    Result r;
+    r.cells.push_back(std::move(o));
+    return r;
+}
+
+Result evaluate_kept(const FunctionSpec& f, const std::vector<Arg>& args, const HostRules& rules, Engine& engine) {
+    if (!f.variadic() && args.size() > f.args.size())
+        return single(Outcome::failed(Error(ErrorKind::argument,
+                                            std::string(f.calc_name) + " takes at most " +
+                                                std::to_string(f.args.size()) + " arguments, not " +
+                                                std::to_string(args.size()))));
+    Bound base;
+    base.values.resize(f.args.size());
+    base.all = &args;
+    base.rules = &rules;
+    std::shared_ptr<const SpeciesTable> table_holder;
+    static const Arg nothing;
+
+    // Which arguments spread: a range given where the catalogue says a range gives an array.
+    std::vector<std::size_t> spread;
+    for (std::size_t i = 0; i < f.args.size(); ++i) {
+        const ArgSpec& a = f.args[i];
+        const Arg& arg = i < args.size() ? args[i] : nothing;
+        if (a.kind == ArgKind::rest) {
+            base.rest_from = i;
+            break;
+        }
+        if (a.spreads && arg.kind == Arg::Kind::range) {
+            spread.push_back(i);
+            continue;
+        }
+        try {
+            read_whole(arg, a, rules, base, table_holder, i);
+        } catch (const Error& e) {
+            return single(Outcome::failed(e, i + 1));
+        }
+    }
+    set_temperature(f, base);
+    if (spread.empty()) return single(run(f, engine, base));
+
+    // Shape of the result: one range as it is; ranges of one shape paired cell by cell; a
+    // column (the first) with a row (the second) as the whole table.
+    const Arg& first = args[spread[0]];
+    std::size_t rows = first.rows, cols = first.cols;
+    bool table_form = false;
+    for (std::size_t k = 1; k < spread.size(); ++k) {
+        const Arg& other = args[spread[k]];
+        if (other.rows == rows && other.cols == cols) continue;
+        if (spread.size() == 2 && first.cols == 1 && other.rows == 1) {
+            table_form = true;
+            cols = other.cols;
+            continue;
+        }
+        return single(Outcome::failed(
+            Error(ErrorKind::argument,
+                  "a range of " + shape_text(first.rows, first.cols) + " cells for " + quoted(f.args[spread[0]].name) +
+                      " and one of " + shape_text(other.rows, other.cols) + " for " + quoted(f.args[spread[k]].name) +
+                      " do not combine: give ranges of one shape (paired cell by cell), or a column of the first "
+                      "with a row of the second (the whole table)"),
+            spread[k] + 1));
+    }
+
+    Result out;
+    out.rows = rows;
+    out.cols = cols;
+    out.cells.resize(rows * cols);
+    for (std::size_t r = 0; r < rows; ++r)
+        for (std::size_t c = 0; c < cols; ++c) {
+            Bound b = base;
+            Outcome& o = out.cells[r * cols + c];
+            bool blank = false;
+            try {
+                for (std::size_t k = 0; k < spread.size() && !blank; ++k) {
+                    const std::size_t i = spread[k];
+                    const Arg& arg = args[i];
+                    const std::size_t at = table_form ? (k == 0 ? r : c) : r * cols + c;
+                    const Cell& cell = arg.cells[at];
+                    if (blank_cell(cell, f.args[i], rules)) {
+                        blank = true;  // a blank cell of a range stays blank in the result
+                        break;
+                    }
+                    b.values[i] = {};
+                    read_cell(cell, f.args[i], rules, b.values[i]);
+                }
+            } catch (const Error& e) {
+                o = Outcome::failed(e);
+                continue;
+            }
+            if (blank) continue;
+            set_temperature(f, b);
+            o = run(f, engine, b);
+        }
+    return out;
+}
+
+Outcome why_call(Engine& e, const Bound& b) {
+    const std::string_view name = b.text(0);
+    const FunctionSpec* f = find_function(name);
+    if (!f) {
+        std::string list;
+        for (const auto& g : table()) list += std::string(list.empty() ? "" : ", ") + g.calc_name;
+        throw Error(ErrorKind::argument, "there is no rxnheat function '" + std::string(name) + "'; the functions are " + list);
+    }
+    std::vector<Arg> inner;
+    if (b.all && b.all->size() > b.rest_from) inner.assign(b.all->begin() + static_cast<std::ptrdiff_t>(b.rest_from), b.all->end());
+    return Outcome::of_text(why(*f, inner, *b.rules, e));
+}
+
+}  // namespace
+
+Arg Arg::range(std::size_t rows, std::size_t cols, std::vector<Cell> cells) {
+    Arg a;
+    a.kind = Kind::range;
+    a.rows = rows;
+    a.cols = cols;
+    a.cells = std::move(cells);
+    a.cells.resize(rows * cols);
+    return a;
+}
+
+Outcome Outcome::failed(const Error& e, std::size_t argument) {
+    Outcome o;
+    o.kind = Kind::error;
+    o.text = e.what();
+    o.error = e.kind();
+    o.argument = argument;
+    return o;
+}
+
+const char* to_string(ArgKind kind) noexcept {
+    switch (kind) {
+    case ArgKind::reaction: return "reaction";
+    case ArgKind::species: return "species";
+    case ArgKind::formula: return "formula";
+    case ArgKind::temperature: return "temperature";
+    case ArgKind::unit: return "unit";
+    case ArgKind::number: return "number";
+    case ArgKind::factor: return "number or fraction";
+    case ArgKind::text: return "text";
+    case ArgKind::table: return "range (species table)";
+    case ArgKind::rest: return "arguments";
+    }
+    return "value";
+}
+
+const std::vector<FunctionSpec>& catalogue() { return table(); }
+
+const FunctionSpec* find_function(std::string_view name) noexcept {
+    name = trim(name);
+    for (const auto& f : table())
+        if (same_ascii_ignoring_case(name, f.calc_name) || name == f.idl_method || name == f.cli_command) return &f;
+    return nullptr;
+}
+
+Result evaluate(const FunctionSpec& f, const std::vector<Arg>& args, const HostRules& rules, Engine& engine) {
+    Result r = evaluate_kept(f, args, rules, engine);
+    if (f.errors_as_text)
+        for (auto& o : r.cells)
+            if (o.kind == Outcome::Kind::error) o = Outcome::of_text(o.text);
+    return r;
+}
+
+std::string why(const FunctionSpec& f, const std::vector<Arg>& args, const HostRules& rules, Engine& engine) {
+    const Result r = evaluate_kept(f, args, rules, engine);
+    for (std::size_t i = 0; i < r.cells.size(); ++i) {
+        const Outcome& o = r.cells[i];
+        if (o.kind != Outcome::Kind::error) continue;
+        std::string where;
+        if (r.is_array())
+            where = "row " + std::to_string(i / r.cols + 1) + ", column " + std::to_string(i % r.cols + 1) +
+                    " of the array: ";
+        return where + o.text;
+    }
+    return "ok";
+}
+
+}  // namespace rxnheat
