@@ -127,40 +127,79 @@ std::string Composition::key() const {
 // ---------------------------------------------------------------------------------------------
 // Substance
 
+std::string charge_suffix(int charge) {
+    if (charge == 0) return {};
+    const char sign = charge > 0 ? '+' : '-';
+    const int n = charge > 0 ? charge : -charge;
+    return n == 1 ? std::string(1, sign) : "^" + std::to_string(n) + sign;
+}
+
 std::string Substance::identity() const {
-    if (user) return "user:" + user->formula + "(" + phase + ")";
-    std::string id(1, phase);
-    for (const Record* r : records) id += "|" + r->name;
+    if (user) return "user:" + user->formula + charge_suffix(composition.charge) + "(" + phase + ")";
+    std::string id(1, phase_assumed ? '?' : phase);
+    for (const Record* r : phase_assumed ? candidates : records) id += "|" + r->name;
     return id;
 }
 
 namespace {
 
-const Record& record_at(const Substance& s, double T) {
-    if (!std::isfinite(T) || T <= 0)
-        throw Error(ErrorKind::argument, "temperature must be a positive number of kelvin");
-    for (const Record* r : s.records)
-        if (covers(*r, T)) return *r;
-    std::string msg = s.display + ": the data cover " + s.range_text() + "; " + number_text(T) +
-                      " K is outside them (rxnheat never extrapolates)";
-    if (s.phase_assumed)
-        msg += ". No phase was written, so the phase stable at 298.15 K was taken; write the phase, e.g. " +
-               s.display.substr(0, s.display.size() - 3) + (s.phase == 'g' ? "(l)" : "(g)");
-    throw Error(ErrorKind::out_of_range, msg);
+double gibbs(const Record& r, double T) {
+    const Interval& iv = interval_at(r, T);
+    return R_nasa * T * (h_over_RT(iv, T) - s_over_R(iv, T));
 }
 
-void need_polynomial(const Substance& s, const Record& r, const char* what) {
+/// Lowest G° at T among the records that cover T with polynomials; nullptr if none does.
+const Record* stable_among(const std::vector<const Record*>& records, double T) {
+    const Record* best = nullptr;
+    double best_G = std::numeric_limits<double>::infinity();
+    for (const Record* r : records) {
+        if (r->intervals.empty() || !covers(*r, T)) continue;
+        const double G = gibbs(*r, T);
+        if (G < best_G) {
+            best_G = G;
+            best = r;
+        }
+    }
+    return best;
+}
+
+void need_polynomial(const Substance& s, const Record& r, double T, const char* what) {
     if (r.intervals.empty())
-        throw Error(ErrorKind::out_of_range, s.display + ": the NASA Glenn record '" + r.name +
+        throw Error(ErrorKind::out_of_range, s.display_at(T) + ": the NASA Glenn record '" + r.name +
                                                  "' gives only the enthalpy at " + number_text(r.t_single) +
                                                  " K, no " + what);
 }
 
 }  // namespace
 
+const Record& Substance::record_at(double T) const {
+    if (!std::isfinite(T) || T <= 0)
+        throw Error(ErrorKind::argument, "temperature must be a positive number of kelvin");
+    if (phase_assumed) {
+        if (const Record* r = stable_among(candidates, T)) return *r;
+        throw Error(ErrorKind::out_of_range,
+                    label + ": no phase was written, and none of its data covers " + number_text(T) +
+                        " K (the data cover " + range_text() + "; rxnheat never extrapolates)");
+    }
+    for (const Record* r : records)
+        if (covers(*r, T)) return *r;
+    throw Error(ErrorKind::out_of_range, display + ": the data cover " + range_text() + "; " + number_text(T) +
+                                             " K is outside them (rxnheat never extrapolates)");
+}
+
+char Substance::phase_at(double T) const {
+    if (user || !phase_assumed) return phase;
+    return phase_char(record_at(T).phase);
+}
+
+std::string Substance::display_at(double T) const {
+    if (user || !phase_assumed) return display;
+    return label + "(" + std::string(1, phase_at(T)) + ")";
+}
+
 double Substance::H(double T) const {
     if (user) return user->H(T, display);
-    const Record& r = record_at(*this, T);
+    const Record& r = record_at(T);
     // At 298.15 K itself the tabulated ΔfH° is used (the polynomial reproduces it to within
     // 1 J/mol, but reference elements should give exactly zero).
     if (r.intervals.empty() || std::fabs(T - T_ref) < 1e-9) return r.h298;
@@ -169,22 +208,22 @@ double Substance::H(double T) const {
 
 double Substance::S(double T) const {
     if (user) return user->S(T, display);
-    const Record& r = record_at(*this, T);
-    need_polynomial(*this, r, "entropy");
+    const Record& r = record_at(T);
+    need_polynomial(*this, r, T, "entropy");
     return s_over_R(interval_at(r, T), T) * R_nasa;
 }
 
 double Substance::Cp(double T) const {
     if (user) return user->Cp(T, display);
-    const Record& r = record_at(*this, T);
-    need_polynomial(*this, r, "heat capacity");
+    const Record& r = record_at(T);
+    need_polynomial(*this, r, T, "heat capacity");
     return cp_over_R(interval_at(r, T), T) * R_nasa;
 }
 
 std::string Substance::range_text() const {
     if (user) return user->range_text();
     std::string out;
-    for (const Record* r : records) {
+    for (const Record* r : phase_assumed ? candidates : records) {
         if (!out.empty()) out += ", ";
         if (r->intervals.empty())
             out += number_text(r->t_single) + " K only";
@@ -195,17 +234,40 @@ std::string Substance::range_text() const {
     return out;
 }
 
-std::string Substance::source() const {
+std::string Substance::source(double T) const {
     if (user) return display + ": user species table row " + std::to_string(user->row) +
                      (user->source.empty() ? "" : " (" + user->source + ")");
-    std::string out = display + ": NASA Glenn record";
-    out += records.size() > 1 ? "s " : " ";
-    for (std::size_t i = 0; i < records.size(); ++i) {
-        const Record* r = records[i];
+    // The records of the phase used at T (all of them: polymorphs and continued records).
+    std::vector<const Record*> used = records;
+    std::string out = display_at(T);
+    if (phase_assumed) {
+        const char p = phase_at(T);
+        used.clear();
+        for (const Record* r : candidates)
+            if (phase_char(r->phase) == p) used.push_back(r);
+    }
+    out += ": NASA Glenn record";
+    out += used.size() > 1 ? "s " : " ";
+    for (std::size_t i = 0; i < used.size(); ++i) {
+        const Record* r = used[i];
         if (i) out += "; ";
         out += "'" + r->name + "' [" + r->date_code + "] " + r->comment;
     }
     out += " — McBride, Zehe & Gordon, NASA/TP-2002-211556";
+    if (phase_assumed)
+        out += ". No phase was written: the " + std::string(phase_word(phase_at(T))) + " is the phase of lowest G° at " +
+               number_text(T) + " K and 1 bar";
+    if (!phase_assumed && phase == 'l' && !vapour.empty()) {
+        // A written liquid where the gas is the stable phase at 1 bar: allowed (a pressurised
+        // liquid), but said.
+        const Record* gas = stable_among(vapour, T);
+        const Record* liquid = nullptr;
+        for (const Record* r : records)
+            if (!r->intervals.empty() && covers(*r, T)) liquid = r;
+        if (gas && liquid && gibbs(*gas, T) < gibbs(*liquid, T))
+            out += ". Note: the liquid is used at " + number_text(T) +
+                   " K, above its 1-bar boiling point (a pressurised liquid; write (g) for the vapour)";
+    }
     return out;
 }
 
@@ -327,19 +389,35 @@ std::string Database::describe(const Record* r) const {
     return r->name;
 }
 
-Substance Database::resolve(const grammar::Species& sp, const SpeciesTable* table) const {
-    const std::string shown = sp.is_name ? sp.name : sp.formula;
+Substance Database::resolve(const grammar::Species& written, const SpeciesTable* table) const {
+    // A charged species written without a phase is an ion in water, as chemists mean it; a
+    // gas-phase ion needs (g) written.
+    grammar::Species sp_aq;
+    const bool charged_unphased = written.phase.empty() && written.charge != 0;
+    if (charged_unphased) {
+        sp_aq = written;
+        sp_aq.phase = "aq";
+    }
+    const grammar::Species& sp = charged_unphased ? sp_aq : written;
+    const std::string shown = sp.is_name ? sp.name : sp.formula + charge_suffix(sp.charge);
     if (table && table->impl()) {
         if (auto user = find_user_species(*table->impl(), sp)) {
             Substance s;
             s.user = user;
             s.phase = user->phase;
+            s.label = shown;
             s.display = shown + "(" + (s.phase == 'a' ? std::string("aq") : std::string(1, s.phase)) + ")";
             s.composition = composition(user->parsed);
             s.molar_mass = molar_mass(s.composition);
             return s;
         }
     }
+    if (charged_unphased)
+        throw Error(ErrorKind::unknown_species,
+                    written.written + ": a charged species written without a phase is taken as aqueous (aq); "
+                                      "the built-in data of this version have no aqueous species, so give it in a "
+                                      "user species table (formula, phase aq, dHf), or write (g) for the gas-phase "
+                                      "ion");
     if (sp.phase == "aq")
         throw Error(ErrorKind::unknown_species,
                     sp.written + ": the built-in data of this version have no aqueous (aq) species; "
@@ -381,7 +459,14 @@ Substance Database::resolve(const grammar::Species& sp, const SpeciesTable* tabl
     for (const Record* r : found)
         if (lower(base_and_tag(*r).first) == lower(sp.formula)) named.push_back(r);
     if (!named.empty()) found = std::move(named);
-    return resolve_records(sp, std::move(found), shown, &comp);
+    Substance s = resolve_records(sp, std::move(found), shown, &comp);
+    if (s.phase == 'l') {
+        // The gas records of the same substance (same name base), for the note in source().
+        const std::string base = lower(base_and_tag(*s.records.front()).first);
+        for (const Record* r : it->second)
+            if (r->phase == PhaseKind::gas && lower(base_and_tag(*r).first) == base) s.vapour.push_back(r);
+    }
+    return s;
 }
 
 Substance Database::resolve_records(const grammar::Species& sp, std::vector<const Record*> found,
@@ -414,32 +499,31 @@ Substance Database::resolve_records(const grammar::Species& sp, std::vector<cons
                         (sp.phase.empty() ? "" : "(" + sp.phase + ")"));
     }
     auto& recs = groups.front().records;
+    std::sort(recs.begin(), recs.end(), [](const Record* a, const Record* b) { return a->tmin() < b->tmin(); });
+    Substance s;
+    s.label = shown;
     char phase = 0;
     if (!sp.phase.empty()) {
         phase = sp.phase[0];
     } else {
-        // No phase written: the phase stable at 298.15 K and 1 bar, i.e. the lowest G° there.
-        double best = std::numeric_limits<double>::infinity();
-        for (const Record* r : recs) {
-            if (r->intervals.empty() || !covers(*r, T_ref)) continue;
-            const Interval& iv = interval_at(*r, T_ref);
-            const double G = R_nasa * T_ref * (h_over_RT(iv, T_ref) - s_over_R(iv, T_ref));
-            if (G < best) {
-                best = G;
-                phase = phase_char(r->phase);
-            }
-        }
-        if (!phase)
-            throw Error(ErrorKind::phase, sp.written + ": write its phase, (g), (l) or (s); no data at 298.15 K "
-                                                       "tell which phase is stable");
+        // No phase written: the phase stable at the evaluation temperature and 1 bar (lowest G°
+        // among the substance's records that cover it), chosen at each evaluation. `phase` and
+        // `records` name the phase at 298.15 K where one covers it, for labels without a T.
+        s.phase_assumed = true;
+        s.candidates = recs;
+        const Record* at_ref = stable_among(recs, T_ref);
+        if (!at_ref)
+            for (const Record* r : recs)
+                if (!r->intervals.empty()) at_ref = r;
+        if (!at_ref)
+            throw Error(ErrorKind::phase, sp.written + ": write its phase, (g), (l) or (s); its data give no "
+                                                       "heat capacities that tell which phase is stable");
+        phase = phase_char(at_ref->phase);
     }
-    Substance s;
     s.phase = phase;
-    s.phase_assumed = sp.phase.empty();
     s.display = shown + "(" + std::string(1, phase) + ")";
     for (const Record* r : recs)
         if (phase_char(r->phase) == phase) s.records.push_back(r);
-    std::sort(s.records.begin(), s.records.end(), [](const Record* a, const Record* b) { return a->tmin() < b->tmin(); });
     s.composition = comp ? *comp : composition_of(*s.records.front());
     s.molar_mass = molar_mass(s.composition);
     return s;

@@ -30,22 +30,38 @@ struct UserSpecies;  // usertable.hpp
 /// A species in a reaction, resolved to its data: one phase, one or more records (several
 /// only for solid polymorphs, picked by temperature), or a user-table row.
 struct Substance {
-    std::string display;          ///< "CH4(g)": formula or name as written + the resolved phase
-    char phase = 'g';             ///< 'g', 'l', 's' or 'a' (aqueous)
-    bool phase_assumed = false;   ///< no phase written: the stable one at 298.15 K was taken
+    std::string label;            ///< formula (with its charge: "H+", "SO4^2-") or name as written
+    std::string display;          ///< label + the phase at 298.15 K (or the written phase): "CH4(g)"
+    char phase = 'g';             ///< 'g', 'l', 's' or 'a' (aqueous); the written phase, or the
+                                  ///< phase at 298.15 K when none was written (see phase_at())
+    bool phase_assumed = false;   ///< no phase written: the phase stable at each T is used
     Composition composition;
     double molar_mass = 0;        ///< g/mol from standard atomic weights
-    std::vector<const Record*> records;  ///< sorted by temperature
+    std::vector<const Record*> records;  ///< of `phase`, sorted by temperature
+    /// phase_assumed: every record of the substance, any phase; the one of lowest G° at T is used.
+    std::vector<const Record*> candidates;
+    /// A written liquid: the substance's gas records, to say when the liquid is taken above its
+    /// 1-bar boiling point (a pressurised liquid).
+    std::vector<const Record*> vapour;
     std::shared_ptr<const UserSpecies> user;  ///< set instead of records for a user-table row
     std::string identity() const; ///< equal for the same data (used to net and match species)
+
+    /// The record used at T: the stable one (lowest G°) when no phase was written, else the
+    /// record of the written phase whose range holds T. Throws Error(out_of_range) otherwise.
+    const Record& record_at(double T) const;
+    char phase_at(double T) const;           ///< the phase used at T
+    std::string display_at(double T) const;  ///< label + the phase used at T
 
     /// Thermodynamic functions at T (throw Error(out_of_range) outside the data, never extrapolate).
     double H(double T) const;     ///< assigned enthalpy, J/mol (= ΔfH° at 298.15 K)
     double S(double T) const;     ///< J/(mol·K)
     double Cp(double T) const;    ///< J/(mol·K)
     std::string range_text() const;
-    std::string source() const;   ///< one citation line
+    std::string source(double T = 298.15) const;  ///< one citation line, for the phase used at T
 };
+
+/// Charge as written in labels: "+", "-", "^2+", "^3-"; empty for 0.
+std::string charge_suffix(int charge);
 
 class Database {
 public:

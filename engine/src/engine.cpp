@@ -66,11 +66,11 @@ Substance resolve_one(std::string_view text, const SpeciesTable* table) {
 
 /// Value per mole of extent -> per mole (or mass) of the `per` species, in `unit`.
 double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view unit, std::string_view per,
-                          const SpeciesTable* table) {
+                          const SpeciesTable* table, double T) {
     if (per.empty()) return detail::from_J_per_mol(J_per_mol, unit);
     const auto key = parse_one_species(per, "the 'per' species");
     std::size_t idx = 0;
-    const Rational nu = p.key_coefficient(key, table, &idx);
+    const Rational nu = p.key_coefficient(key, table, T, &idx);
     const double n = std::fabs(detail::to_double(nu));
     return detail::from_J_per_mol(J_per_mol / n, unit, p.substances[idx].molar_mass);
 }
@@ -152,15 +152,15 @@ double formation_enthalpy(const Substance& s, double T) {
 double Engine::dh(std::string_view reaction, const Conditions& at, std::string_view unit, std::string_view per) {
     check_temperature(at.temperature_K);
     const auto p = impl_->prepare(reaction, at.table);
-    return per_extent_in_unit(*p, p->dH(at.temperature_K), unit, per, at.table);
+    return per_extent_in_unit(*p, p->dH(at.temperature_K), unit, per, at.table, at.temperature_K);
 }
 
 double Engine::du(std::string_view reaction, const Conditions& at, std::string_view unit, std::string_view per) {
     check_temperature(at.temperature_K);
     const auto p = impl_->prepare(reaction, at.table);
     const double T = at.temperature_K;
-    const double dU = p->dH(T) - p->dn_gas() * detail::R * T;
-    return per_extent_in_unit(*p, dU, unit, per, at.table);
+    const double dU = p->dH(T) - p->dn_gas(T) * detail::R * T;
+    return per_extent_in_unit(*p, dU, unit, per, at.table, T);
 }
 
 double Engine::load(std::string_view reaction, double quantity, std::string_view quantity_unit,
@@ -174,7 +174,7 @@ double Engine::load(std::string_view reaction, double quantity, std::string_view
     if (key.empty()) throw Error(ErrorKind::argument, "name the key species whose quantity is given");
     const auto sp = parse_one_species(key, "the key species");
     std::size_t idx = 0;
-    const double nu = std::fabs(detail::to_double(p->key_coefficient(sp, at.table, &idx)));
+    const double nu = std::fabs(detail::to_double(p->key_coefficient(sp, at.table, at.temperature_K, &idx)));
     const auto qu = detail::quantity_unit(quantity_unit);
     const double mol = detail::quantity_to_mol(quantity, quantity_unit, p->substances[idx].molar_mass);
     return detail::load_result(dH * mol / nu, result_unit, qu.is_rate(), quantity_unit);
@@ -246,15 +246,14 @@ ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {
     r.temperature_K = T;
     const double dH = p->dH(T);
     r.dH_kJ_per_mol = dH / 1000.0;
-    r.dn_gas = p->dn_gas();
+    r.dn_gas = p->dn_gas(T);
     r.dU_kJ_per_mol = (dH - r.dn_gas * detail::R * T) / 1000.0;
-    r.canonical = p->canonical();
+    r.canonical = p->canonical(T);
     r.kind = kind_of(r.dH_kJ_per_mol, default_tolerance_kJ_per_mol);
     std::set<std::string> seen;
     for (const auto& s : p->substances) {
         if (!seen.insert(s.identity()).second) continue;
-        r.sources.push_back({s.display, s.records.empty() ? std::string("user table") : s.records.front()->name,
-                             s.source()});
+        r.sources.push_back({s.display_at(T), s.user ? std::string("user table") : s.record_at(T).name, s.source(T)});
     }
     return r;
 }
@@ -287,33 +286,31 @@ SpeciesReport Engine::species_report(std::string_view species, const Conditions&
     check_temperature(T);
     const Substance s = resolve_one(species, at.table);
     SpeciesReport r;
-    r.species = s.display;
-    r.record = s.records.empty() ? "user table" : s.records.front()->name;
+    r.species = s.display_at(T);
     r.temperature_K = T;
-    const double H = s.H(T);
-    double H298 = 0;
-    try {
-        H298 = s.H(T_ref);
-    } catch (const Error& e) {
-        // A phase whose data do not reach 298.15 K (ice, gamma iron): the data record's own
-        // assigned enthalpy at 298.15 K, which NASA Glenn tabulates for every record.
-        if (e.kind() != ErrorKind::out_of_range || s.records.empty()) throw;
-        for (const auto* rec : s.records)
-            if (rec->tmin() <= T + 1e-6 && T <= rec->tmax() + 1e-6) H298 = rec->h298;
+    r.molar_mass_g_per_mol = s.molar_mass;
+    r.source = s.source(T);
+    if (s.user) {
+        r.record = "user table";
+        r.dHf_kJ_per_mol = s.H(T_ref) / 1000.0;
+    } else {
+        const detail::Record& rec = s.record_at(T);
+        r.record = rec.name;
+        if (!rec.intervals.empty()) {
+            r.tmin_K = rec.tmin();
+            r.tmax_K = rec.tmax();
+        }
+        // ΔfH° at 298.15 K as the record tabulates it (also for a phase whose data do not reach
+        // 298.15 K, such as ice or gamma iron, and for a record that gives only that value).
+        r.dHf_kJ_per_mol = rec.h298 / 1000.0;
+        if (rec.intervals.empty()) return r;  // no heat capacity in the data: nothing more to say
     }
-    r.dHf_kJ_per_mol = H298 / 1000.0;
+    r.has_heat_capacity = true;
+    const double H = s.H(T);
     r.H_kJ_per_mol = H / 1000.0;
-    r.dH_sensible_kJ_per_mol = (H - H298) / 1000.0;
+    r.dH_sensible_kJ_per_mol = H / 1000.0 - r.dHf_kJ_per_mol;
     r.Cp_J_per_molK = s.Cp(T);
     r.S_J_per_molK = s.S(T);
-    r.molar_mass_g_per_mol = s.molar_mass;
-    for (const auto* rec : s.records)
-        if (rec->tmin() <= T + 1e-6 && T <= rec->tmax() + 1e-6) {
-            r.record = rec->name;
-            r.tmin_K = rec->tmin();
-            r.tmax_K = rec->tmax();
-        }
-    r.source = s.source();
     return r;
 }
 
@@ -331,9 +328,9 @@ std::string Engine::source(std::string_view text, const Conditions& at) {
         p->require_thermo();
         std::set<std::string> seen;
         for (const auto& s : p->substances)
-            if (seen.insert(s.identity()).second) out += s.source() + "\n";
+            if (seen.insert(s.identity()).second) out += s.source(at.temperature_K) + "\n";
     } else {
-        out += resolve_one(text, table).source() + "\n";
+        out += resolve_one(text, table).source(at.temperature_K) + "\n";
     }
     out += "Molar masses: standard atomic weights, data/elements.csv. " + Database::get().identity() + ".";
     return out;

@@ -22,12 +22,12 @@ namespace {
 Error from_parse_error(const grammar::ParseError& e) { return Error(ErrorKind::syntax, e.what()); }
 
 std::string side_text(const std::vector<grammar::Term>& terms, const std::vector<Rational>& coefs,
-                      bool use_resolved, const std::vector<Substance>* subs, std::size_t offset) {
+                      const std::vector<Substance>* resolved, std::size_t offset, double T) {
     std::string out;
     for (std::size_t i = 0; i < terms.size(); ++i) {
         if (i) out += " + ";
         if (coefs[i] != 1) out += rational_text(coefs[i]) + " ";
-        out += use_resolved ? (*subs)[offset + i].display : terms[i].species.written;
+        out += resolved ? (*resolved)[offset + i].display_at(T) : terms[i].species.written;
     }
     return out;
 }
@@ -108,24 +108,24 @@ double Prepared::dS(double T) const {
     return s;
 }
 
-double Prepared::dn_gas() const {
+double Prepared::dn_gas(double T) const {
     require_thermo();
     double n = 0;
     for (std::size_t i = 0; i < terms.size(); ++i)
-        if (substances[i].phase == 'g') n += to_double(nu[i]);
+        if (substances[i].phase_at(T) == 'g') n += to_double(nu[i]);
     return n;
 }
 
-std::string Prepared::canonical() const {
+std::string Prepared::canonical(double T) const {
     require_thermo();
     std::vector<Rational> l, r;
     for (const auto& t : ast.reactants) l.push_back(t.coefficient);
     for (const auto& t : ast.products) r.push_back(t.coefficient);
-    return side_text(ast.reactants, l, true, &substances, 0) + " -> " +
-           side_text(ast.products, r, true, &substances, ast.reactants.size());
+    return side_text(ast.reactants, l, &substances, 0, T) + " -> " +
+           side_text(ast.products, r, &substances, ast.reactants.size(), T);
 }
 
-Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTable* table,
+Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
                                    std::size_t* term_index) const {
     require_thermo();
     const Database& db = Database::get();
@@ -137,10 +137,11 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     bool found = false;
     for (std::size_t i = 0; i < terms.size(); ++i) {
         if (composition_keys[i] != want_key) continue;
-        if (want_phase && substances[i].phase != want_phase) continue;
+        if (want_phase && substances[i].phase_at(T) != want_phase) continue;
         if (found && substances[i].identity() != identity)
             throw Error(ErrorKind::argument, "'" + key.written + "' fits more than one species of the reaction (" +
-                                                 substances[*term_index].display + ", " + substances[i].display +
+                                                 substances[*term_index].display_at(T) + ", " +
+                                                 substances[i].display_at(T) +
                                                  "); write its phase");
         if (!found) {
             identity = substances[i].identity();
@@ -158,8 +159,8 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
 
 std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
                           const std::vector<Rational>& product_coefs) {
-    return side_text(r.reactants, reactant_coefs, false, nullptr, 0) + " " + r.arrow + " " +
-           side_text(r.products, product_coefs, false, nullptr, 0);
+    return side_text(r.reactants, reactant_coefs, nullptr, 0, T_ref) + " " + r.arrow + " " +
+           side_text(r.products, product_coefs, nullptr, 0, T_ref);
 }
 
 std::string balanced_text(const Prepared& prepared) {

@@ -34,11 +34,12 @@ struct Prepared {
 
     double dH(double T) const;                ///< J/mol of extent
     double dS(double T) const;                ///< J/(mol·K)
-    double dn_gas() const;                    ///< products minus reactants, gas species
-    std::string canonical() const;            ///< with resolved phases, "->"
+    double dn_gas(double T) const;            ///< products minus reactants, species that are gas at T
+    std::string canonical(double T) const;    ///< with the phases used at T, "->"
     /// Net signed coefficient of the species `key` in the reaction (matched by composition,
     /// and by phase when `key` has one). Throws when absent, netted to zero or ambiguous.
-    Rational key_coefficient(const grammar::Species& key, const SpeciesTable* table, std::size_t* term_index) const;
+    Rational key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
+                             std::size_t* term_index) const;
 };
 
 /// Prepared reactions by (table fingerprint, exact text), least recently used first out. Owned
