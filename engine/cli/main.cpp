@@ -1,9 +1,9 @@
 // rxnheat: the command line over the rxnheat engine (SPEC section 5). Thin: every number and
 // every diagnosis comes from rxnheat::Engine; this file parses arguments, formats results as
 // text or JSON, and streams the batch CSV. See CLI.md for the user's description.
-#include "csv.hpp"
 #include "format.hpp"
 
+#include "rxnheat/csv.hpp"
 #include "rxnheat/rxnheat.hpp"
 
 #include <algorithm>
@@ -396,8 +396,8 @@ void compute_chunk(std::vector<BatchRow>& rows, unsigned threads, rxnheat::Engin
 
 std::string batch_row_csv(const BatchRow& r) {
     std::string out;
-    rxncli::csv::append_row(out, {std::to_string(r.line), r.reaction, r.has_T ? exact_number(r.T) : "",
-                                  r.error.empty() ? exact_number(r.value) : "", r.unit, r.kind, r.error});
+    rxnheat::csv::append_row(out, {std::to_string(r.line), r.reaction, r.has_T ? exact_number(r.T) : "",
+                                   r.error.empty() ? exact_number(r.value) : "", r.unit, r.kind, r.error});
     return out;
 }
 
@@ -441,8 +441,8 @@ int run_batch(Context& c) {
     }
     const std::string default_unit = a.unit.value_or("kJ/mol");
 
-    rxncli::csv::Reader reader(in);
-    rxncli::csv::Record rec;
+    rxnheat::csv::Reader reader(in);
+    rxnheat::csv::Record rec;
     bool first_record = true;
     std::size_t total = 0, failed = 0;
     bool internal = false;

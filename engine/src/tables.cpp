@@ -1,9 +1,12 @@
 // Readers for the small CSV tables data/elements.csv and data/aliases.csv.
 //
-// CSV as written here: one row per line, fields separated by ',', a field may be wrapped in
-// double quotes (then it may hold ',' and '""' stands for one '"'); a line whose first non-blank
-// character is '#' is a comment; blank lines are skipped; the first other line is the header.
+// The CSV itself is read by rxnheat::csv::Reader (rules in include/rxnheat/csv.hpp), with two
+// additions for tables we write ourselves: a line whose first non-blank character is '#' is a
+// comment, and a '"' inside an unquoted field is an error (it can only be a typo). Cells are
+// trimmed of blanks; blank lines are skipped; the first other line is the header.
 #include "tables.hpp"
+
+#include "rxnheat/csv.hpp"
 
 #include <algorithm>
 #include <cctype>
@@ -39,49 +42,6 @@ std::string_view trim(std::string_view s) {
     return s;
 }
 
-std::vector<std::string> split_csv_line(std::string_view l, std::size_t number, const CsvError& fail) {
-    std::vector<std::string> fields;
-    std::size_t i = 0;
-    while (true) {
-        while (i < l.size() && (l[i] == ' ' || l[i] == '\t')) ++i;
-        std::string field;
-        if (i < l.size() && l[i] == '"') {
-            ++i;
-            bool closed = false;
-            while (i < l.size()) {
-                if (l[i] == '"') {
-                    if (i + 1 < l.size() && l[i + 1] == '"') {
-                        field += '"';
-                        i += 2;
-                        continue;
-                    }
-                    ++i;
-                    closed = true;
-                    break;
-                }
-                field += l[i++];
-            }
-            if (!closed) fail(number, "a quoted field is not closed (missing '\"')");
-            while (i < l.size() && (l[i] == ' ' || l[i] == '\t')) ++i;
-            if (i < l.size() && l[i] != ',')
-                fail(number, "unexpected text after the closing quote of field " + std::to_string(fields.size() + 1));
-        } else {
-            std::size_t end = l.find(',', i);
-            if (end == std::string_view::npos) end = l.size();
-            std::string_view raw = trim(l.substr(i, end - i));
-            if (raw.find('"') != std::string_view::npos)
-                fail(number, "a '\"' inside the unquoted field " + std::to_string(fields.size() + 1) +
-                                 " (quote the whole field and write \"\" for a quote)");
-            field = std::string(raw);
-            i = end;
-        }
-        fields.push_back(std::move(field));
-        if (i >= l.size()) break;
-        ++i;  // the ','
-    }
-    return fields;
-}
-
 /// The header and the data rows of a CSV text.
 struct Csv {
     CsvRow header;
@@ -89,28 +49,27 @@ struct Csv {
 };
 
 Csv read_csv(std::string_view text, const CsvError& fail) {
-    Csv csv;
+    csv::Options options;
+    options.comment = '#';
+    options.strict_quotes = true;
+    csv::Reader reader(text, options);
+    csv::Record rec;
+    Csv out;
     bool have_header = false;
-    std::size_t pos = 0, number = 0;
-    while (pos < text.size()) {
-        ++number;
-        std::size_t end = text.find('\n', pos);
-        if (end == std::string_view::npos) end = text.size();
-        std::string_view l = text.substr(pos, end - pos);
-        pos = end + 1;
-        if (!l.empty() && l.back() == '\r') l.remove_suffix(1);
-        std::string_view t = trim(l);
-        if (t.empty() || t.front() == '#') continue;
-        CsvRow row{number, split_csv_line(l, number, fail)};
+    while (reader.next(rec)) {
+        if (!rec.error.empty()) fail(rec.line, rec.error);
+        for (std::string& cell : rec.cells) cell = std::string(trim(cell));
+        if (rec.cells.size() == 1 && rec.cells[0].empty()) continue;  // a blank line
+        CsvRow row{rec.line, std::move(rec.cells)};
         if (!have_header) {
-            csv.header = std::move(row);
+            out.header = std::move(row);
             have_header = true;
         } else {
-            csv.rows.push_back(std::move(row));
+            out.rows.push_back(std::move(row));
         }
     }
-    if (!have_header) fail(number + 1, "no header row");
-    return csv;
+    if (!have_header) fail(reader.line(), "no header row");
+    return out;
 }
 
 /// Column index of each required name in the header; an unknown or repeated column is an error.

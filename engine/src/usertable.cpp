@@ -3,11 +3,15 @@
 
 #include "database.hpp"
 
+#include "rxnheat/csv.hpp"
+
+#include <cerrno>
 #include <charconv>
 #include <cmath>
 #include <cstdio>
-#include <fstream>
-#include <sstream>
+#include <cstring>
+
+#include <sys/stat.h>
 
 namespace rxnheat {
 
@@ -159,29 +163,35 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
 }
 
 SpeciesTable SpeciesTable::from_csv_file(const std::string& path) {
-    std::ifstream in(path, std::ios::binary);
-    if (!in) throw Error(ErrorKind::table, "cannot read the species table file '" + path + "'");
+    const std::string what = "the species table file '" + path + "'";
+    std::FILE* f = std::fopen(path.c_str(), "rb");
+    if (!f) throw Error(ErrorKind::table, "cannot read " + what + ": " + std::strerror(errno));
+    struct Closer {
+        std::FILE* f;
+        ~Closer() { std::fclose(f); }
+    } closer{f};
+    // fopen opens a directory for reading on Linux; say what it is rather than a read error.
+    struct stat st;
+    if (::fstat(fileno(f), &st) == 0 && S_ISDIR(st.st_mode))
+        throw Error(ErrorKind::table, "cannot read " + what + ": it is a directory, not a file");
+
+    // A '"' inside an unquoted cell is an error: spreadsheets quote such cells, so a stray one is
+    // a typo, and reading on would give a formula or number that is not what was meant.
+    csv::Options options;
+    options.strict_quotes = true;
+    csv::Reader reader(f, options);
+    csv::Record rec;
     std::vector<std::vector<std::string>> rows;
-    std::string line;
-    while (std::getline(in, line)) {
-        if (!line.empty() && line.back() == '\r') line.pop_back();
-        std::vector<std::string> cells;
-        std::string cur;
-        bool quoted = false;
-        for (std::size_t i = 0; i < line.size(); ++i) {
-            const char c = line[i];
-            if (quoted) {
-                if (c == '"' && i + 1 < line.size() && line[i + 1] == '"') cur += '"', ++i;
-                else if (c == '"') quoted = false;
-                else cur += c;
-            } else if (c == '"') quoted = true;
-            else if (c == ',') cells.push_back(cur), cur.clear();
-            else cur += c;
-        }
-        cells.push_back(cur);
-        rows.push_back(std::move(cells));
+    while (reader.next(rec)) {
+        if (reader.read_error()) break;  // reported below, for the whole file
+        // Rows are numbered as from_rows numbers them (the header is row 1), which is what a
+        // spreadsheet shows; the reader's words name the line where that differs.
+        if (!rec.error.empty()) table_error(rows.size() + 1, "", rec.error);
+        rows.push_back(std::move(rec.cells));
         if (rows.size() > 100000) throw Error(ErrorKind::table, "species table '" + path + "' has over 100000 rows");
     }
+    if (reader.read_error())
+        throw Error(ErrorKind::table, "cannot read " + what + ": " + std::strerror(reader.read_error()));
     return from_rows(rows);
 }
 

@@ -379,6 +379,20 @@ printf 'formula,phase,dHf\nH2O,l,lots\n' >"$TMP/badtable.csv"
 run dh "H2(g) + 1/2 O2(g) -> H2O(l)" --table "$TMP/badtable.csv" --json
 expect_rc "malformed table" 2
 jcheck "malformed table names row and column" 'j["error_kind"] == "table" and "2" in j["error"] and "dHf" in j["error"]'
+# A table saved as "CSV UTF-8" by a spreadsheet starts with a UTF-8 byte-order mark (EF BB BF)
+# and may end its lines with CRLF; a quoted cell may hold a comma. Same invented row as above.
+printf '\xef\xbb\xbfformula,phase,dHf,source\r\nH2O,l,-280.0,"test table, saved with a mark"\r\n' >"$TMP/bomtable.csv"
+run dh "H2(g) + 1/2 O2(g) -> H2O(l)" --table "$TMP/bomtable.csv" --json
+expect_rc "--table with a byte-order mark" 0
+jcheck "--table with a byte-order mark: its row is used" 'abs(j["value"] + 280.0) < 1e-6 and any(s["record"] == "user table" for s in j["sources"])'
+run dh "H2(g) + 1/2 O2(g) -> H2O(l)" --table "$TMP/bomtable.csv"
+expect_rc "--table with a byte-order mark (text)" 0
+expect_out_re "--table with a byte-order mark (text): the table's value" '^-280 kJ/mol'
+bad "--table on a directory" table "directory" dh "$METHANE" --table "$TMP"
+printf 'formula,phase,dHf,name\nH2O,l,-280.0,"water\n' >"$TMP/unclosedtable.csv"
+bad "--table with an unclosed quote" table 'row 2: .*starts on line 2 is not closed' dh "$METHANE" --table "$TMP/unclosedtable.csv"
+printf 'formula,phase,dHf\nH2O,l,-28"0.0\n' >"$TMP/quotetable.csv"
+bad "--table with a stray quote" table 'row 2: .*unquoted field \(cell 3\)' dh "$METHANE" --table "$TMP/quotetable.csv"
 
 # ==== batch ===============================================================================================
 {

@@ -3,8 +3,12 @@
 
 #include "rxnheat/rxnheat.hpp"
 
+#include <cstdio>
+#include <cstdlib>
 #include <string>
 #include <vector>
+
+#include <unistd.h>
 
 using rxnheat::Engine;
 using rxnheat::SpeciesTable;
@@ -64,4 +68,40 @@ TEST_CASE("malformed tables name the row and the column", "[usertable]") {
     fails({{"formula", "phase", "dHf", "tmin", "tmax"}, {"H2O", "l", "-285.83", "300", "400"}},
           "must include 298.15 K");
     fails({{"formula", "phase", "dHf", "cp", "a"}, {"H2O", "l", "-285.83", "75", "1"}}, "row 2, column 'cp'");
+}
+
+TEST_CASE("from_csv_file reads CSV as a spreadsheet writes it", "[usertable]") {
+    // A CO2(g) row with the CODATA ΔfH° (Cox et al. 1989, from memory) and an invented cp, saved
+    // as "CSV UTF-8": a byte-order mark, CRLF line ends, a quoted comma and a quoted line break.
+    char path[] = "/tmp/rxnheat-test-table-XXXXXX";
+    const int fd = ::mkstemp(path);
+    REQUIRE(fd >= 0);
+    auto write_table = [&](const std::string& text) {
+        std::FILE* f = std::fopen(path, "wb");
+        REQUIRE(f != nullptr);
+        std::fwrite(text.data(), 1, text.size(), f);
+        std::fclose(f);
+    };
+    ::close(fd);
+    const std::string head = "\xEF\xBB\xBF" "formula,phase,dHf,cp,tmin,tmax,name,source\r\n";
+    write_table(head + "CO2,g,-393.51,40,298.15,400,\"carbon\r\ndioxide\",\"test, invented cp\"\r\n");
+    auto& e = Engine::shared();
+    const auto t = SpeciesTable::from_csv_file(path);
+    CHECK(e.species_h("CO2(g)", 398.15, 298.15, &t) == Approx(4.0).margin(1e-9));  // 40 J/(mol K) × 100 K
+    CHECK(e.species_hf("CO2(g)", 298.15, "kJ/mol", &t) == Approx(-393.51));
+    // Rows are counted as a spreadsheet shows them: the row after the two-line cell is row 3.
+    write_table(head + "CO2,g,-393.51,40,298.15,400,\"carbon\ndioxide\",x\r\nH2O,l,lots,,,,,\r\n");
+    CHECK_THROWS_WITH(SpeciesTable::from_csv_file(path), Catch::Contains("species table row 3, column 'dHf'"));
+    write_table(head + "CO2,g,\"-393.51,40\n");
+    CHECK_THROWS_WITH(SpeciesTable::from_csv_file(path),
+                      Catch::Contains("row 2: a quoted cell that starts on line 2 is not closed"));
+    std::remove(path);
+    CHECK_THROWS_WITH(SpeciesTable::from_csv_file(path), Catch::Contains("cannot read the species table file"));
+    try {
+        SpeciesTable::from_csv_file(RXNHEAT_SOURCE_DIR);
+        FAIL("a directory read as a table");
+    } catch (const rxnheat::Error& err) {
+        CHECK(err.kind() == rxnheat::ErrorKind::table);
+        CHECK(std::string(err.what()).find("is a directory") != std::string::npos);
+    }
 }

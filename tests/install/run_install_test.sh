@@ -19,6 +19,7 @@ cmake --build "$work/cmake" >/dev/null
 export LD_LIBRARY_PATH="$work/prefix/lib:$work/prefix/lib/$(gcc -print-multiarch 2>/dev/null || true)"
 out=$("$work/cmake/consumer_cpp"); check "find_package C++ consumer" "$out" "-890.57"
 check "C++ consumer sees the unbalanced error" "$out" "not balanced"
+check "C++ consumer reads and writes CSV" "$out" 'csv: "a, b",c'
 out=$("$work/cmake/consumer_c"); check "find_package C consumer" "$out" "-34.7"
 check "C consumer gets the range error" "$out" "status 6"
 pcdir=$(dirname "$(find "$work/prefix" -name rxnheat.pc | head -n 1)")
@@ -26,5 +27,6 @@ flags=$(PKG_CONFIG_PATH="$pcdir" pkg-config --cflags --libs rxnheat)
 g++ -std=c++17 "$src/consumer/consumer.cpp" $flags -o "$work/pc_cpp"
 out=$("$work/pc_cpp"); check "pkg-config C++ consumer" "$out" "-890.57"
 if [ -f "$work/prefix/include/rxnheat/rxnheat.h" ]; then echo "ok: C header installed"; pass=$((pass+1)); else echo "FAILED: C header"; fail=$((fail+1)); fi
+if [ -f "$work/prefix/include/rxnheat/csv.hpp" ]; then echo "ok: CSV header installed"; pass=$((pass+1)); else echo "FAILED: CSV header"; fail=$((fail+1)); fi
 echo "$pass passed, $fail failed"
 [ "$fail" -eq 0 ]

@@ -1,6 +1,7 @@
 // rxnheat — standard reaction enthalpies from reaction text.
 //
-// The public C++ interface of librxnheat. Everything else in the library is private.
+// The public C++ interface of librxnheat (with rxnheat/csv.hpp, its CSV reader and writer).
+// Everything else in the library is private.
 // All functions are thread-safe. Every function that computes a number either returns a
 // value computed from the embedded data or throws rxnheat::Error with a message in words;
 // it never returns a placeholder.

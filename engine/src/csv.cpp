@@ -1,0 +1,228 @@
+// The CSV reader and writer (rules in include/rxnheat/csv.hpp).
+#include "rxnheat/csv.hpp"
+
+#include <cerrno>
+#include <cstring>
+
+#include <unistd.h>
+
+namespace rxnheat::csv {
+
+struct Reader::State {
+    explicit State(Options o) : opt(o) {}
+
+    Options opt;
+    std::FILE* file = nullptr;    // the stream source, or null for a text source
+    std::vector<char> buf;        // the stream source's read buffer
+    const char* data = nullptr;   // bytes not yet taken: data[pos..len)
+    std::size_t pos = 0, len = 0;
+    bool eof = false;
+    int read_errno = 0;
+    std::size_t line = 1;
+    bool at_start = true;         // nothing read yet: a byte-order mark may follow
+    // A CR just ended a line; an LF right after it belongs to the same line end. Kept as a flag
+    // rather than read ahead at once, so a record ending in CR on a pipe is returned without
+    // waiting for the next byte.
+    bool skip_lf = false;
+    char pushed[3] = {};          // bytes put back (only while looking for the byte-order mark)
+    int npushed = 0;
+
+    bool refill() {
+        if (!file || eof) return false;
+        ssize_t n;
+        do {
+            n = ::read(fileno(file), buf.data(), buf.size());
+        } while (n < 0 && errno == EINTR);
+        if (n <= 0) {
+            if (n < 0) read_errno = errno ? errno : EIO;
+            eof = true;
+            return false;
+        }
+        data = buf.data();
+        len = static_cast<std::size_t>(n);
+        pos = 0;
+        return true;
+    }
+    int raw() {
+        if (npushed) return static_cast<unsigned char>(pushed[--npushed]);
+        if (pos == len && !refill()) return EOF;
+        return static_cast<unsigned char>(data[pos++]);
+    }
+    int get() {
+        int c = raw();
+        if (skip_lf) {
+            skip_lf = false;
+            if (c == '\n') c = raw();
+        }
+        return c;
+    }
+    void unget(int c) {
+        if (c != EOF) pushed[npushed++] = static_cast<char>(c);
+    }
+    // Consumes a line end outside quotes that starts with c ('\n' or '\r').
+    void line_end(int c) {
+        ++line;
+        if (c == '\r') skip_lf = true;
+    }
+    void drop_byte_order_mark() {
+        const int b0 = raw();
+        if (b0 != 0xEF) return unget(b0);
+        const int b1 = raw();
+        if (b1 != 0xBB) return unget(b1), unget(b0);
+        const int b2 = raw();
+        if (b2 != 0xBF) return unget(b2), unget(b1), unget(b0);
+    }
+};
+
+Reader::Reader(std::FILE* in, Options options) : s_(std::make_unique<State>(options)) {
+    s_->file = in;
+    s_->buf.resize(65536);
+}
+
+Reader::Reader(std::string_view text, Options options) : s_(std::make_unique<State>(options)) {
+    s_->data = text.data();
+    s_->len = text.size();
+}
+
+Reader::~Reader() = default;
+Reader::Reader(Reader&&) noexcept = default;
+Reader& Reader::operator=(Reader&&) noexcept = default;
+
+int Reader::read_error() const noexcept { return s_->read_errno; }
+std::size_t Reader::line() const noexcept { return s_->line; }
+
+bool Reader::next(Record& out) {
+    State& s = *s_;
+    out.cells.clear();
+    out.error.clear();
+    out.line = 0;
+    if (s.at_start) {
+        s.at_start = false;
+        s.drop_byte_order_mark();
+    }
+
+    // Leading blanks of the line, then either a comment line (skipped whole) or the record.
+    std::string lead;
+    int c;
+    for (;;) {
+        lead.clear();
+        c = s.get();
+        while (c == ' ' || c == '\t') {
+            if (lead.size() <= s.opt.max_record_bytes) lead.push_back(static_cast<char>(c));
+            c = s.get();
+        }
+        if (!s.opt.comment || c != static_cast<unsigned char>(s.opt.comment)) break;
+        while (c != EOF && c != '\n' && c != '\r') c = s.get();
+        if (c == EOF) return false;
+        s.line_end(c);
+    }
+    if (c == EOF && lead.empty()) return false;
+    out.line = s.line;
+
+    enum class Where { start, unquoted, quoted, after_quote } st = Where::start;
+    std::string cell;
+    std::size_t bytes = 0;       // cell text held for this record
+    std::size_t ncells = 0;      // cells ended, including any beyond max_cells
+    std::size_t quote_line = 0;  // line of the last opening quote
+    bool truncated = false, too_many = false, unclosed = false;
+    std::string misplaced;       // the first misplaced-quote error
+    auto add = [&](int ch) {
+        if (bytes >= s.opt.max_record_bytes) {
+            truncated = true;
+            return;
+        }
+        ++bytes;
+        cell.push_back(static_cast<char>(ch));
+    };
+    auto end_cell = [&] {
+        ++ncells;
+        if (out.cells.size() < s.opt.max_cells)
+            out.cells.push_back(std::move(cell));
+        else
+            too_many = true;
+        cell.clear();
+    };
+    for (char b : lead) add(static_cast<unsigned char>(b));
+    if (!lead.empty()) st = Where::unquoted;
+
+    for (int prev = 0;; prev = c, c = s.get()) {
+        switch (st) {
+        case Where::start:
+            if (c == EOF) { end_cell(); goto done; }
+            if (c == '"') { st = Where::quoted; quote_line = s.line; break; }
+            if (c == ',') { end_cell(); break; }
+            if (c == '\n' || c == '\r') { s.line_end(c); end_cell(); goto done; }
+            add(c);
+            st = Where::unquoted;
+            break;
+        case Where::unquoted:
+            if (c == EOF) { end_cell(); goto done; }
+            if (c == ',') { end_cell(); st = Where::start; break; }
+            if (c == '\n' || c == '\r') { s.line_end(c); end_cell(); goto done; }
+            if (c == '"' && s.opt.strict_quotes && misplaced.empty())
+                misplaced = "a '\"' inside the unquoted field (cell " + std::to_string(ncells + 1) +
+                            "): quote the whole cell and write \"\" for a quote";
+            add(c);
+            break;
+        case Where::quoted:
+            if (c == EOF) { unclosed = true; end_cell(); goto done; }
+            if (c == '"') { st = Where::after_quote; break; }
+            // A line break inside quotes is cell text; CRLF counts as one line end.
+            if (c == '\r' || (c == '\n' && prev != '\r')) ++s.line;
+            add(c);
+            break;
+        case Where::after_quote:
+            if (c == '"') { add('"'); st = Where::quoted; break; }
+            if (c == EOF) { end_cell(); goto done; }
+            if (c == ',') { end_cell(); st = Where::start; break; }
+            if (c == '\n' || c == '\r') { s.line_end(c); end_cell(); goto done; }
+            if (misplaced.empty())
+                misplaced = "text after the closing quote of cell " + std::to_string(ncells + 1) +
+                            " (write a quote inside a quoted cell as \"\")";
+            add(c);
+            st = Where::unquoted;
+            break;
+        }
+    }
+done:
+    if (s.read_errno)
+        out.error = std::string("the input could not be read to the end of this row: ") + std::strerror(s.read_errno);
+    else if (unclosed)
+        out.error = "a quoted cell that starts on line " + std::to_string(quote_line) +
+                    " is not closed before the end of the input";
+    else if (truncated)
+        out.error = "the row is longer than " + std::to_string(s.opt.max_record_bytes) + " bytes";
+    else if (too_many)
+        out.error = "the row has more than " + std::to_string(s.opt.max_cells) + " cells";
+    else
+        out.error = std::move(misplaced);
+    return true;
+}
+
+std::string quote(std::string_view cell) {
+    bool needs = false;
+    for (char ch : cell)
+        if (ch == ',' || ch == '"' || ch == '\n' || ch == '\r') needs = true;
+    if (!cell.empty() && (cell.front() == ' ' || cell.front() == '\t' || cell.back() == ' ' || cell.back() == '\t'))
+        needs = true;
+    if (!needs) return std::string(cell);
+    std::string out;
+    out.reserve(cell.size() + 2);
+    out.push_back('"');
+    for (char ch : cell) {
+        if (ch == '"') out.push_back('"');
+        out.push_back(ch);
+    }
+    out.push_back('"');
+    return out;
+}
+
+void append_row(std::string& out, const std::vector<std::string>& cells) {
+    for (std::size_t i = 0; i < cells.size(); ++i) {
+        if (i) out.push_back(',');
+        out += quote(cells[i]);
+    }
+    out.push_back('\n');
+}
+
+}  // namespace rxnheat::csv
