@@ -87,8 +87,8 @@ TEST_CASE("from_csv_file reads CSV as a spreadsheet writes it", "[usertable]") {
     write_table(head + "CO2,g,-393.51,40,298.15,400,\"carbon\r\ndioxide\",\"test, invented cp\"\r\n");
     auto& e = Engine::shared();
     const auto t = SpeciesTable::from_csv_file(path);
-    CHECK(e.species_h("CO2(g)", 398.15, 298.15, &t) == Approx(4.0).margin(1e-9));  // 40 J/(mol K) × 100 K
-    CHECK(e.species_hf("CO2(g)", 298.15, "kJ/mol", &t) == Approx(-393.51));
+    CHECK(e.species_h("CO2(g)", {398.15, &t}, 298.15) == Approx(4.0).margin(1e-9));  // 40 J/(mol K) × 100 K
+    CHECK(e.species_hf("CO2(g)", {298.15, &t}, "kJ/mol") == Approx(-393.51));
     // Rows are counted as a spreadsheet shows them: the row after the two-line cell is row 3.
     write_table(head + "CO2,g,-393.51,40,298.15,400,\"carbon\ndioxide\",x\r\nH2O,l,lots,,,,,\r\n");
     CHECK_THROWS_WITH(SpeciesTable::from_csv_file(path), Catch::Contains("species table row 3, column 'dHf'"));
