@@ -2,7 +2,9 @@
 # Installs the build into a scratch prefix, then builds a consumer outside the tree against it,
 # once with find_package(rxnheat) and once with pkg-config, and runs both.
 # Expected values: CH4 combustion -890.57 kJ/mol (CODATA Key Values, Cox et al. 1989, via NASA
-# Glenn data); water-gas shift at 1000 K about -34.8 kJ/mol (NIST-JANAF 4th ed., from memory).
+# Glenn data); water-gas shift at 1000 K about -34.8 kJ/mol (NIST-JANAF 4th ed., from memory);
+# the molar mass of CuSO4·5H2O from python3-periodictable (IUPAC atomic weights); the load of a
+# species only our CSV table knows from that table's own row (2 mol × -279 kJ/mol, elements 0).
 set -euo pipefail
 build=$1
 src=$(cd "$(dirname "$0")" && pwd)
@@ -20,8 +22,32 @@ export LD_LIBRARY_PATH="$work/prefix/lib:$work/prefix/lib/$(gcc -print-multiarch
 out=$("$work/cmake/consumer_cpp"); check "find_package C++ consumer" "$out" "-890.57"
 check "C++ consumer sees the unbalanced error" "$out" "not balanced"
 check "C++ consumer reads and writes CSV" "$out" 'csv: "a, b",c'
-out=$("$work/cmake/consumer_c"); check "find_package C consumer" "$out" "-34.7"
+# A user species table for RXNLOAD (an invented demo row, SPEC 3.4 columns).
+printf 'formula,phase,dHf,name,source\nXeF6,g,-279,xenon hexafluoride,demo row\n' >"$work/species.csv"
+rc=0
+out=$("$work/cmake/consumer_c" "$work/species.csv") || rc=$?
+check "C consumer exits 0 (every status as expected)" "$rc" "^0$"
+check "find_package C consumer" "$out" "-34.7"
 check "C consumer gets the range error" "$out" "status 6"
+check "rxnheat_call RXNDH (CODATA via NASA Glenn)" "$out" "^call dh: -890.57 kJ/mol$"
+check "rxnheat_call RXNLOAD with a CSV table handle (the table's row)" "$out" "^call load: -558.000000 kJ$"
+check "rxnheat_call RXNLOAD without the table: unknown species (status 3)" "$out" "^call load without the table: status 3: .*XeF6"
+check "rxnheat_call unknown unit: RXNHEAT_E_UNIT (8), no result" "$out" "^call unit error: status 8, result kind 0: .*kg/hr"
+check "rxnheat_why names the unit" "$out" "^why: .*'kg/hr'"
+check "rxnheat_why of a good call" "$out" "^why good: ok$"
+check "function list: 15" "$out" "^functions 15:"
+for f in RXNDH RXNDU RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP \
+         SPECIESH MOLARMASS RXNSOURCE RXNVERSION; do
+  check "function list has $f" "$(grep '^functions' <<<"$out")" " $f\b"
+done
+# MOLARMASS against python3-periodictable, within 0.01 g/mol (as the engine tests).
+want=$(/usr/bin/python3 -c 'import periodictable; print(repr(periodictable.formula("CuSO4(H2O)5").mass))')
+got=$(sed -n 's/^call molarmass: \([^ ]*\) g\/mol$/\1/p' <<<"$out")
+if [ -n "$got" ] && /usr/bin/python3 -c "import sys; sys.exit(0 if abs(float('$got') - float('$want')) <= 0.01 else 1)"; then
+  echo "ok: rxnheat_call MOLARMASS CuSO4·5H2O $got g/mol vs python3-periodictable $want"; pass=$((pass+1))
+else
+  echo "FAILED: rxnheat_call MOLARMASS: got '$got', python3-periodictable $want"; fail=$((fail+1))
+fi
 pcdir=$(dirname "$(find "$work/prefix" -name rxnheat.pc | head -n 1)")
 flags=$(PKG_CONFIG_PATH="$pcdir" pkg-config --cflags --libs rxnheat)
 g++ -std=c++17 "$src/consumer/consumer.cpp" $flags -o "$work/pc_cpp"
