@@ -312,6 +312,8 @@ public:
                                          "followed by one lowercase letter (names such as 'ethanol' "
                                          "are written all in lowercase)");
 
+        if (auto e = full_stop_as_hydrate_dot(i, key)) return *e;
+
         if (key == "species") return species_expected(i, c, at_end);
         if (key == "arrow" || key == "end") return end_of_part(key, i, c, at_end);
         if (key == "number") return ParseError(i + 1, "expected a number such as 2, 0.5, 3/2 or ½");
@@ -350,6 +352,41 @@ public:
     }
 
 private:
+    /// "CaSO4.H2O", "NaCl.H2O", "CaSO4.½H2O": a full stop after a formula and before the start
+    /// of another formula part, which the grammar could not read, is a hydrate dot typed as a
+    /// full stop. Said so, with the two hydrate dots, instead of "expected a digit after '.'".
+    std::optional<ParseError> full_stop_as_hydrate_dot(std::size_t i, const std::string& key) const {
+        std::size_t d = i;  // the full stop
+        if (key == "digits after point") {
+            if (i == 0 || t_[i - 1] != U'.') return std::nullopt;
+            d = i - 1;
+        } else if (i >= t_.size() || t_[i] != U'.') {
+            return std::nullopt;
+        }
+        auto const in_formula = [](char32_t c) {
+            return is_letter(c) || is_digit(c) || subscript_value(c) >= 0 || c == U'(' || c == U')' ||
+                   c == U'[' || c == U']' || c == U'.' || is_hydrate_dot(c) || is_vulgar(c);
+        };
+        if (d + 1 >= t_.size()) return std::nullopt;
+        char32_t const next = t_[d + 1];
+        if (!(is_upper(next) || next == U'(' || next == U'[' || is_digit(next) || is_vulgar(next)))
+            return std::nullopt;
+        // Before it: a formula (ending in a letter, a bracket or a count after one), not a coefficient.
+        std::size_t k = d;
+        while (k > 0 && (is_digit(t_[k - 1]) || subscript_value(t_[k - 1]) >= 0)) --k;
+        if (k == 0 || !(is_letter(t_[k - 1]) || t_[k - 1] == U')' || t_[k - 1] == U']')) return std::nullopt;
+        std::size_t first = d, last = d + 1;
+        while (first > 0 && in_formula(t_[first - 1])) --first;
+        while (last < t_.size() && in_formula(t_[last]) && !(t_[last] == U'(' && last + 1 < t_.size() &&
+                                                              is_lower(t_[last + 1])))
+            ++last;
+        Text dot = t_.substr(first, last - first), star = dot;
+        dot[d - first] = U'\u00B7';
+        star[d - first] = U'*';
+        return ParseError(d + 1, "a full stop is not a hydrate dot; for a hydrate write " + in_quotes(dot) +
+                                     " or " + in_quotes(star));
+    }
+
     ParseError species_expected(std::size_t i, char32_t c, bool at_end) const {
         static const char* generic = "expected a species (a formula such as H2O or a name such as ethanol)";
         Text arrow;
@@ -531,6 +568,13 @@ std::string rational_text(const Rational& r) {
 }
 
 class Builder {
+    /// The source range of the formula being built, as indices into the decoded text (for the
+    /// corrected formula text that typo messages suggest).
+    struct Where {
+        std::size_t first, last;            ///< the formula, charge included
+        std::size_t part_first, part_last;  ///< the items of the current part (no multiplier)
+    };
+
 public:
     Builder(const Text& t, const parser::Tracker& tracker) : t_(t), tr_(tracker) {}
 
@@ -625,8 +669,12 @@ private:
     }
 
     void formula(const ast::Formula& tree, Species& s) const {
+        auto const range = tr_.position_of(tree);
+        Where where{std::size_t(range.begin() - t_.begin()), std::size_t(range.end() - t_.begin()), 0, 0};
         for (std::size_t k = 0; k < tree.parts.size(); ++k) {
             const ast::Part& part = tree.parts[k];
+            where.part_first = item_first(part.items.front());
+            where.part_last = std::size_t(tr_.position_of(part).end() - t_.begin());
             Rational multiplier{1};
             if (k > 0) s.formula += '*';
             if (!part.multiplier.empty()) {
@@ -638,10 +686,35 @@ private:
                 for (char32_t c : part.multiplier) ascii = ascii && (is_digit(c) || c == U'.');
                 s.formula += ascii ? utf8(part.multiplier) : rational_text(multiplier);
             }
-            items(part.items, multiplier, s);
+            items(part.items, multiplier, s, where, true);
         }
         if (tree.charge) s.charge = charge(*tree.charge);
         mistyped_phase(tree.parts.back());
+        zero_for_letter_o_at_end(tree.parts.back(), where);
+    }
+
+    /// "H20", "Na20", "CuSO4·5H20": a count of 20 to 90 typed as the last thing of a formula, on
+    /// an element other than O, is far more often "2O" with the letter O typed as a zero than a
+    /// true count (common practice; the reading is refused rather than guessed). A true count is
+    /// written with the element in a group, "C9(H)20", which this check does not look at.
+    /// Exempt: O ("O2O" is no formula), C (carbon clusters such as C60 are written this way and
+    /// a carbon oxide ending in "C6O" is rare), 10 ("H1O" is nobody's way of writing HO, while
+    /// C4H10 and C5H10 are common), and subscript digits (typeset on purpose, not a slip).
+    void zero_for_letter_o_at_end(const ast::Part& part, const Where& where) const {
+        if (part.items.empty()) return;
+        auto const* e = boost::get<ast::Element>(&part.items.back().get());
+        if (!e || e->symbol == U"O" || e->symbol == U"C") return;
+        const Text& n = e->count;
+        if (n.size() != 2 || n[0] < U'2' || n[0] > U'9' || n[1] != U'0') return;
+        std::size_t const count_at = start(*e) - 1 + e->symbol.size();  // index of the count
+        Text letter_o = formula_text(where);
+        letter_o[count_at + 1 - where.first] = U'O';
+        Text group = formula_text(where);
+        group.replace(start(*e) - 1 - where.first, e->symbol.size(), U"(" + e->symbol + U")");
+        throw ParseError(count_at + 2, in_quotes(n) + " at the end of the formula is far more often the letter O "
+                                       "typed as a zero; if you meant the letter O, write " +
+                                           in_quotes(letter_o) + "; for a true count of " + utf8(n) +
+                                           " write " + in_quotes(group));
     }
 
     /// "H2O(L)", "CH4(G)", "CaO(S)": a closing group of one bare G, L or S is a phase typed in
@@ -658,33 +731,85 @@ private:
                                               "; phases are written in lowercase: (" + lower + ")");
     }
 
-    void items(const std::vector<ast::Item>& items, const Rational& multiplier, Species& s) const {
-        for (const ast::Item& item : items) {
+    /// items() at the top level of a part (not inside a bracket): where a full stop is ambiguous.
+    void items(const std::vector<ast::Item>& items, const Rational& multiplier, Species& s,
+               const Where& where, bool top_level) const {
+        for (std::size_t k = 0; k < items.size(); ++k) {
+            const ast::Item& item = items[k];
+            bool const more = top_level && k + 1 < items.size();  // more formula follows in this part
             if (auto const* e = boost::get<ast::Element>(&item.get())) {
                 Rational n{1};
-                if (!e->count.empty()) n = count(e->count, start(*e) + e->symbol.size());
+                if (!e->count.empty()) n = count(e->count, start(*e) + e->symbol.size(), where, more);
                 s.formula += utf8(e->symbol) + utf8(ascii_digits(e->count));
                 add_atom(s.atoms, utf8(e->symbol), n * multiplier, start(*e));
             } else {
                 const ast::Group& g = boost::get<x3::forward_ast<ast::Group>>(item.get()).get();
                 Rational n{1};
-                if (!g.count.empty()) n = count(g.count, pos(tr_.position_of(g).end()) - g.count.size());
+                if (!g.count.empty())
+                    n = count(g.count, pos(tr_.position_of(g).end()) - g.count.size(), where, more);
                 s.formula += g.open == U'[' ? '[' : '(';
-                this->items(g.items, n * multiplier, s);
+                this->items(g.items, n * multiplier, s, where, false);
                 s.formula += g.open == U'[' ? ']' : ')';
                 s.formula += utf8(ascii_digits(g.count));
             }
         }
     }
 
-    Rational count(const Text& written, std::size_t position) const {
+    /// A count as written at 1-based `position`. `more`: more formula follows it at the top level
+    /// of its part, where "4.5" could also be "4" and a hydrate part "5..." typed with a full stop.
+    Rational count(const Text& written, std::size_t position, const Where& where, bool more) const {
+        leading_zero(written, position, where);
         Text const ascii = ascii_digits(written);
         std::size_t i = 0;
         bool point = false;
         Rational const n = decimal_value(ascii, i, &point);
         if (n == 0) throw ParseError(position, "a count of zero is not allowed: " + in_quotes(written));
+        if (point && more && n >= 1) full_stop_between_parts(written, position, where);
         return n;
     }
+
+    /// "C02", "CO02", "Ca(OH)02", "C₀₂": no count starts with a zero unless it is a decimal below
+    /// one ("0.947"), so the zero is the letter O mistyped. The suggestion turns every leading
+    /// zero into an O except one kept before a decimal point ("Fe00.5" -> "FeO0.5"). A lone "0"
+    /// is left to the zero-count message.
+    void leading_zero(const Text& written, std::size_t position, const Where& where) const {
+        auto const zero = [](char32_t c) { return c == U'0' || c == U'\u2080'; };
+        auto const digit = [](char32_t c) { return is_digit(c) || subscript_value(c) >= 0; };
+        if (written.size() < 2 || !zero(written[0]) || !digit(written[1])) return;
+        Text fixed = formula_text(where);
+        std::size_t const at = position - 1 - where.first;
+        for (std::size_t k = 0; k < written.size() && zero(written[k]); ++k)
+            if (k + 1 == written.size() || written[k + 1] != U'.') fixed[at + k] = U'O';
+        throw ParseError(position, in_quotes(written) + " starts with a zero; if you meant the letter O, write " +
+                                       in_quotes(fixed));
+    }
+
+    /// "CuSO4.5H2O", "Na2CO3.10H2O", "Ba(OH)2.8H2O": a decimal count of one or more followed by
+    /// more formula at the top level of a part reads as well as a hydrate typed with a full stop
+    /// (a count below one cannot: "Fe0.947O" as a hydrate would have a count of zero). Refused,
+    /// with both ways to write it: a hydrate dot, or brackets, inside which no hydrate dot can be.
+    void full_stop_between_parts(const Text& written, std::size_t position, const Where& where) const {
+        std::size_t const point_at = position - 1 + written.find(U'.');  // index of the '.' in t_
+        Text const text = formula_text(where);
+        Text dot = text, star = text, bracketed = text;
+        bracketed.insert(where.part_last - where.first, U")");
+        bracketed.insert(where.part_first - where.first, U"(");
+        dot[point_at - where.first] = U'\u00B7';
+        star[point_at - where.first] = U'*';
+        throw ParseError(point_at + 1, "the full stop in " + in_quotes(written) +
+                                           " could be a decimal point or a hydrate dot; for a hydrate write " +
+                                           in_quotes(dot) + " or " + in_quotes(star) + ", for a count of " +
+                                           utf8(written) + " put the formula in brackets: " +
+                                           in_quotes(bracketed));
+    }
+
+    /// Index in t_ of an item's first character.
+    std::size_t item_first(const ast::Item& item) const {
+        if (auto const* e = boost::get<ast::Element>(&item.get())) return start(*e) - 1;
+        return start(boost::get<x3::forward_ast<ast::Group>>(item.get()).get()) - 1;
+    }
+
+    Text formula_text(const Where& where) const { return t_.substr(where.first, where.last - where.first); }
 
     static void add_atom(std::vector<Atom>& atoms, const std::string& symbol, const Rational& n,
                          std::size_t position) {

@@ -151,11 +151,17 @@ TEST_CASE("rule 8: the longest arrow wins, and there is exactly one", "[grammar]
     CHECK_REACTION_ERROR("A = B ⇌ C", 7, "found a second arrow '⇌'; a reaction has exactly one arrow");
 }
 
-TEST_CASE("rule 9: a point between digits is a decimal point, not a hydrate dot", "[grammar][rules]") {
-    CHECK(parse_species("Fe0.947O").atoms[0].count == q(947, 1000));
-    // CuSO4.5H2O is CuSO(4.5)H2O: written hydrates need · or *
-    const Species s = parse_species("CuSO4.5H2O");
-    CHECK(atoms(s) == "Cu=1 S=1 O=11/2 H=2");
+TEST_CASE("rule 9: a point in a count is a decimal point only where it cannot be a hydrate dot", "[grammar][rules]") {
+    CHECK(parse_species("Fe0.947O").atoms[0].count == q(947, 1000));  // below one: anywhere
+    CHECK(atoms(parse_species("UO2.5")) == "U=1 O=5/2");               // last in its part
+    CHECK(atoms(parse_species("(CuSO4.5H2O)")) == "Cu=1 S=1 O=11/2 H=2");  // inside brackets
+    // CuSO4.5H2O could be CuSO(4.5)H2O or the hydrate: refused, never guessed
+    CHECK_SPECIES_ERROR("CuSO4.5H2O", 6,
+                        "the full stop in '4.5' could be a decimal point or a hydrate dot; for a hydrate "
+                        "write 'CuSO4·5H2O' or 'CuSO4*5H2O', for a count of 4.5 put the formula in "
+                        "brackets: '(CuSO4.5H2O)'");
+    CHECK_SPECIES_ERROR("CaSO4.H2O", 6,
+                        "a full stop is not a hydrate dot; for a hydrate write 'CaSO4·H2O' or 'CaSO4*H2O'");
     CHECK(atoms(parse_species("CuSO4*5H2O")) == "Cu=1 S=1 O=9 H=10");
 }
 
@@ -204,4 +210,21 @@ TEST_CASE("rule 13: fractions a/b are whole numbers, 1½ is a mixed number", "[g
     CHECK_REACTION_ERROR("1.5/2 O2 -> O", 1, "a fraction a/b needs whole numbers: '1.5/2'");
     // "1 / 2" is the coefficient 1 followed by a stray '/'
     CHECK_REACTION_ERROR("1 / 2 O2 -> O", 3, "expected a species after the coefficient '1'");
+}
+
+TEST_CASE("rule 14: a count never starts with a zero", "[grammar][rules]") {
+    CHECK_SPECIES_ERROR("C02", 2, "'02' starts with a zero; if you meant the letter O, write 'CO2'");
+    CHECK(atoms(parse_species("Fe0.947O")) == "Fe=947/1000 O=1");
+    CHECK(parse_reaction("10 H2O -> 10 H2O").reactants[0].coefficient == 10);  // coefficients are numbers
+}
+
+TEST_CASE("rule 15: 20 to 90 ending a formula, on an element other than O or C, is refused", "[grammar][rules]") {
+    CHECK_SPECIES_ERROR("H20", 3,
+                        "'20' at the end of the formula is far more often the letter O typed as a zero; "
+                        "if you meant the letter O, write 'H2O'; for a true count of 20 write '(H)20'");
+    CHECK(atoms(parse_species("(H)20")) == "H=20");
+    CHECK(atoms(parse_species("C4H10")) == "C=4 H=10");
+    CHECK(atoms(parse_species("P4O10")) == "P=4 O=10");
+    CHECK(atoms(parse_species("C60")) == "C=60");
+    CHECK(atoms(parse_species("C9H₂₀")) == "C=9 H=20");
 }
