@@ -1,10 +1,10 @@
-// Number and JSON text for the rxnheat command line. Private to the CLI.
+// Number and JSON text for the rxnheat command line, and where it goes. Private to the CLI.
 #pragma once
 
 #include <string>
 #include <string_view>
 
-namespace rxncli {
+namespace rxnheat::cli {
 
 /// A number for people: 6 significant digits (%.6g), but written out in full without an
 /// exponent from 1e6 up to 1e15 (totals such as 123456789 kJ stay readable).
@@ -34,4 +34,23 @@ private:
     bool first_ = true;
 };
 
-}  // namespace rxncli
+/// Where results and errors go, and the state of what has been written: text or JSON mode, and
+/// whether `batch --json` has opened its object (so that an error escaping the batch closes
+/// that object instead of starting a second one). Owned by main; one per run.
+class Output {
+public:
+    explicit Output(bool json) : json_(json) {}
+    bool json() const noexcept { return json_; }
+    void write(std::string_view s) const;      ///< to standard output
+    void write_err(std::string_view s) const;  ///< to standard error
+    /// One result: `plain` in text mode, the object in JSON mode; each with a line feed.
+    void result(const std::string& plain, const JsonObject& json) const;
+    void set_batch_open(bool open) noexcept { batch_open_ = open; }
+    bool batch_open() const noexcept { return batch_open_; }
+
+private:
+    bool json_;
+    bool batch_open_ = false;
+};
+
+}  // namespace rxnheat::cli

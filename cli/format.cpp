@@ -6,7 +6,7 @@
 #include <charconv>
 #include <cstdlib>
 
-namespace rxncli {
+namespace rxnheat::cli {
 
 std::string plain_number(double x) {
     if (!std::isfinite(x)) return std::isnan(x) ? "nan" : (x < 0 ? "-inf" : "inf");
@@ -131,4 +131,10 @@ JsonObject& JsonObject::raw(std::string_view k, std::string_view json) {
     return *this;
 }
 
-}  // namespace rxncli
+void Output::write(std::string_view s) const { std::fwrite(s.data(), 1, s.size(), stdout); }
+void Output::write_err(std::string_view s) const { std::fwrite(s.data(), 1, s.size(), stderr); }
+void Output::result(const std::string& plain, const JsonObject& json) const {
+    write((json_ ? json.text() : plain) + "\n");
+}
+
+}  // namespace rxnheat::cli
