@@ -204,23 +204,17 @@ int run_dh_du(Context& c, bool is_du) {
 int run_dh(Context& c) { return run_dh_du(c, false); }
 int run_du(Context& c) { return run_dh_du(c, true); }
 
-/// True when a RXNLOAD quantity unit is a flow ("kg/h", "Nm3 / d"): then the result is a rate.
-bool is_flow_unit(const std::string& unit) {
-    const auto slash = unit.rfind('/');
-    if (slash == std::string::npos) return false;
-    std::string t = unit.substr(slash + 1);
-    t.erase(std::remove_if(t.begin(), t.end(), [](char ch) { return ch == ' ' || ch == '\t'; }), t.end());
-    return t == "s" || t == "min" || t == "h" || t == "d";
-}
-
 int run_load(Context& c) {
     const auto& p = c.args.positional;
     const std::string& reaction = p[0];
     const double quantity = parse_finite(p[1], "the QUANTITY");
     const std::string& quantity_unit = p[2];
     const std::string& key = p[3];
-    const std::string unit = c.args.unit.value_or(is_flow_unit(quantity_unit) ? "kW" : "kJ");
-    const double value = c.engine.load(reaction, quantity, quantity_unit, key, unit, {c.T, c.table});
+    const double value = c.engine.load(reaction, quantity, quantity_unit, key, c.args.unit.value_or(""),
+                                       {c.T, c.table});
+    // The engine decides which quantity units are flows ("kg/hr", "MMscfd" too), so it names the
+    // default result unit; a unit the user gave is echoed as given.
+    const std::string unit = c.args.unit ? *c.args.unit : rxnheat::Engine::load_unit(quantity_unit, {});
     const rxnheat::ReactionReport rep = c.engine.report(reaction, {c.T, c.table});
 
     const std::string plain = plain_number(value) + " " + unit + " (" + std::string(rxnheat::to_string(rep.kind)) + ")";
