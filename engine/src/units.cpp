@@ -123,24 +123,26 @@ struct Named {
 };
 
 // Energy per mole: J/mol per unit.
-constexpr std::array<Named, 6> molar_units{{
+constexpr std::array<Named, 7> molar_units{{
     {"J/mol", 1.0},
     {"kJ/mol", 1e3},
     {"MJ/kmol", 1e3},
     {"kcal/mol", 1e3 * cal_J},
     {"cal/mol", cal_J},
     {"BTU/lbmol", btu_J / lbmol_mol},
+    {"Btu/lbmol", btu_J / lbmol_mol},
 }};
 // Energy per mass: J/g per unit.
-constexpr std::array<Named, 5> mass_units{{
+constexpr std::array<Named, 6> mass_units{{
     {"kJ/kg", 1.0},
     {"MJ/kg", 1e3},
     {"kJ/g", 1e3},
     {"kcal/kg", cal_J},
     {"BTU/lb", btu_J / (lb_kg * 1e3)},
+    {"Btu/lb", btu_J / (lb_kg * 1e3)},
 }};
-// Load totals: J per unit.
-constexpr std::array<Named, 10> total_units{{
+// Load totals: J per unit. (Gcal is on the IT calorie, kcal thermochemical: see units.hpp.)
+constexpr std::array<Named, 13> total_units{{
     {"J", 1.0},
     {"kJ", 1e3},
     {"MJ", 1e6},
@@ -148,20 +150,37 @@ constexpr std::array<Named, 10> total_units{{
     {"kWh", 3.6e6},
     {"MWh", 3.6e9},
     {"kcal", 1e3 * cal_J},
+    {"Gcal", 1e9 * cal_IT_J},
     {"BTU", btu_J},
+    {"Btu", btu_J},
     {"MMBTU", 1e6 * btu_J},
+    {"MMBtu", 1e6 * btu_J},
     {"therm", therm_J},
 }};
-// Load rates: W per unit.
-constexpr std::array<Named, 7> rate_units{{
+// Load rates: W per unit. Every "/h" here may also be written "/hr" (see hour_as_h()).
+constexpr std::array<Named, 10> rate_units{{
     {"W", 1.0},
     {"kW", 1e3},
     {"MW", 1e6},
     {"kcal/h", 1e3 * cal_J / 3600.0},
+    {"Gcal/h", 1e9 * cal_IT_J / 3600.0},
     {"BTU/h", btu_J / 3600.0},
+    {"Btu/h", btu_J / 3600.0},
     {"MMBTU/h", 1e6 * btu_J / 3600.0},
+    {"MMBtu/h", 1e6 * btu_J / 3600.0},
     {"TR", 12000.0 * btu_J / 3600.0},
 }};
+// Words for the messages: how the "/hr" spelling is told.
+constexpr std::string_view hr_note = " (each /h also written /hr)";
+
+// "Btu/hr" -> "Btu/h": the trade writes hours both ways, and only the last part after '/' is a
+// time. Anything else is returned unchanged.
+std::string hour_as_h(std::string name) {
+    constexpr std::string_view hr = "/hr";
+    if (name.size() > hr.size() && name.compare(name.size() - hr.size(), hr.size(), hr) == 0)
+        name.pop_back();
+    return name;
+}
 
 struct QuantityBase {
     std::string_view name;
@@ -169,7 +188,7 @@ struct QuantityBase {
     double factor;      // mol, g, or m³
     double mol_per_m3;  // volume only
 };
-constexpr std::array<QuantityBase, 11> quantity_bases{{
+constexpr std::array<QuantityBase, 16> quantity_bases{{
     {"mol", QuantityKind::amount, 1.0, 0},
     {"kmol", QuantityKind::amount, 1e3, 0},
     {"lbmol", QuantityKind::amount, lbmol_mol, 0},
@@ -177,12 +196,25 @@ constexpr std::array<QuantityBase, 11> quantity_bases{{
     {"kg", QuantityKind::mass, 1e3, 0},
     {"t", QuantityKind::mass, 1e6, 0},
     {"lb", QuantityKind::mass, lb_kg * 1e3, 0},
+    {"klb", QuantityKind::mass, 1e3 * lb_kg * 1e3, 0},
     {"Nm3", QuantityKind::volume, 1.0, normal_mol_per_m3},
     {"Nm\xC2\xB3", QuantityKind::volume, 1.0, normal_mol_per_m3},  // Nm³
     {"Nm^3", QuantityKind::volume, 1.0, normal_mol_per_m3},
+    {"Sm3", QuantityKind::volume, 1.0, standard_mol_per_m3},
+    {"Sm\xC2\xB3", QuantityKind::volume, 1.0, standard_mol_per_m3},  // Sm³
+    {"Sm^3", QuantityKind::volume, 1.0, standard_mol_per_m3},
     {"scf", QuantityKind::volume, ft3_m3, scf_mol_per_m3},
+    {"MMscf", QuantityKind::volume, 1e6 * ft3_m3, scf_mol_per_m3},
 }};
-constexpr std::array<Named, 4> time_units{{{"s", 1.0}, {"min", 60.0}, {"h", 3600.0}, {"d", 86400.0}}};
+constexpr std::array<Named, 5> time_units{{
+    {"s", 1.0}, {"min", 60.0}, {"h", 3600.0}, {"hr", 3600.0}, {"d", 86400.0}}};
+// A flow written as one word, as gas flows are: MMscfd = MMscf/d.
+struct FlowWord {
+    std::string_view name;
+    std::string_view base;  // a quantity_bases name
+    std::string_view time;  // a time_units name
+};
+constexpr std::array<FlowWord, 1> flow_words{{{"MMscfd", "MMscf", "d"}}};
 
 template <std::size_t N>
 const Named* find(const std::array<Named, N>& table, std::string_view name) noexcept {
@@ -218,9 +250,10 @@ const std::string& molar_known_text() {
 
 const std::string& quantity_known_text() {
     static const std::string text =
-        "amount mol, kmol, lbmol; mass g, kg, t, lb; normal gas volume Nm3 (0 \xC2\xB0" "C, "
-        "101.325 kPa), scf (60 \xC2\xB0" "F, 14.696 psia); each alone for a total or followed by "
-        "/s, /min, /h or /d for a flow (e.g. kg/h)";
+        "amount mol, kmol, lbmol; mass g, kg, t, lb, klb (1000 lb); gas volume Nm3 (0 \xC2\xB0" "C, "
+        "101.325 kPa), Sm3 (15 \xC2\xB0" "C, 101.325 kPa), scf (60 \xC2\xB0" "F, 14.696 psia), "
+        "MMscf (10^6 scf); each alone for a total or followed by /s, /min, /h (or /hr) or /d for a "
+        "flow (e.g. kg/h); MMscfd is MMscf/d";
     return text;
 }
 
@@ -239,7 +272,7 @@ double energy_factor(std::string_view unit_text, bool& per_mass) {
     std::string hint;
     add_case_hint(hint, molar_units, name);
     add_case_hint(hint, mass_units, name);
-    if (hint.empty() && (find(total_units, name) || find(rate_units, name)))
+    if (hint.empty() && (find(total_units, name) || find(rate_units, hour_as_h(std::string(name)))))
         hint = " (that is a load unit; this result is an energy per amount, e.g. kJ/mol)";
     throw Error(ErrorKind::unit, "unknown energy unit " + quote(unit_text) + hint +
                                      "; known units: " + molar_known_text());
@@ -290,24 +323,37 @@ QuantityUnit quantity_unit(std::string_view unit_text) {
         per = base.substr(slash + 1);
         base = base.substr(0, slash);
     }
+    const FlowWord* word = nullptr;
+    for (const FlowWord& w : flow_words)
+        if (w.name == base) word = &w;
+    const bool has_slash = unit.find('/') != std::string::npos;
+    const std::string_view base_name = word && !has_slash ? word->base : base;
     const QuantityBase* b = nullptr;
     for (const QuantityBase& q : quantity_bases)
-        if (q.name == base) b = &q;
-    const Named* t = per.empty() ? nullptr : find(time_units, per);
-    const bool bad_time = unit.find('/') != std::string::npos && !t;
+        if (q.name == base_name) b = &q;
+    const Named* t = word && !has_slash ? find(time_units, word->time)
+                     : per.empty()      ? nullptr
+                                        : find(time_units, per);
+    const bool bad_time = has_slash && !t;
     if (!b || bad_time) {
         std::string msg = unit.empty() ? std::string("the quantity unit is empty")
                                        : "unknown quantity unit " + quote(unit_text);
         std::string hint;
-        if (b && bad_time) {
-            hint = " (the time after '/' must be s, min, h or d)";
+        if (word) {
+            hint = " (" + std::string(word->name) + " is already a flow, " + std::string(word->base) +
+                   " per " + std::string(word->time) + ")";
+        } else if (b && bad_time) {
+            hint = " (the time after '/' must be s, min, h or d; hr may be written for h)";
         } else if (base == "m3" || base == "m\xC2\xB3" || base == "m^3") {
-            hint = " (a gas volume needs its conditions: Nm3 at 0 \xC2\xB0" "C and 101.325 kPa, or "
-                   "scf at 60 \xC2\xB0" "F and 14.696 psia)";
+            hint = " (a gas volume needs its conditions: Nm3 at 0 \xC2\xB0" "C and 101.325 kPa, "
+                   "Sm3 at 15 \xC2\xB0" "C and 101.325 kPa, or scf at 60 \xC2\xB0" "F and 14.696 psia)";
         } else {
             for (const QuantityBase& q : quantity_bases)
                 if (hint.empty() && equal_ignoring_ascii_case(q.name, base))
                     hint = " (unit names are case-sensitive: did you mean '" + std::string(q.name) + "'?)";
+            for (const FlowWord& w : flow_words)
+                if (hint.empty() && equal_ignoring_ascii_case(w.name, base))
+                    hint = " (unit names are case-sensitive: did you mean '" + std::string(w.name) + "'?)";
         }
         throw Error(ErrorKind::unit, msg + hint + "; known units: " + quantity_known_text());
     }
@@ -345,7 +391,7 @@ double quantity_to_mol(double quantity, std::string_view unit, std::optional<dou
 // ---- load results -------------------------------------------------------------------------------
 
 double load_result(double J_or_W, std::string_view unit_text, bool rate, std::string_view quantity_unit_text) {
-    const std::string unit = normalise(unit_text);
+    const std::string unit = hour_as_h(normalise(unit_text));
     const std::string_view name =
         unit.empty() ? (rate ? default_rate_unit : default_total_unit) : std::string_view(unit);
     const Named* same = rate ? find(rate_units, name) : find(total_units, name);
@@ -355,7 +401,8 @@ double load_result(double J_or_W, std::string_view unit_text, bool rate, std::st
             throw Error(ErrorKind::unit,
                         (q.empty() ? std::string("the quantity") : q) +
                             " is a flow: give a power unit such as kW, MW, BTU/h, TR (not the "
-                            "energy unit " + quote(unit_text) + "); power units: " + join(rate_units));
+                            "energy unit " + quote(unit_text) + "); power units: " + join(rate_units) +
+                            std::string(hr_note));
         }
         if (!rate && find(rate_units, name)) {
             throw Error(ErrorKind::unit,
@@ -372,7 +419,7 @@ double load_result(double J_or_W, std::string_view unit_text, bool rate, std::st
             hint = " (that is an energy per amount; a load is an energy, e.g. kJ, or a power, e.g. kW)";
         throw Error(ErrorKind::unit, "unknown result unit " + quote(unit_text) + hint +
                                          "; known units: totals " + join(total_units) +
-                                         "; flows (power) " + join(rate_units));
+                                         "; flows (power) " + join(rate_units) + std::string(hr_note));
     }
     require_finite(J_or_W, "the value");
     const double v = J_or_W / same->factor;

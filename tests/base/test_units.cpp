@@ -109,6 +109,15 @@ TEST_CASE("constants agree with GNU units", "[units]") {
     CHECK(rel_diff(d::unit_def::btu_J, gnu_units("btu_th", "J")) > 1e-4);
     CHECK(rel_diff(d::unit_def::therm_J, gnu_units("ECtherm", "J")) > 1e-4);
     CHECK(rel_diff(d::unit_def::therm_J, gnu_units("1e5 btu", "J")) > 1e-4);
+    // Gcal is on the International Table calorie (units.hpp says why). source: GNU units:
+    // calorie_IT; its own `Gcal` (= 1e9 cal = calorie_th) is the other choice, 0.067 % away.
+    CHECK_REL(d::unit_def::cal_IT_J, gnu_units("calorie_IT", "J"));
+    CHECK(rel_diff(1e9 * d::unit_def::cal_IT_J, gnu_units("Gcal", "J")) > 1e-4);
+    // The IT BTU is built on the same calorie: BTU = cal_IT · lb/g · 5/9 (degF/K).
+    // source: GNU units: calorie_IT, lb, degF
+    CHECK_REL(d::unit_def::btu_J, gnu_units("calorie_IT * (lb/g) * (degF/K)", "J"));
+    // source: GNU units: tempC(15) (ISO 13443 standard reference temperature)
+    CHECK_REL(d::unit_def::T_15_C, gnu_units("tempC(15)", "K"));
 }
 
 TEST_CASE("energy per mole units agree with GNU units", "[units]") {
@@ -120,6 +129,7 @@ TEST_CASE("energy per mole units agree with GNU units", "[units]") {
         {"kcal/mol", "kcal/mol"},
         {"cal/mol", "cal/mol"},
         {"BTU/lbmol", "btu / ((lb/g) * mol)"},  // GNU units has no lbmol: lb/g mol
+        {"Btu/lbmol", "btu / ((lb/g) * mol)"},  // the NIST spelling, same unit
     };
     const double x = -890362.0;  // J/mol, any value
     for (const Row& r : rows) {
@@ -143,6 +153,7 @@ TEST_CASE("energy per mass units agree with GNU units", "[units]") {
         {"kJ/g", "kJ/g"},
         {"kcal/kg", "kcal/kg"},
         {"BTU/lb", "btu/lb"},
+        {"Btu/lb", "btu/lb"},
     };
     const double x = -890362.0;   // J/mol
     const double M = 16.04246;    // g/mol (any positive value)
@@ -172,15 +183,23 @@ const std::vector<QRow> quantity_rows = {
     {"kg", "kg", "g", true},
     {"t", "tonne", "g", true},
     {"lb", "lb", "g", true},
+    {"klb", "klb", "g", true},  // GNU units: k prefix on lb (= 1000 lb, checked below)
     // ideal gas n = pV/(RT) at 0 °C and 101.325 kPa
     {"Nm3", "101.325 kPa * m^3 / (R * tempC(0))", "mol", false},
     {"Nm\xC2\xB3", "101.325 kPa * m^3 / (R * tempC(0))", "mol", false},
     {"Nm^3", "101.325 kPa * m^3 / (R * tempC(0))", "mol", false},
+    // ideal gas at 15 °C and 101.325 kPa (Sm3: ISO 13443 standard reference conditions; GNU
+    // units has no Sm3, so this is the definition written in its named constants)
+    {"Sm3", "101.325 kPa * m^3 / (R * tempC(15))", "mol", false},
+    {"Sm\xC2\xB3", "101.325 kPa * m^3 / (R * tempC(15))", "mol", false},
+    {"Sm^3", "101.325 kPa * m^3 / (R * tempC(15))", "mol", false},
     // ideal gas at 60 °F and 14.696 psia
     {"scf", "14.696 psi * ft^3 / (R * tempF(60))", "mol", false},
+    // MMscf = 10^6 scf (the trade's definition; GNU units has no MMscf)
+    {"MMscf", "1e6 * 14.696 psi * ft^3 / (R * tempF(60))", "mol", false},
 };
-// source: GNU units
-const std::vector<Row> time_rows = {{"s", "s"}, {"min", "minute"}, {"h", "hour"}, {"d", "day"}};
+// source: GNU units (`hr` is its own abbreviation of hour)
+const std::vector<Row> time_rows = {{"s", "s"}, {"min", "minute"}, {"h", "hour"}, {"hr", "hr"}, {"d", "day"}};
 }  // namespace
 
 TEST_CASE("quantity units and flows agree with GNU units", "[units]") {
@@ -222,6 +241,34 @@ TEST_CASE("quantity units and flows agree with GNU units", "[units]") {
     CHECK_REL(lb.factor, gnu_units("lb", "g"));
     CHECK(lb.mol_per_m3 == 0);
     CHECK(d::quantity_unit("kmol/d").kind == d::QuantityKind::amount);
+    // klb is 1000 lb. source: GNU units
+    CHECK_REL(d::quantity_unit("klb/h").factor, gnu_units("1000 lb", "g"));
+    // Sm3: 15 °C, 101.325 kPa. source: GNU units (named constants, as in the rows above)
+    const d::QuantityUnit sm3 = d::quantity_unit("Sm3/hr");
+    CHECK(sm3.kind == d::QuantityKind::volume);
+    CHECK(sm3.factor == 1.0);
+    CHECK_REL(sm3.mol_per_m3, gnu_units("101.325 kPa / (R * tempC(15))", "mol/m^3"));
+    CHECK_REL(sm3.seconds, gnu_units("hr", "s"));
+    // Ideal gas (common practice): Nm3 holds 288.15/273.15 times the moles of Sm3.
+    CHECK_REL(d::quantity_to_mol(1, "Nm3") / d::quantity_to_mol(1, "Sm3"), 288.15 / 273.15);
+    // Published figure (from memory): 23.645 L/mol at 15 °C, 101.325 kPa.
+    CHECK(1000.0 / d::quantity_to_mol(1, "Sm3") == Approx(23.645).epsilon(1e-4));
+    // MMscfd is one word for MMscf/d. source: GNU units (named constants; 10^6 scf per day)
+    const d::QuantityUnit mmscfd = d::quantity_unit("MMscfd");
+    CHECK(mmscfd.is_rate());
+    CHECK(mmscfd.kind == d::QuantityKind::volume);
+    CHECK_REL(mmscfd.seconds, gnu_units("day", "s"));
+    CHECK_REL(mmscfd.factor, gnu_units("1e6 ft^3", "m^3"));
+    CHECK_REL(d::quantity_to_mol(12.5, "MMscfd"),
+              gnu_units("12.5 * 1e6 * 14.696 psi * ft^3 / (R * tempF(60)) / day", "mol/s"));
+    CHECK(d::quantity_to_mol(12.5, "MMscfd") == d::quantity_to_mol(12.5, "MMscf/d"));
+    CHECK(d::quantity_to_mol(12.5, " MMscfd ") == d::quantity_to_mol(12.5, "MMscf/d"));
+    // hr is h, for every base.
+    for (const QRow& r : quantity_rows) {
+        INFO(r.ours);
+        CHECK(d::quantity_to_mol(3.0, std::string(r.ours) + "/hr", 44.0) ==
+              d::quantity_to_mol(3.0, std::string(r.ours) + "/h", 44.0));
+    }
     // Published figure (common practice): about 379.5 scf per lbmol at 60 °F, 14.696 psia;
     // 22.414 L/mol at 0 °C, 1 atm.
     CHECK(d::unit_def::lbmol_mol / d::quantity_to_mol(1, "scf") == Approx(379.5).epsilon(1e-3));
@@ -236,6 +283,8 @@ TEST_CASE("load result units agree with GNU units", "[units]") {
         {"J", "J"},       {"kJ", "kJ"},   {"MJ", "MJ"},         {"GJ", "GJ"},
         {"kWh", "kWh"},   {"MWh", "MWh"}, {"kcal", "kcal"},     {"BTU", "btu"},
         {"MMBTU", "1e6 btu"}, {"therm", "therm"},
+        {"Btu", "btu"},   {"MMBtu", "1e6 btu"},
+        {"Gcal", "1e9 calorie_IT"},  // GNU units: calorie_IT (its `Gcal` is thermochemical)
     };
     // source: GNU units (rates in W)
     const std::vector<Row> rates = {
@@ -246,6 +295,17 @@ TEST_CASE("load result units agree with GNU units", "[units]") {
         {"BTU/h", "btu/hour"},
         {"MMBTU/h", "1e6 btu/hour"},
         {"TR", "tonref"},  // GNU units: tonrefrigeration = uston 144 btu / lb day
+        {"Btu/h", "btu/hour"},
+        {"MMBtu/h", "1e6 btu/hour"},
+        {"Gcal/h", "1e9 calorie_IT/hour"},
+        // "/hr" beside "/h". source: GNU units: hr
+        {"kcal/hr", "kcal/hr"},
+        {"BTU/hr", "btu/hr"},
+        {"Btu/hr", "btu/hr"},
+        {"MMBTU/hr", "1e6 btu/hr"},
+        {"MMBtu/hr", "1e6 btu/hr"},
+        {"Gcal/hr", "1e9 calorie_IT/hr"},
+        {" Btu / hr ", "btu/hr"},
     };
     const double x = -3.75e7;
     for (const Row& r : totals) {
@@ -273,6 +333,12 @@ TEST_CASE("a load end to end: kg/h of methane burnt to kW", "[units]") {
     const double kW = d::load_result(mol_per_s * dH, "", true, "kg/h");
     // source: GNU units
     CHECK_REL(kW, gnu_units("100 kg/hour / (16.04246 g/mol) * (-890.36 kJ/mol)", "kW"));
+    // The same in the trade's spellings: 10 t/hr to Gcal/h and MMBtu/hr. source: GNU units
+    const double s10 = d::quantity_to_mol(10, "t/hr", M) * dH;
+    CHECK_REL(d::load_result(s10, "Gcal/h", true, "t/hr"),
+              gnu_units("10 tonne/hr / (16.04246 g/mol) * (-890.36 kJ/mol)", "1e9 calorie_IT/hour"));
+    CHECK_REL(d::load_result(s10, "MMBtu/hr", true, "t/hr"),
+              gnu_units("10 tonne/hr / (16.04246 g/mol) * (-890.36 kJ/mol)", "1e6 btu/hour"));
     const double BTU_h = d::load_result(mol_per_s * dH, "BTU/h", true, "kg/h");
     CHECK_REL(BTU_h, gnu_units("100 kg/hour / (16.04246 g/mol) * (-890.36 kJ/mol)", "btu/hour"));
     const double mmbtu = d::load_result(d::quantity_to_mol(1000, "scf") * dH, "MMBTU", false, "scf");
@@ -283,7 +349,8 @@ TEST_CASE("a load end to end: kg/h of methane burnt to kW", "[units]") {
 
 TEST_CASE("unknown energy unit lists every known one; case-sensitive", "[units]") {
     const std::vector<std::string> known = {"J/mol", "kJ/mol", "MJ/kmol", "kcal/mol", "cal/mol", "BTU/lbmol",
-                                            "kJ/kg", "MJ/kg", "kJ/g", "kcal/kg", "BTU/lb"};
+                                            "Btu/lbmol", "kJ/kg", "MJ/kg", "kJ/g", "kcal/kg", "BTU/lb",
+                                            "Btu/lb"};
     for (const char* bad : {"furlong", "mJ/kg", "mj/kg", "KJ/MOL", "kj/mol", "btu/lb", "kJ", "J/kg",
                             "kJ/mol/K", "/", "kJ//mol"}) {
         INFO("unit " << bad);
@@ -298,6 +365,11 @@ TEST_CASE("unknown energy unit lists every known one; case-sensitive", "[units]"
     CHECK(error_of([] { d::from_J_per_mol(1.0, "kj/mol"); }, ErrorKind::unit)
               .find("did you mean 'kJ/mol'") != std::string::npos);
     CHECK_FALSE(d::is_per_mass_unit("mj/kg"));
+    CHECK(d::is_per_mass_unit("Btu/lb"));
+    CHECK(error_of([] { d::from_J_per_mol(1.0, "BTu/lbmol"); }, ErrorKind::unit)
+              .find("did you mean 'BTU/lbmol'") != std::string::npos);
+    CHECK(error_of([] { d::from_J_per_mol(1.0, "Btu/hr"); }, ErrorKind::unit).find("that is a load unit") !=
+          std::string::npos);
 }
 
 TEST_CASE("per-mass unit without a molar mass asks for `per`", "[units]") {
@@ -326,9 +398,24 @@ TEST_CASE("rate and total result units are not mixed", "[units]") {
     // Unknown result unit: every known one is listed.
     msg = error_of([] { d::load_result(1.0, "kj", false); }, ErrorKind::unit);
     for (const char* k : {"J", "kJ", "MJ", "GJ", "kWh", "MWh", "kcal", "BTU", "MMBTU", "therm", "W", "kW",
-                          "MW", "kcal/h", "BTU/h", "MMBTU/h", "TR"})
+                          "MW", "kcal/h", "BTU/h", "MMBTU/h", "TR", "Gcal", "Btu", "MMBtu", "Gcal/h", "Btu/h",
+                          "MMBtu/h", "/hr"})
         CHECK(msg.find(k) != std::string::npos);
     CHECK(msg.find("did you mean 'kJ'") != std::string::npos);
+    // Wrong case keeps its hint; "/hr" totals and rates are not mixed either.
+    CHECK(error_of([] { d::load_result(1.0, "gcal", false); }, ErrorKind::unit).find("did you mean 'Gcal'") !=
+          std::string::npos);
+    CHECK(error_of([] { d::load_result(1.0, "GCAL/H", true); }, ErrorKind::unit)
+              .find("did you mean 'Gcal/h'") != std::string::npos);
+    CHECK(error_of([] { d::load_result(1.0, "mmbtu", false); }, ErrorKind::unit)
+              .find("did you mean 'MMBTU'") != std::string::npos);
+    CHECK(error_of([] { d::load_result(1.0, "Btu/hr", false, "kg"); }, ErrorKind::unit)
+              .find("'kg' is a total, not a flow") != std::string::npos);
+    CHECK(error_of([] { d::load_result(1.0, "Gcal", true, "t/hr"); }, ErrorKind::unit)
+              .find("'t/hr' is a flow") != std::string::npos);
+    for (const char* bad : {"Gcal/H", "Gcal/hrs", "Gcal/hour", "kW/hr", "TR/hr", "Btu/Hr", "MMbtu/h", "/hr",
+                            "hr", "Gcal/hr/h"})
+        error_of([&] { d::load_result(1.0, bad, true); }, ErrorKind::unit);
     for (const char* bad : {"mJ", "Btu", "btu/h", "kW/h", "kJ/mol", "tr", "kWh/h", "hp"})
         error_of([&] { d::load_result(1.0, bad, true); }, ErrorKind::unit);
     error_of([] { d::load_result(1.0, "kJ/mol", false); }, ErrorKind::unit);
@@ -340,13 +427,24 @@ TEST_CASE("bad quantity units and values", "[units]") {
     CHECK(msg.find("scf") != std::string::npos);
     msg = error_of([] { d::quantity_to_mol(1.0, "KG", 18.0); }, ErrorKind::unit);
     CHECK(msg.find("did you mean 'kg'") != std::string::npos);
-    for (const char* k : {"mol", "kmol", "lbmol", "g", "kg", "t", "lb", "Nm3", "scf", "/s", "/min", "/h", "/d"})
+    for (const char* k : {"mol", "kmol", "lbmol", "g", "kg", "t", "lb", "Nm3", "scf", "/s", "/min", "/h", "/d",
+                          "klb", "Sm3", "MMscf", "MMscfd", "/hr"})
         CHECK(msg.find(k) != std::string::npos);
-    for (const char* bad : {"", "   ", "kg/", "kg/hr", "kg/H", "kg/h/s", "/h", "nm3", "SCF", "Mg", "ton",
-                            "lbs", "kmol/y", "kg h", "kg\n/h"})
+    for (const char* bad : {"", "   ", "kg/", "kg/hour", "kg/H", "kg/HR", "kg/h/s", "/h", "/hr", "nm3", "SCF",
+                            "Mg", "ton", "lbs", "kmol/y", "kg h", "kg\n/h", "MMscfd/h", "MMscfd/d",
+                            "MMSCFD", "mmscf", "sm3", "SM3", "KLB", "Klb", "MMscf/day", "scfd", "Sm3/hrs"})
         error_of([&] { d::quantity_unit(bad); }, ErrorKind::unit);
-    msg = error_of([] { d::quantity_unit("kg/hr"); }, ErrorKind::unit);
+    msg = error_of([] { d::quantity_unit("kg/hour"); }, ErrorKind::unit);
     CHECK(msg.find("s, min, h or d") != std::string::npos);
+    CHECK(error_of([] { d::quantity_unit("MMscfd/h"); }, ErrorKind::unit).find("already a flow") !=
+          std::string::npos);
+    CHECK(error_of([] { d::quantity_unit("MMSCFD"); }, ErrorKind::unit).find("did you mean 'MMscfd'") !=
+          std::string::npos);
+    CHECK(error_of([] { d::quantity_unit("sm3/h"); }, ErrorKind::unit).find("did you mean 'Sm3'") !=
+          std::string::npos);
+    CHECK(error_of([] { d::quantity_unit("KLB/h"); }, ErrorKind::unit).find("did you mean 'klb'") !=
+          std::string::npos);
+    CHECK(error_of([] { d::quantity_unit("m3/h"); }, ErrorKind::unit).find("Sm3 at 15") != std::string::npos);
     // A mass needs the key species' molar mass.
     error_of([] { d::quantity_to_mol(1.0, "kg/h"); }, ErrorKind::unit);
     // Non-finite numbers.

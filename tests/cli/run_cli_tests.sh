@@ -667,5 +667,106 @@ expect_out_re "batch unterminated quote: error row" 'not closed'
 run batch "$TMP/long.csv" --json
 jcheck "batch over-long row" 'j["rows"] == 2 and "longer than" in j["results"][0]["error"] and "value" in j["results"][1]'
 
+
+# =================================================================================================
+# Units as the trade writes them (tracker issue 7 item 5): Btu/MMBtu, /hr, Gcal (IT calorie), klb,
+# MMscf/MMscfd, Sm3. Kept in this one block, apart from the rest of the file. Outside reference:
+# GNU units (`units -d 15 -t`); named definitions where GNU units lacks the unit.
+# =================================================================================================
+tu_units() { LC_ALL=C units -d 15 -t "$1" "$2"; }  # GNU units, 15 significant digits
+expect_rel() {  # NAME A B RELATIVE_TOLERANCE
+    if "$PY" -c 'import sys; a,b,t=map(float,sys.argv[1:4]); sys.exit(0 if abs(a-b)<=t*max(abs(a),abs(b)) else 1)' \
+        "$2" "$3" "$4"; then pass; else fail "$1: $2 is not within relative $4 of $3"; fi
+}
+tu_mul() { "$PY" -c 'import sys; print(repr(float(sys.argv[1]) * float(sys.argv[2])))' "$1" "$2"; }
+
+# 10 t/hr of methane: a flow, so the default result is kW.
+run load "$METHANE" 10 t/hr CH4 --json
+expect_rc "trade units: load t/hr" 0
+jcheck "trade units: t/hr is a flow (default kW)" 'j["unit"] == "kW" and j["value"] < 0'
+TU_KW=$(jval value)
+run load "$METHANE" 10 t/h CH4 --json
+expect_out_re "trade units: t/hr = t/h" "\"value\":$TU_KW,"
+# Gcal/h is 10^9 IT calories per hour. source: GNU units: calorie_IT, hour
+run load "$METHANE" 10 t/hr CH4 -u Gcal/h --json
+expect_rc "trade units: -u Gcal/h" 0
+jcheck "trade units: -u Gcal/h echoed" 'j["unit"] == "Gcal/h"'
+expect_rel "trade units: Gcal/h = kW converted by GNU units (1e9 calorie_IT/hour)" "$(jval value)" \
+    "$(tu_mul "$TU_KW" "$(tu_units kW '1e9 calorie_IT/hour')")" 1e-12
+TU_GCAL=$(jval value)
+run load "$METHANE" 10 t/hr CH4 -u Gcal/hr --json
+expect_rel "trade units: Gcal/hr = Gcal/h" "$(jval value)" "$TU_GCAL" 0
+# Not the thermochemical Gcal (GNU units' own `Gcal`): the two differ by 0.067 %.
+run load "$METHANE" 10 t/hr CH4 -u kcal/h --json
+pycheck "trade units: Gcal/h is not 10^6 kcal/h (IT vs thermochemical calorie)" "$(jval value)" "$TU_GCAL" <<'EOF'
+import sys
+kcal_h, gcal_h = map(float, sys.argv[1:3])
+r = (kcal_h / 1e6) / gcal_h
+assert abs(r - 4.1868 / 4.184) < 1e-12, r   # calorie_IT / calorie_th (GNU units definitions)
+EOF
+# MMBtu/h and MMBTU/h are one unit. source: GNU units: btu (= btu_IT), hour
+run load "$METHANE" 3 MMscfd CH4 -u MMBtu/h --json
+expect_rc "trade units: MMscfd -u MMBtu/h" 0
+TU_MMBTU=$(jval value)
+run load "$METHANE" 3 MMscfd CH4 -u MMBTU/h --json
+expect_rel "trade units: MMBtu/h = MMBTU/h" "$TU_MMBTU" "$(jval value)" 0
+run load "$METHANE" 3 MMscfd CH4 -u MMBtu/hr --json
+expect_rel "trade units: MMBtu/hr = MMBtu/h" "$TU_MMBTU" "$(jval value)" 0
+# MMscfd = MMscf/d = 10^6 scf per day (scf: ideal gas at 60 °F, 14.696 psia; the trade's
+# definition, written in GNU units' named constants; GNU units has no MMscf).
+run load "$METHANE" 3 MMscfd CH4 --json
+jcheck "trade units: MMscfd is a flow (default kW)" 'j["unit"] == "kW"'
+TU_MMSCFD_KW=$(jval value)
+run load "$METHANE" 3 MMscf/d CH4 --json
+expect_rel "trade units: MMscfd = MMscf/d" "$TU_MMSCFD_KW" "$(jval value)" 0
+run dh "$METHANE" --json
+TU_DH=$(jval value)
+expect_rel "trade units: 3 MMscfd of CH4 burnt, in kW (GNU units: 1e6 ft^3, psi, R, tempF, day)" \
+    "$TU_MMSCFD_KW" "$(tu_mul "$TU_DH" "$(tu_units '3e6 * 14.696 psi * ft^3 / (R * tempF(60)) / day' 'mol/s')")" 1e-12
+expect_rel "trade units: MMBtu/h from MMscfd (GNU units: btu/hour)" "$TU_MMBTU" \
+    "$(tu_mul "$TU_MMSCFD_KW" "$(tu_units kW '1e6 btu/hour')")" 1e-12
+run load "$METHANE" 2 MMscf CH4 -u MMBtu --json
+jcheck "trade units: MMscf is a total, -u MMBtu" 'j["unit"] == "MMBtu" and j["value"] < 0'
+# Sm3 (15 °C) against Nm3 (0 °C), both at 101.325 kPa: ideal gas (common practice), the ratio of
+# the moles is 288.15/273.15.
+run load "$METHANE" 100 Sm3/h CH4 --json
+TU_SM3=$(jval value)
+run load "$METHANE" 100 Nm3/h CH4 --json
+expect_rel "trade units: Nm3/h over Sm3/h = 288.15/273.15" "$("$PY" -c "print($(jval value) / $TU_SM3)")" \
+    "$("$PY" -c 'print(288.15 / 273.15)')" 1e-12
+run load "$METHANE" 100 Sm3/hr CH4 --json
+expect_rel "trade units: Sm3/hr = Sm3/h" "$(jval value)" "$TU_SM3" 0
+# klb = 1000 lb (GNU units: klb); klb/hr a mass flow.
+run load "$METHANE" 5 klb/hr CH4 --json
+TU_KLB=$(jval value)
+run load "$METHANE" 5 lb/h CH4 --json
+expect_rel "trade units: klb/hr = 1000 lb/h (GNU units klb/lb)" "$TU_KLB" \
+    "$(tu_mul "$(jval value)" "$(tu_units klb lb)")" 1e-12
+# Btu per mass and per amount beside BTU.
+run dh "$METHANE" -u Btu/lb --per CH4 --json
+TU_BTULB=$(jval value)
+run dh "$METHANE" -u BTU/lb --per CH4 --json
+expect_rel "trade units: dh Btu/lb = BTU/lb" "$TU_BTULB" "$(jval value)" 0
+run dh "$METHANE" -u Btu/lbmol --json
+expect_rel "trade units: dh Btu/lbmol (GNU units: btu, lb/g mol)" "$(jval value)" \
+    "$(tu_mul "$TU_DH" "$(tu_units 'kJ/mol' 'btu / ((lb/g) * mol)')")" 1e-12
+# Still case-sensitive, with a hint; a one-word flow takes no second time.
+run load "$METHANE" 10 t/hr CH4 -u mmbtu/h
+expect_rc "trade units: wrong case refused" 2
+expect_err_re "trade units: wrong case hint" "did you mean 'MMBTU/h'"
+run load "$METHANE" 3 MMSCFD CH4
+expect_rc "trade units: MMSCFD refused" 2
+expect_err_re "trade units: MMSCFD hint" "did you mean 'MMscfd'"
+run load "$METHANE" 3 MMscfd/d CH4
+expect_rc "trade units: MMscfd/d refused" 2
+expect_err_re "trade units: MMscfd/d words" "already a flow"
+run load "$METHANE" 10 t/hr CH4 -u Gcal
+expect_rc "trade units: a total unit for a /hr flow" 2
+expect_err_re "trade units: a total unit for a /hr flow, words" "is a flow"
+run load "$METHANE" 10 kg/hour CH4
+expect_rc "trade units: kg/hour refused" 2
+expect_err_re "trade units: unknown unit lists Sm3 and MMscfd" "Sm3.*MMscfd"
+# ---- end of the trade-units block ----------------------------------------------------------------
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]
