@@ -461,12 +461,12 @@ jcheck "version --json" 'j["function"] == "RXNVERSION" and j["result"].startswit
 run why RXNDH "$METHANE"
 expect_rc "why RXNDH ok: exit 0" 0
 expect_out "why RXNDH ok" "ok"
-run why RXNLOAD "$METHANE" 500 kg/hr CH4 kW
-expect_rc "why RXNLOAD kg/hr: exit 2" 2
-expect_out_re "why RXNLOAD names kg/hr" 'kg/hr'
-run why RXNLOAD "$METHANE" 500 kg/hr CH4 kW --json
+run why RXNLOAD "$METHANE" 500 kg/hour CH4 kW
+expect_rc "why RXNLOAD kg/hour: exit 2" 2
+expect_out_re "why RXNLOAD names kg/hour" 'kg/hour'
+run why RXNLOAD "$METHANE" 500 kg/hour CH4 kW --json
 expect_rc "why --json: exit 2" 2
-jcheck "why --json" 'j["ok"] is False and "kg/hr" in j["result"] and j["function"] == "RXNWHY" and j["input"]["function"] == "RXNLOAD" and j["input"]["arguments"][1] == "500"'
+jcheck "why --json" 'j["ok"] is False and "kg/hour" in j["result"] and j["function"] == "RXNWHY" and j["input"]["function"] == "RXNLOAD" and j["input"]["arguments"][1] == "500"'
 run why load "$METHANE" 500 kg/h CH4 kW
 expect_out "why by command name, a good call" "ok"
 run why RXNLOAD "$METHANE" lots kg CH4
