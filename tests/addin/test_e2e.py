@@ -21,6 +21,7 @@ import tempfile
 import time
 import traceback
 import zipfile
+import json
 
 sys.dont_write_bytecode = True  # no __pycache__ in the source tree
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
@@ -185,6 +186,79 @@ def check_wizard_texts(checks, office):
                   found["RXNDH"]["Description"], found["RXNDH"]["Description"])
         temp = found["RXNDH"]["Arguments"][1].Description
         checks.ok("wizard: temperature argument shows °C", "350 \u00b0C" in temp, temp)
+
+
+def check_wizard_from_catalogue(checks, office, svc, path):
+    """The Function Wizard's texts are the catalogue's (rxnheat-gen texts wrote them out)."""
+    with open(path, encoding="utf-8") as f:
+        catalogue = json.load(f)
+    fd = office.smgr.createInstanceWithContext("com.sun.star.sheet.FunctionDescriptions",
+                                                office.ctx)
+    found = {}
+    for i in range(fd.getCount()):
+        d = {p.Name: p.Value for p in fd.getByIndex(i)}
+        if d.get("Name") in catalogue:
+            found[d["Name"]] = d
+    checks.ok("wizard: every catalogue function listed (%d)" % len(catalogue),
+              sorted(found) == sorted(catalogue), "%s vs %s" % (sorted(found), sorted(catalogue)))
+    for name, spec in catalogue.items():
+        d = found.get(name)
+        if d is None:
+            continue
+        checks.ok("wizard: %s description = catalogue" % name,
+                  d["Description"] == spec["description"], d["Description"])
+        checks.ok("XAddIn: %s <-> %s" % (name, spec["method"]),
+                  svc.getDisplayFunctionName(spec["method"]) == name and
+                  svc.getProgrammaticFuntionName(name) == spec["method"])
+        arguments = list(d.get("Arguments") or ())
+        want = [a["name"] for a in spec["arguments"]]
+        checks.ok("wizard: %s argument names = catalogue" % name,
+                  [a.Name for a in arguments] == want, "%s vs %s" % ([a.Name for a in arguments], want))
+        for a, w in zip(arguments, spec["arguments"]):
+            checks.ok("wizard: %s(%s) text holds the catalogue's help" % (name, a.Name),
+                      w["help"] in a.Description, a.Description)
+            direct = svc.getArgumentDescription(spec["method"], spec["arguments"].index(w))
+            checks.ok("XAddIn: %s(%s) description = the wizard's" % (name, a.Name),
+                      direct == a.Description, "%r vs %r" % (direct, a.Description))
+
+
+def check_why_and_tables(checks, sh):
+    """RXNWHY over a variable argument list, and a column of reactions × a row of temperatures."""
+    sh.put("AC1", CH4_COMBUSTION)
+    why = sh.evaluate(['=RXNWHY("RXNLOAD";AC1;500;"kg/hour";"CH4";"kW")',
+                       '=RXNWHY("RXNLOAD";AC1;500;"kg/hr";"CH4";"kW")',
+                       '=RXNWHY("RXNDH";AC1)',
+                       '=RXNWHY("RXNDH";AC1;"350 Q")',
+                       '=RXNWHY("NOSUCH";AC1)'])
+    checks.ok("RXNWHY names the bad unit kg/hour", why[0].kind == "text" and "kg/hour" in why[0].text,
+              repr(why[0]))
+    checks.ok("RXNWHY of a good RXNLOAD call (kg/hr, as the trade writes it): ok", why[1].text == "ok",
+              repr(why[1]))
+    checks.ok("RXNWHY(\"RXNDH\"; A1): ok", why[2].text == "ok", repr(why[2]))
+    checks.ok("RXNWHY names the bad temperature", why[3].text not in ("", "ok") and
+              "temperature" in why[3].text, repr(why[3]))
+    checks.ok("RXNWHY of an unknown function says so", "NOSUCH" in why[4].text, repr(why[4]))
+    # A column of 3 reactions with a row of 5 temperatures: the whole 3×5 table in one call.
+    reactions = [CH4_COMBUSTION_GAS, "2 H2(g) + O2(g) -> 2 H2O(g)", "1/2 N2(g) + 3/2 H2(g) -> NH3(g)"]
+    temperatures = [298.15, 400, "176.85 C", 500, "990 R"]  # 450 K = 176.85 °C, 550 K = 990 °R
+    for i, r in enumerate(reactions):
+        sh.put("AD%d" % (i + 1), r)
+    columns = ["AE", "AF", "AG", "AH", "AI"]
+    for j, t in enumerate(temperatures):
+        sh.put("%s5" % columns[j], t)
+    grid = sh.array("AE1:AI3", "=RXNDH(AD1:AD3;AE5:AI5)")
+    singles = sh.evaluate(["=RXNDH(AD%d;%s5)" % (i + 1, columns[j])
+                           for i in range(3) for j in range(5)])
+    checks.ok("RXNDH(column of 3; row of 5) fills 3×5 with numbers",
+              len(grid) == 3 and all(len(row) == 5 and all(c.number is not None for c in row)
+                                     for row in grid), repr(grid))
+    for i in range(3):
+        for j in range(5):
+            checks.close("table element (%d,%d) = single-cell RXNDH" % (i + 1, j + 1),
+                         grid[i][j].number, singles[5 * i + j].number, 1e-9)
+    # CODATA Key Values (Cox et al. 1989): ΔfH° H2O(g) −241.826 kJ/mol at 298.15 K.
+    checks.close("table (2,1): 2 H2 + O2 -> 2 H2O(g) at 298.15 K (CODATA)", grid[1][0].number,
+                 -483.65, 0.1)
 
 
 def check_typical_values(checks, sh, cli, version):
@@ -573,7 +647,8 @@ BAD_ARGUMENTS = [
     ("SPECIESCP outside the data", "=SPECIESCP(\"N2(g)\";50)"),
     ("SPECIESHF unknown species", "=SPECIESHF(\"Xx(g)\")"),
     ("MOLARMASS not a formula", "=MOLARMASS(\"Hello\")"),
-    ("temperature as a range", "=RXNDH(%s;Z1:Z3)" % q(CH4_COMBUSTION)),
+    # A range where one value is needed (a temperature range spreads into an array instead).
+    ("unit as a range", "=RXNDH(%s;;Z1:Z3)" % q(CH4_COMBUSTION)),
     ("table that is one cell", "=RXNDH(%s;;;;\"CH4\")" % q(CH4_COMBUSTION)),
     ("RXNBALANCE of text that is no reaction", "=RXNBALANCE(\"water\")"),
 ]
@@ -609,7 +684,9 @@ def check_errors(checks, sh, svc):
         if temperature:
             tval = float(temperature) if not temperature.startswith('"') else temperature[1:-1]
         try:
-            svc.rxnDH(reaction if reaction else None, tval, None, None, None)
+            # The text the cell holds ("" for the empty one: an omitted argument, None, is
+            # "is required", while an empty cell or text is "is required but empty").
+            svc.rxnDH(reaction, tval, None, None, None)
             checks.ok("malformed (%s): direct call raises" % name, False, "returned a value")
         except Exception as e:
             msg = getattr(e, "Message", None)
@@ -726,6 +803,7 @@ def main():
     ap.add_argument("--oxt", required=True)
     ap.add_argument("--version", required=True, help="the project version the .oxt must carry")
     ap.add_argument("--cli", help="the rxnheat command line, for the engine's own answers")
+    ap.add_argument("--wizard-texts", help="the catalogue's Function Wizard texts (rxnheat-gen texts)")
     ap.add_argument("--timeout", type=int, default=170)
     ap.add_argument("--keep", action="store_true", help="keep the work folder")
     args = ap.parse_args()
@@ -764,6 +842,10 @@ def main():
         checks.ok("programmatic name of RXNLOAD",
                   svc.getProgrammaticFuntionName("RXNLOAD") == "rxnLoad")
         check_wizard_texts(checks, off)
+        if args.wizard_texts:
+            check_wizard_from_catalogue(checks, off, svc, args.wizard_texts)
+        else:
+            checks.skip("wizard texts = catalogue", "no --wizard-texts given")
         doc = off.new_calc()
         sh = Sheet(doc)
         sections = [("typical values", lambda: check_typical_values(checks, sh, cli, args.version)),
@@ -773,6 +855,7 @@ def main():
                     ("unicode", lambda: check_unicode(checks, sh, svc)),
                     ("errors", lambda: check_errors(checks, sh, svc)),
                     ("species table", lambda: check_table(checks, sh)),
+                    ("RXNWHY and tables", lambda: check_why_and_tables(checks, sh)),
                     ("alive", lambda: check_alive(checks, off, sh))]
         for name, run in sections:
             t0 = time.monotonic()

@@ -48,7 +48,7 @@ struct Arg {
     static Arg of(Cell c) { Arg a; a.kind = Kind::cell; a.cell = std::move(c); return a; }
     static Arg of(double x) { return of(Cell::of(x)); }
     static Arg of(std::string s) { return of(Cell::of(std::move(s))); }
-    static Arg range(std::size_t rows, std::size_t cols, std::vector<Cell> cells);
+    RXNHEAT_API static Arg range(std::size_t rows, std::size_t cols, std::vector<Cell> cells);
     static Arg of(std::shared_ptr<const SpeciesTable> t) { Arg a; a.kind = Kind::table; a.table = std::move(t); return a; }
 };
 

@@ -1,12 +1,12 @@
 // Benchmark only (tests/bench/bench_addin.py), never shipped in rxnheat.oxt.
 //
 // BENCHNOOP(reaction; [temperature]; [unit]; [per]; [table]) has RXNDH's shape and reads its
-// arguments with the rxnheat add-in's own engine-free code (addin/src/uno_args.hpp: type
+// arguments with engine-free code of the add-in's former hand-written shape (noop_args.hpp: type
 // checks, blank and omitted arguments, 1x1 ranges, UTF-16 -> UTF-8 conversion and trimming of
 // the text, a range as the first argument giving an array of the same shape), then returns 0.0
 // for every reaction without calling any engine. The time a sheet of BENCHNOOP cells takes is
 // the floor that RXNDH's own cost sits on.
-#include "uno_args.hpp"
+#include "noop_args.hpp"
 
 #include <com/sun/star/lang/IllegalArgumentException.hpp>
 #include <com/sun/star/lang/Locale.hpp>

@@ -1,9 +1,8 @@
-#include "uno_args.hpp"
+#include "noop_args.hpp"
 
 #include <rtl/string.hxx>
 #include <rtl/textenc.h>
 #include <rtl/textcvt.h>
-#include <sal/mathconf.h>
 
 #include <cmath>
 #include <cstdio>
@@ -41,18 +40,12 @@ std::string number_text(double v) {
 }  // namespace
 
 std::string to_utf8(const OUString& text, int position) {
-    OString out;
-    if (!text.convertToString(&out, RTL_TEXTENCODING_UTF8,
-                              RTL_UNICODETOTEXT_FLAGS_UNDEFINED_ERROR |
-                                  RTL_UNICODETOTEXT_FLAGS_INVALID_ERROR))
+    std::string out;
+    if (!rxnheat::addin::to_utf8(text, out))
         throw ArgError("the text contains a character that is not valid Unicode "
                        "(a lone UTF-16 surrogate)",
                        position);
-    return std::string(out.getStr(), static_cast<std::size_t>(out.getLength()));
-}
-
-OUString from_utf8(std::string_view text) {
-    return OUString(text.data(), static_cast<sal_Int32>(text.size()), RTL_TEXTENCODING_UTF8);
+    return out;
 }
 
 Given classify(const uno::Any& value) {
@@ -203,14 +196,6 @@ std::vector<std::vector<std::string>> range_texts(const uno::Any& value, const c
         rows.push_back(std::move(row));
     }
     return rows;
-}
-
-double error_element(bool internal) {
-    // LibreOffice's formula error codes: 502 = invalid argument, 519 = #VALUE!.
-    sal_math_Double v;
-    v.value = std::numeric_limits<double>::quiet_NaN();
-    v.nan_parts.fraction_lo = internal ? 519u : 502u;
-    return v.value;
 }
 
 }  // namespace rxnheat_addin

@@ -1,13 +1,15 @@
-// Reading Calc's UNO argument values, with no dependency on the rxnheat engine: the kind of an
-// argument, blank and omitted arguments, 1x1 ranges, text and numbers, UTF-16 <-> UTF-8, the
-// cells of a range as text, and the office's error value for one element of an array result.
-// Compiled into the rxnheat add-in (through convert.hpp) and into the benchmark's do-nothing
-// add-in (tests/bench/noop_addin), which must not link the engine.
+// Benchmark only: the do-nothing add-in's reading of Calc's UNO argument values, with no
+// dependency on the rxnheat engine (the kind of an argument, blank and omitted arguments, 1x1
+// ranges, text and numbers, the cells of a range as text). It is the reading the rxnheat add-in
+// did by hand before it read every argument by the catalogue's rules; the text conversion and
+// the error value are the add-in's own (addin/src/uno_text.hpp).
 #pragma once
 
 #include <com/sun/star/uno/Any.hxx>
 #include <com/sun/star/uno/Sequence.hxx>
 #include <rtl/ustring.hxx>
+
+#include "uno_text.hpp"
 
 #include <stdexcept>
 #include <string>
@@ -32,8 +34,8 @@ private:
 
 /// UTF-16 -> UTF-8, lossless; ArgError for text that is not valid UTF-16 (lone surrogates).
 std::string to_utf8(const OUString& text, int position = -1);
-/// UTF-8 -> UTF-16, lossless; invalid bytes (never expected from the engine) become U+FFFD.
-OUString from_utf8(std::string_view text);
+using rxnheat::addin::from_utf8;
+using rxnheat::addin::error_element;
 
 /// What an argument slot held.
 enum class Given { nothing, text, number, range };
@@ -70,10 +72,5 @@ double required_number_arg(const uno::Any& value, const char* name, int position
 /// (naming `name`) for a nested range. `value` must be a range (classify() == Given::range).
 std::vector<std::vector<std::string>> range_texts(const uno::Any& value, const char* name,
                                                   int position);
-
-/// The value Calc shows as an error in one element of an array result: a NaN whose payload is
-/// the office's error code (Err:502 for bad input, #VALUE! for an internal failure), the same
-/// representation Calc uses for error values inside matrices. It is never a number.
-double error_element(bool internal);
 
 }  // namespace rxnheat_addin
