@@ -41,6 +41,24 @@ std::string layers(const FunctionSpec& f) {
     return s;
 }
 
+/// The command's arguments as its --help usage line writes them (a CLI test holds the two
+/// together): positionals in order, then each option by its short name if it has one.
+std::string cli_arguments(const FunctionSpec& f) {
+    std::string out;
+    // A required argument is a positional even where it has an option name (SPECIESCP's TEMP).
+    for (const auto& a : f.args)
+        if (!a.cli_option || a.required)
+            out += std::string(out.empty() ? "" : " ") + a.cli_value + (a.kind == ArgKind::rest ? "..." : "");
+    for (const auto& a : f.args)
+        if (a.cli_option && !a.required) {
+            std::string opt = a.cli_option;
+            const auto comma = opt.find(',');
+            out += std::string(out.empty() ? "" : " ") + "[" + (comma == std::string::npos ? opt : opt.substr(0, comma)) +
+                   " " + a.cli_value + "]";
+        }
+    return out;
+}
+
 }  // namespace
 
 std::string functions_markdown() {
@@ -76,25 +94,21 @@ std::string functions_markdown() {
                        (a.spreads ? "yes" : "") + " | " + cell(a.help) + " |\n";
             out += "\n";
         }
-        out += "Command line: `rxnheat " + std::string(f.cli_command);
-        for (const auto& a : f.args)
-            if (!a.cli_option) out += std::string(" ") + a.cli_value;
-        for (const auto& a : f.args)
-            if (a.cli_option) {
-                std::string opt = a.cli_option;
-                const auto comma = opt.find(',');
-                out += " [" + (comma == std::string::npos ? opt : opt.substr(0, comma)) + " " + a.cli_value + "]";
-            }
-        out += "`; stored in documents as `ORG.RXNHEAT.CALC.FUNCTIONS." + std::string(f.idl_method) + "`.\n";
+        const std::string args = cli_arguments(f);
+        out += "Command line: `rxnheat " + std::string(f.cli_command) + (args.empty() ? "" : " " + args) +
+               "`; stored in documents as `ORG.RXNHEAT.CALC.FUNCTIONS." + std::string(f.idl_method) + "`.\n";
     }
     return out;
 }
 
 std::string commands_markdown() {
-    std::string out = "| command | cell function | what it gives |\n|---|---|---|\n";
+    std::string out = "| command | arguments | cell function | what it gives |\n|---|---|---|---|\n";
     for (const auto& f : catalogue())
-        if (f.in(layer_cli))
-            out += "| `" + std::string(f.cli_command) + "` | " + f.calc_name + " | " + cell(f.summary) + " |\n";
+        if (f.in(layer_cli)) {
+            const std::string args = cli_arguments(f);
+            out += "| `" + std::string(f.cli_command) + "` | " + (args.empty() ? "" : "`" + cell(args) + "`") + " | [" +
+                   f.calc_name + "](../engine/FUNCTIONS.md#" + f.calc_name + ") | " + cell(f.summary) + " |\n";
+        }
     return out;
 }
 

@@ -7,16 +7,22 @@
 //   rxnheat-gen description FILE  the Extension Manager's description of the .oxt
 //   rxnheat-gen texts FILE        the Function Wizard texts as JSON (the end-to-end test
 //                                 compares what the office shows with them)
+//   rxnheat-gen docs SRCDIR       writes the generated reference pages into the source tree:
+//                                 engine/FUNCTIONS.md and the command table of cli/CLI.md
+//   rxnheat-gen check-docs SRCDIR exit 1, naming the page, when a committed page differs from
+//                                 what the catalogue gives (a CTest test runs this)
 //
 // IDL method names and argument order are frozen (saved documents store
 // ORG.RXNHEAT.CALC.FUNCTIONS.<idl_method>): addin/idl/frozen-methods.txt and its CTest check
 // guard them.
+#include "gen_docs.hpp"
 #include "rxnheat/catalogue.hpp"
 
 #include <cstdio>
 #include <fstream>
 #include <iostream>
 #include <sstream>
+#include <stdexcept>
 #include <string>
 #include <vector>
 
@@ -174,12 +180,62 @@ std::string texts() {
 
 }  // namespace
 
+std::string read_file(const std::string& path) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) throw std::runtime_error("cannot read " + path);
+    std::ostringstream s;
+    s << in.rdbuf();
+    return s.str();
+}
+
+/// The generated pages: path under the source tree -> its text.
+std::vector<std::pair<std::string, std::string>> pages(const std::string& src) {
+    const std::string cli_page = read_file(src + "/cli/CLI.md");
+    return {{"engine/FUNCTIONS.md", rxnheat::gen::functions_markdown()},
+            {"cli/CLI.md", rxnheat::gen::replace_between(cli_page, rxnheat::gen::commands_begin,
+                                                         rxnheat::gen::commands_end,
+                                                         rxnheat::gen::commands_markdown())}};
+}
+
+int docs(const std::string& src, bool check) {
+    int stale = 0;
+    for (const auto& [path, text] : pages(src)) {
+        const std::string full = src + "/" + path;
+        if (check) {
+            std::string now;
+            try {
+                now = read_file(full);
+            } catch (const std::exception&) {
+            }
+            if (now != text) {
+                std::cerr << "rxnheat-gen: " << path << " differs from the catalogue; run scripts/gen-docs\n";
+                ++stale;
+            }
+            continue;
+        }
+        std::ofstream out(full, std::ios::binary);
+        out << text;
+        if (!out) {
+            std::cerr << "rxnheat-gen: cannot write " << full << "\n";
+            return 1;
+        }
+    }
+    if (check) std::cout << (pages(src).size() - stale) << " passed, " << stale << " failed\n";
+    return stale ? 1 : 0;
+}
+
 int main(int argc, char** argv) {
     if (argc != 3) {
-        std::cerr << "usage: rxnheat-gen idl|methods|description|texts FILE\n";
+        std::cerr << "usage: rxnheat-gen idl|methods|description|texts FILE | docs|check-docs SRCDIR\n";
         return 2;
     }
     const std::string mode = argv[1];
+    try {
+        if (mode == "docs" || mode == "check-docs") return docs(argv[2], mode == "check-docs");
+    } catch (const std::exception& e) {
+        std::cerr << "rxnheat-gen: " << e.what() << "\n";
+        return 1;
+    }
     std::string text;
     if (mode == "idl") text = idl();
     else if (mode == "methods") text = methods();

@@ -768,5 +768,23 @@ expect_rc "trade units: kg/hour refused" 2
 expect_err_re "trade units: unknown unit lists Sm3 and MMscfd" "Sm3.*MMscfd"
 # ---- end of the trade-units block ----------------------------------------------------------------
 
+# ---- the generated command table of cli/CLI.md matches each command's own usage line ------------
+CLI_MD="$(dirname "$0")/../../cli/CLI.md"
+while IFS=$'\t' read -r cmd args; do
+    run "$cmd" --help
+    usage=$(head -n 1 "$TMP/out")
+    want="usage: rxnheat $cmd${args:+ $args}"
+    if [ "$usage" == "$want" ]; then pass; else fail "CLI.md row for $cmd: '$want' vs --help '$usage'"; fi
+done < <("$PY" - "$CLI_MD" <<'EOF'
+import re, sys
+text = open(sys.argv[1], encoding="utf-8").read()
+body = text.split("<!-- commands: generated from the catalogue, do not edit -->")[1].split("<!-- end of commands -->")[0]
+for line in body.splitlines():
+    m = re.match(r"\| `([a-z]+)` \| (?:`(.*?)`)? \|", line)
+    if m:
+        print("%s\t%s" % (m.group(1), (m.group(2) or "").replace("\\|", "|")))
+EOF
+)
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]
