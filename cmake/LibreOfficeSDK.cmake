@@ -3,8 +3,8 @@
 #   rxnheat_uno_types(...)      our IDL -> .rdb, plus the C++ headers of its types and the office's
 #   rxnheat_uno_component(...)  a UNO component module (.uno.so) built against the SDK
 #   rxnheat_oxt(...)            stage files and zip them into an .oxt package
-# Include it, then check RXNHEAT_LO_MISSING: empty when everything was found, otherwise the list
-# of what is missing (the caller says so and skips itself).
+# Including it stops the configuration with a message when any part of the SDK is missing: a
+# folder that includes it builds an add-in, and an add-in that was asked for is never skipped.
 include_guard(DIRECTORY)
 
 set(LIBREOFFICE_PROGRAM_DIR /usr/lib/libreoffice/program CACHE PATH
@@ -22,18 +22,36 @@ find_program(RXNHEAT_ZIP zip)
 set(RXNHEAT_LO_TYPES_RDB ${LIBREOFFICE_PROGRAM_DIR}/types.rdb)
 set(RXNHEAT_LO_OFFAPI_RDB ${LIBREOFFICE_PROGRAM_DIR}/types/offapi.rdb)
 
+# What is missing, in words (the variable names mean nothing to someone who just wants to build).
 set(RXNHEAT_LO_MISSING)
-foreach(v RXNHEAT_UNOIDL_WRITE RXNHEAT_CPPUMAKER RXNHEAT_LO_INCLUDE_DIR RXNHEAT_UNO_CPPU
-          RXNHEAT_UNO_CPPUHELPER RXNHEAT_UNO_SAL)
+foreach(pair "RXNHEAT_UNOIDL_WRITE:the unoidl-write tool"
+             "RXNHEAT_CPPUMAKER:the cppumaker tool"
+             "RXNHEAT_LO_INCLUDE_DIR:the SDK headers (sal/types.h)"
+             "RXNHEAT_UNO_CPPU:the library uno_cppu"
+             "RXNHEAT_UNO_CPPUHELPER:the library uno_cppuhelpergcc3"
+             "RXNHEAT_UNO_SAL:the library uno_sal")
+  string(REPLACE ":" ";" parts "${pair}")
+  list(GET parts 0 v)
+  list(GET parts 1 what)
   if(NOT ${v})
-    list(APPEND RXNHEAT_LO_MISSING ${v})
+    list(APPEND RXNHEAT_LO_MISSING "${what}")
   endif()
 endforeach()
 foreach(f ${RXNHEAT_LO_TYPES_RDB} ${RXNHEAT_LO_OFFAPI_RDB})
   if(NOT EXISTS ${f})
-    list(APPEND RXNHEAT_LO_MISSING ${f})
+    list(APPEND RXNHEAT_LO_MISSING "the office's type library ${f}")
   endif()
 endforeach()
+if(RXNHEAT_LO_MISSING)
+  list(JOIN RXNHEAT_LO_MISSING ", " missing_text)
+  message(FATAL_ERROR
+    "The Calc add-in (option RXNHEAT_ADDIN, ON by default) needs the LibreOffice SDK and the "
+    "office's type libraries, and these were not found: ${missing_text}.\n"
+    "Install the Debian packages libreoffice-dev and libreoffice-calc-nogui "
+    "(scripts/setup installs everything in scripts/packages.txt), or point "
+    "LIBREOFFICE_SDK_DIR / LIBREOFFICE_PROGRAM_DIR at another LibreOffice, "
+    "or configure with -DRXNHEAT_ADDIN=OFF to build without the add-in.")
+endif()
 
 # The platform name of an .oxt built here (description.xml, manifest.xml).
 if(CMAKE_SYSTEM_PROCESSOR MATCHES "^(x86_64|amd64|AMD64)$")

@@ -5,7 +5,7 @@ Run by scripts/demo.
 
     /usr/bin/python3 scripts/demo-costing.py --oxt build/addin/rxnheat.oxt --out build/demo
 
-The office runs with a private profile under OUT/office (tests/addin/office.py), in which the
+The office runs with a private profile under OUT/office (scripts/office.py), in which the
 add-in is installed through the office's own Extension Manager: this works the same for root
 and for a normal user, and never touches a LibreOffice the user has open. Everything is
 time-bound; the office is killed on exit. Exit status 0 when every heat load was computed.
@@ -18,7 +18,7 @@ import sys
 import time
 
 TOP = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
-sys.path.insert(0, os.path.join(TOP, "tests", "addin"))
+sys.path.insert(0, os.path.join(TOP, "scripts"))
 import office as officelib  # noqa: E402  (the system python3 with python3-uno)
 
 

@@ -25,7 +25,8 @@ import json
 
 sys.dont_write_bytecode = True  # no __pycache__ in the source tree
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-import office as officelib  # noqa: E402  (needs the system python3 with python3-uno)
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "scripts"))
+import office as officelib  # noqa: E402  (scripts/office.py; needs the system python3 with python3-uno)
 from common import Checks, EngineCli, Timeout, iupac_molar_mass  # noqa: E402
 import uno  # noqa: E402
 

@@ -32,7 +32,8 @@ import traceback
 import xml.etree.ElementTree as ET
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-import office as officelib  # noqa: E402  (needs the system python3 with python3-uno)
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "scripts"))
+import office as officelib  # noqa: E402  (scripts/office.py; needs the system python3 with python3-uno)
 from common import Checks, EngineCli, Timeout, iupac_molar_mass  # noqa: E402
 
 TOP = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))

@@ -85,7 +85,7 @@ TEST_CASE("add-in: omitted arguments (void) take their defaults") {
     CHECK(d == Approx(ch4_dh_kJ).margin(ch4_tolerance_kJ));  // CODATA Key Values / NASA Glenn
 }
 
-TEST_CASE("add-in: empty strings in optional arguments are omitted; in a required one, an error") {
+TEST_CASE("add-in: empty strings in optional arguments are omitted, and in a required one, an error") {
     const double omitted = as_number(value(dh(text(ch4_combustion))));
     CHECK(as_number(value(dh(text(ch4_combustion), text(""), text(""), text(""), text("")))) == omitted);
     CHECK(as_number(value(dh(text(ch4_combustion), text("  "), text(" "), text(""), text("")))) == omitted);

@@ -124,7 +124,7 @@ TEST_CASE("elements.csv weights agree with python3-periodictable", "[tables][ext
                                                                             << ")");
 }
 
-TEST_CASE("aliases.csv parses; every record it names exists with the right phase", "[tables]") {
+TEST_CASE("aliases.csv parses, and every record it names exists with the right phase", "[tables]") {
     const auto& as = aliases();
     CHECK(as.size() > 100);
     std::size_t names_checked = 0;

@@ -347,7 +347,7 @@ TEST_CASE("a load end to end: kg/h of methane burnt to kW", "[units]") {
 
 // ---- errors ---------------------------------------------------------------------------------------
 
-TEST_CASE("unknown energy unit lists every known one; case-sensitive", "[units]") {
+TEST_CASE("unknown energy unit lists every known one, and units are case-sensitive", "[units]") {
     const std::vector<std::string> known = {"J/mol", "kJ/mol", "MJ/kmol", "kcal/mol", "cal/mol", "BTU/lbmol",
                                             "Btu/lbmol", "kJ/kg", "MJ/kg", "kJ/g", "kcal/kg", "BTU/lb",
                                             "Btu/lb"};

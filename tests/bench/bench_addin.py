@@ -32,7 +32,7 @@ What it measures (medians over --runs recalculations, or over --trials fresh off
                  first =RXNDH result, split into office start, new document, first formula;
                  the same with =BENCHNOOP (add-in loading without the engine) and =LEN (no
                  add-in) in offices whose profiles hold only that add-in or none. The office
-                 start is quantised by tests/addin/office.py, which polls for the connection
+                 start is quantised by scripts/office.py, which polls for the connection
                  every 0.25 s; the first-result time is measured to the microsecond.
   memory         VmRSS (and the peak, VmHWM) of soffice.bin from /proc/PID/status: with an
                  empty document before the first add-in call, after the first call, and after
@@ -53,8 +53,8 @@ import time
 
 sys.dont_write_bytecode = True  # no __pycache__ in the source tree
 HERE = os.path.dirname(os.path.abspath(__file__))
-sys.path.insert(0, os.path.join(HERE, "..", "addin"))
-import office as officelib  # noqa: E402  (tests/addin/office.py; needs python3-uno)
+sys.path.insert(0, os.path.join(HERE, "..", "..", "scripts"))
+import office as officelib  # noqa: E402  (scripts/office.py; needs python3-uno)
 
 # A realistic mix of 20 reactions a process engineer's sheet would hold (combustion, synthesis
 # gas, ammonia and acid plants, calcination, hydrogenation), written the ways SPEC section 2

@@ -122,7 +122,7 @@ TEST_CASE("a required argument: 0 is kept, blank is an error naming it", "[catal
     CHECK(has(no_T.text, "'temperature' is required"));
 }
 
-TEST_CASE("the CLI reads text numbers strictly; Calc wants numbers", "[catalogue][args]") {
+TEST_CASE("the CLI reads text numbers strictly, and Calc wants numbers", "[catalogue][args]") {
     CHECK(number_of(one("RXNLOAD", {text(CH4), text("2.5"), text("mol"), text("CH4(g)")}, cli)) ==
           eng().load(CH4, 2.5, "mol", "CH4(g)"));  // Engine::load directly
     const rxnheat::Outcome sloppy = one("RXNLOAD", {text(CH4), text("2.5x"), text("mol"), text("CH4(g)")}, cli);
@@ -138,7 +138,7 @@ TEST_CASE("the CLI reads text numbers strictly; Calc wants numbers", "[catalogue
               "'quantity' is not a finite number"));
 }
 
-TEST_CASE("a 1×1 range is its cell; a range where one value belongs is an error", "[catalogue][ranges]") {
+TEST_CASE("a 1×1 range is its cell, and a range where one value belongs is an error", "[catalogue][ranges]") {
     const double dh = eng().dh(CH4);
     // Non-spreading arguments (unit, per, quantity) given as 1×1 ranges.
     CHECK(number_of(one("RXNDH", {text(CH4), Arg::omitted(), Arg::range(1, 1, {t("J/mol")})}, calc)) ==
@@ -213,7 +213,7 @@ TEST_CASE("a column of reactions with a row of temperatures gives the whole tabl
     CHECK(number_of(c.cells[5]) == eng().dh(reactions[1], 1000));
 }
 
-TEST_CASE("ranges of one shape pair cell by cell; other shapes are an error in words", "[catalogue][ranges]") {
+TEST_CASE("ranges of one shape pair cell by cell, and other shapes are an error in words", "[catalogue][ranges]") {
     const Result r = eval("RXNDH", {Arg::range(2, 1, {t(WGS), t(NH3)}), Arg::range(2, 1, {n(600), n(800)})}, calc);
     REQUIRE(r.rows == 2);
     REQUIRE(r.cols == 1);
@@ -308,7 +308,7 @@ TEST_CASE("RXNWHY says ok, or exactly what is wrong", "[catalogue][why]") {
               "'quantity' is required"));
 }
 
-TEST_CASE("a species table given as a range; headers are part of its identity", "[catalogue][table]") {
+TEST_CASE("a species table given as a range, and headers are part of its identity", "[catalogue][table]") {
     const char* const XEF6 = "Xe(g) + 3 F2(g) -> XeF6(g)";
     // Row values are our own test values (an invented row; elements are 0 by definition).
     const Arg a = Arg::range(2, 4, {t("formula"), t("phase"), t("dHf"), t("S"), t("XeF6"), t("g"), n(-279), n(300)});

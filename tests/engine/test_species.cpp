@@ -63,7 +63,7 @@ TEST_CASE("out-of-range temperatures are errors naming the range", "[behaviour][
     CHECK(std::isfinite(eng().species_h("H2O(l)", 273.15)));  // thermo.inp H2O(L) from 273.15 K
 }
 
-TEST_CASE("ambiguous compositions list the candidates; names come from the alias table", "[behaviour][identity]") {
+TEST_CASE("ambiguous compositions list the candidates, and names come from the alias table", "[behaviour][identity]") {
     {
         auto o = attempt([] { return eng().species_hf("C3H6(g)"); });
         INFO(o.message);

@@ -1,4 +1,5 @@
-"""A headless LibreOffice for the add-in's end-to-end tests, driven through Python-UNO.
+"""A headless LibreOffice driven through Python-UNO: for the add-in's end-to-end tests
+(tests/addin/), the benchmark (tests/bench/bench_addin.py), scripts/make-examples and scripts/demo.
 
 Each Office runs with its own throw-away profile (-env:UserInstallation) in its own process
 group, listens on a private pipe, and is killed (the whole group) when stopped or when anything
