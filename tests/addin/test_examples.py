@@ -11,8 +11,11 @@ Installs the built rxnheat.oxt into a private profile, opens each workbook, reca
   of the sheet's own input cells; inputs changed -> results follow;
 - operator template: sheet protected, input cells unlocked and marked, formula cells locked,
   status "ok" for good inputs and RXNCHECK's words (the CLI's `check` text) for bad ones;
-- design sheet: every ΔrH°(T) cell against `rxnheat batch`, the chart (XY scatter, one series
-  per reaction over the temperature column), an out-of-range temperature giving an error;
+- design sheet: the plant's operating points in °C, the table one array formula of the
+  reactions against the temperatures as text with the unit C, every cell against `rxnheat batch`
+  and `rxnheat dh` (in K), the phases written and the note on them, the chart (XY scatter, one
+  series per reaction over the temperature row, °C axis), an edited temperature followed, an
+  out-of-range temperature giving an error in its column only;
 - all three: the stored numbers are the ones the engine computes now (else: run
   scripts/make-examples), the add-in calls are stored the way LibreOffice stores them, the
   invented plant and the cautions are on the sheet.
@@ -390,37 +393,95 @@ def check_operator(checks, office, path, cli):
 
 
 # ------------------------------------------------------------------------------------------
+# 0 °C = 273.15 K (definition of the Celsius scale, SI Brochure 9th ed.; GNU units: tempC(0)).
+ZERO_CELSIUS_K = 273.15
+
+
 def check_design(checks, office, path, cli):
     name = "design"
     doc = office.load(path)
     try:
         table = rng(doc, "DesignTable")
         reactions_rng = rng(doc, "DesignReactions")
+        temps_rng = rng(doc, "DesignTemperatures")
+        points_rng = rng(doc, "DesignPoints")
         sheet = table.getSpreadsheet()
-        n_t = table.Rows.Count
-        n_r = reactions_rng.Columns.Count
-        cells = [table.getCellByPosition(c, r) for r in range(n_t) for c in range(1, 1 + n_r)]
+        n_r = table.Rows.Count
+        n_t = table.Columns.Count
+        cells = [table.getCellByPosition(c, r) for r in range(n_r) for c in range(n_t)]
         check_common(checks, name, path, doc, sheet, cells)
-        temps = [cell_number(table.getCellByPosition(0, r)) for r in range(n_t)]
-        checks.ok("design: temperatures 300..1200 K every 100 K",
-                  temps == [float(t) for t in range(300, 1201, 100)], str(temps))
-        reactions = [reactions_rng.getCellByPosition(c, 0).getString() for c in range(n_r)]
+        temps = [cell_number(temps_rng.getCellByPosition(c, 0)) for c in range(n_t)]
+        points = [points_rng.getCellByPosition(c, 0).getString() for c in range(n_t)]
+        reactions = [reactions_rng.getCellByPosition(0, r).getString() for r in range(n_r)]
         checks.ok("design: two or three reactions", n_r in (2, 3), str(reactions))
+        checks.ok("design: at least five operating points, one temperature each",
+                  n_t >= 5 and temps_rng.Columns.Count == n_t and points_rng.Columns.Count == n_t)
+        checks.ok("design: every operating point named after a unit of the plant",
+                  all(re.search(r"\b[A-Z]-\d{3}\b", p) for p in points), str(points))
+        checks.ok("design: the temperatures are numbers in rising order (the chart joins "
+                  "neighbours)", None not in temps and temps == sorted(temps)
+                  and len(set(temps)) == n_t, str(temps))
+        checks.ok("design: the temperatures are °C operating points (200..1000 °C)",
+                  None not in temps and all(200 <= t <= 1000 for t in temps), str(temps))
+        checks.ok("design: the temperature inputs are yellow input cells",
+                  all(temps_rng.getCellByPosition(c, 0).CellStyle == "rxnheat Input"
+                      for c in range(n_t)))
+        checks.ok("design: the heading says the temperatures are in °C",
+                  "Temperature, \u00b0C" in sheet_text(sheet))
+        # The table is one array formula: the column of reactions against the row of
+        # temperatures, each made text with the unit C.
+        # (the API gives it in braces with ',' between arguments: {=RXNDH(B8:B10,C7:I7&" C")})
+        array = table.getArrayFormula().strip("{}").replace(",", ";")
+        want_array = "=RXNDH(%s;%s&\" C\")" % (
+            reactions_rng.AbsoluteName.split(".")[1].replace("$", ""),
+            temps_rng.AbsoluteName.split(".")[1].replace("$", ""))
+        checks.ok("design: the table is one array formula %s" % want_array,
+                  array.replace(" ", "") == want_array.replace(" ", ""), array)
+        checks.ok("design: the note on the sheet shows the array formula",
+                  "{=RXNDH(" in sheet_text(sheet))
+        # Phases chosen on purpose: every species of every reaction carries one.
+        unphased = [term for rx in reactions
+                    for term in re.split(r"\s*(?:->|\+)\s*", rx)
+                    if not re.search(r"\((?:g|l|s|aq|cr)\)$", term)]
+        checks.ok("design: every species is written with its phase", not unphased,
+                  str(unphased))
+        text = sheet_text(sheet)
+        checks.ok("design: a note says which phases were used and why",
+                  "Phases:" in text and "(g)" in text and "steam" in text
+                  and "without a phase" in text)
         if cli:
-            csv = "".join('"%s",%r\n' % (rx, t) for t in temps for rx in reactions)
+            # The note's claim about water, from the engine: liquid at 90 °C, gas at 110 °C.
+            below = cli.json("species", "H2O", "-T", "90 C")
+            above = cli.json("species", "H2O", "-T", "110 C")
+            checks.ok("design: the note holds: unphased H2O is liquid at 90 °C, gas at 110 °C "
+                      "(CLI species)", below.get("species") == "H2O(l)"
+                      and above.get("species") == "H2O(g)",
+                      "%r / %r" % (below.get("species"), above.get("species")))
+
+        if cli:
+            # Every cell against `rxnheat batch` given the same temperature text ("370 C").
+            csv = "".join('"%s","%s C"\n' % (rx, "%g" % t) for rx in reactions for t in temps)
             j = cli.json("batch", "-", stdin=csv)
             want = [float(x["value"]) if "value" in x else None for x in j["results"]]
             for i, c in enumerate(cells):
-                checks.rel("design: %s at %g K = CLI batch" % (reactions[i % n_r], temps[i // n_r]),
+                checks.rel("design: %s at %g °C = CLI batch" % (reactions[i // n_t],
+                                                                 temps[i % n_t]),
                            cell_number(c), want[i], 1e-12)
-        # each column against the CLI's dh at one temperature too (another command)
-        if cli:
-            for c, rx in enumerate(reactions):
-                checks.rel("design: %s at 800 K = CLI dh" % rx, cell_number(
-                    table.getCellByPosition(c + 1, 5)), float(cli.json("dh", rx, "-T", "800")
-                                                             ["value"]), 1e-12)
+            # ... and against `rxnheat dh` at the same temperature in kelvin (another command,
+            # and the add-in's °C text against plain arithmetic: T/K = t/°C + 273.15).
+            for r, rx in enumerate(reactions):
+                for c in (0, n_t - 1):
+                    t_k = temps[c] + ZERO_CELSIUS_K
+                    j = cli.json("dh", rx, "-T", repr(t_k))
+                    checks.rel("design: %s at %g °C = CLI dh at %r K" % (rx, temps[c], t_k),
+                               cell_number(table.getCellByPosition(c, r)), float(j["value"]),
+                               1e-12)
+            j = cli.json("dh", reactions[0], "-T", "%g C" % temps[0])
+            checks.close("design: CLI reads \"%g C\" as %g + 273.15 K" % (temps[0], temps[0]),
+                         float(j["temperature_K"]), temps[0] + ZERO_CELSIUS_K, 1e-9,
+                         "(SI: 0 °C = 273.15 K)")
 
-        # The chart: one, XY scatter, a series per reaction over the temperature column.
+        # The chart: one, XY scatter, a series per reaction row over the temperature row.
         charts = sheet.getCharts()
         checks.ok("design: one chart on the sheet", charts.Count == 1, str(charts.Count))
         if charts.Count:
@@ -435,7 +496,7 @@ def check_design(checks, office, path, cli):
                       ["com.sun.star.chart2.ScatterChartType"], str(kinds))
             checks.ok("design: %d series, one per reaction" % n_r, len(series) == n_r,
                       str(len(series)))
-            t_col = table.getCellRangeByPosition(0, 0, 0, n_t - 1).AbsoluteName
+            t_row = temps_rng.AbsoluteName
             for i, s in enumerate(series):
                 roles = {}
                 label = None
@@ -444,23 +505,41 @@ def check_design(checks, office, path, cli):
                     roles[v.getPropertyValue("Role")] = v.getSourceRangeRepresentation()
                     if ls.getLabel() is not None and v.getPropertyValue("Role") == "values-y":
                         label = ls.getLabel().getData()[0]
-                y_col = table.getCellRangeByPosition(i + 1, 0, i + 1, n_t - 1).AbsoluteName
-                checks.ok("design: series %d x = the temperature column" % (i + 1),
-                          roles.get("values-x") == t_col, "%r vs %r" % (roles, t_col))
-                checks.ok("design: series %d y = its reaction's column" % (i + 1),
-                          roles.get("values-y") == y_col, "%r vs %r" % (roles, y_col))
-                checks.ok("design: series %d named after its reaction, with the unit" % (i + 1),
-                          label is not None and "kJ/mol" in label, str(label))
+                y_row = table.getCellRangeByPosition(0, i, n_t - 1, i).AbsoluteName
+                checks.ok("design: series %d x = the temperature row (°C)" % (i + 1),
+                          roles.get("values-x") == t_row, "%r vs %r" % (roles, t_row))
+                checks.ok("design: series %d y = its reaction's row" % (i + 1),
+                          roles.get("values-y") == y_row, "%r vs %r" % (roles, y_row))
+                checks.ok("design: series %d named by its reaction as written" % (i + 1),
+                          label == reactions[i], "%r vs %r" % (label, reactions[i]))
+            diagram = chart.getDiagram()
             checks.ok("design: chart has a title and axis titles",
-                      chart.HasMainTitle and chart.getDiagram().HasXAxisTitle
-                      and chart.getDiagram().HasYAxisTitle)
+                      chart.HasMainTitle and diagram.HasXAxisTitle and diagram.HasYAxisTitle)
+            checks.ok("design: the temperature axis is in °C",
+                      diagram.getXAxisTitle().String == "Temperature, \u00b0C",
+                      diagram.getXAxisTitle().String)
+            checks.ok("design: the ΔrH° axis is in kJ/mol",
+                      "kJ/mol" in diagram.getYAxisTitle().String)
 
-        # A temperature beyond the data: errors in that row, never an extrapolated number.
-        table.getCellByPosition(0, n_t - 1).setValue(7000)
+        # An edited temperature: its column follows, in °C.
+        t_new = temps[0] + 10.0
+        temps_rng.getCellByPosition(0, 0).setValue(t_new)
         doc.calculateAll()
-        errs = [table.getCellByPosition(c, n_t - 1).getError() for c in range(1, 1 + n_r)]
-        checks.ok("design: 7000 K -> Err:502 in every column", errs == [ERR_ILLEGAL_ARGUMENT] * n_r,
-                  str(errs))
+        if cli:
+            for r, rx in enumerate(reactions):
+                checks.rel("design: edited to %g °C -> %s = CLI dh -T \"%g C\"" % (t_new, rx, t_new),
+                           cell_number(table.getCellByPosition(0, r)),
+                           float(cli.json("dh", rx, "-T", "%g C" % t_new)["value"]), 1e-12)
+        # A temperature beyond the data: errors in that column, never an extrapolated number;
+        # the other columns still computed.
+        temps_rng.getCellByPosition(n_t - 1, 0).setValue(6000)   # 6273.15 K > 6000 K
+        doc.calculateAll()
+        errs = [table.getCellByPosition(n_t - 1, r).getError() for r in range(n_r)]
+        checks.ok("design: 6000 °C -> Err:502 in every reaction's cell of that column",
+                  errs == [ERR_ILLEGAL_ARGUMENT] * n_r, str(errs))
+        others = [cell_number(table.getCellByPosition(c, r)) for r in range(n_r)
+                  for c in range(n_t - 1)]
+        checks.ok("design: ... and the other columns are still numbers", None not in others)
     finally:
         doc.close(True)
 
