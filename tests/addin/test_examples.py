@@ -527,7 +527,8 @@ def check_design(checks, office, path, cli):
         doc.calculateAll()
         if cli:
             for r, rx in enumerate(reactions):
-                checks.rel("design: edited to %g °C -> %s = CLI dh -T \"%g C\"" % (t_new, rx, t_new),
+                checks.rel("design: edited to %g °C -> %s = CLI dh -T \"%g C\""
+                           % (t_new, rx, t_new),
                            cell_number(table.getCellByPosition(0, r)),
                            float(cli.json("dh", rx, "-T", "%g C" % t_new)["value"]), 1e-12)
         # A temperature beyond the data: errors in that column, never an extrapolated number;
