@@ -1,4 +1,4 @@
-// rxnheat: the command line over the rxnheat engine (SPEC section 5). Thin: every number and every
+// rxnheat: the command line over the rxnheat engine (cli/CLI.md). Thin: every number and every
 // diagnosis comes from librxnheat; this file picks the command, runs it, and reports errors and
 // the exit status. See CLI.md for the user's description.
 #include "commands.hpp"

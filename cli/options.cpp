@@ -171,7 +171,7 @@ const CommandDef* find_command(std::string_view name) {
 }
 
 const std::vector<PlannedCommand>& planned_commands() {
-    // Named by SPEC section 5; each leaves this list when its function joins the catalogue.
+    // Named in cli/CLI.md as not in this version; each leaves this list when its function joins the catalogue.
     static const std::vector<PlannedCommand> all = [] {
         const std::vector<PlannedCommand> spec = {
             {"dg", "standard reaction Gibbs energy ΔrG°"},

@@ -1,4 +1,4 @@
-// The embedded data set, indexed, and species resolution (SPEC 3.2-3.3).
+// The embedded data set, indexed, and species resolution (engine/DATA.md, Identity and Phases).
 #include "database.hpp"
 
 #include "rxnheat/rxnheat.hpp"

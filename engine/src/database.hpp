@@ -1,4 +1,4 @@
-// The embedded data set, indexed, and species resolution (SPEC 3.2-3.3). Private.
+// The embedded data set, indexed, and species resolution (engine/DATA.md, Identity and Phases). Private.
 #pragma once
 
 #include "grammar/parse.hpp"
@@ -78,7 +78,7 @@ public:
     Composition composition(const grammar::Species& sp, const SpeciesTable* table = nullptr) const;
     double molar_mass(const Composition& c) const;
 
-    /// Resolves a parsed species per SPEC 3.2-3.3 (user table rows first).
+    /// Resolves a parsed species per engine/DATA.md, Identity and Phases (user table rows first).
     Substance resolve(const grammar::Species& sp, const SpeciesTable* table) const;
 
     /// Records of the reference form of an element (NASA "Ref-Elm"), sorted by temperature.

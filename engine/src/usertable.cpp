@@ -1,4 +1,4 @@
-// User species tables (SPEC 3.4).
+// User species tables (engine/DATA.md, User tables).
 #include "usertable.hpp"
 
 #include "database.hpp"

@@ -1,4 +1,4 @@
-// User species tables (SPEC 3.4): rows that override the built-in data. Private.
+// User species tables (engine/DATA.md, User tables): rows that override the built-in data. Private.
 #pragma once
 
 #include "grammar/parse.hpp"

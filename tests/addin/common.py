@@ -43,7 +43,7 @@ class Checks:
 
 
 class EngineCli:
-    """The engine's own answers from the `rxnheat` command line (SPEC section 5)."""
+    """The engine's own answers from the `rxnheat` command line (cli/CLI.md)."""
 
     def __init__(self, path):
         self.path = path

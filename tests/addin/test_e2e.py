@@ -36,8 +36,8 @@ CH4_COMBUSTION_UNICODE = "CH\u2084(g) + 2O\u2082(g) \u2192 CO\u2082(g) + 2H\u208
 CH4_COMBUSTION_GAS = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)"
 CH4_COMBUSTION_GAS_UNICODE = "CH\u2084(g) + 2O\u2082(g) \u2192 CO\u2082(g) + 2H\u2082O(g)"
 
-# The display names and argument names of SPEC section 4, exactly.
-SPEC_FUNCTIONS = {
+# The display names and argument names of engine/FUNCTIONS.md, exactly.
+DOCUMENTED_FUNCTIONS = {
     "RXNDH": ["reaction", "temperature", "unit", "per", "table"],
     "RXNDU": ["reaction", "temperature", "unit", "per", "table"],
     "RXNLOAD": ["reaction", "quantity", "quantity_unit", "key", "result_unit", "temperature",
@@ -158,9 +158,9 @@ def check_wizard_texts(checks, office):
     found = {}
     for i in range(fd.getCount()):
         d = {p.Name: p.Value for p in fd.getByIndex(i)}
-        if d.get("Name") in SPEC_FUNCTIONS:
+        if d.get("Name") in DOCUMENTED_FUNCTIONS:
             found[d["Name"]] = d
-    for name, args in SPEC_FUNCTIONS.items():
+    for name, args in DOCUMENTED_FUNCTIONS.items():
         d = found.get(name)
         if not checks.ok("wizard: %s listed" % name, d is not None):
             continue
@@ -401,7 +401,7 @@ def check_typical_values(checks, sh, cli, version):
         checks.ok("RXNREVERSE = CLI reverse", cells[15].text == cli.text("reverse", r))
         checks.ok("RXNSCALE = CLI scale", cells[17].text == cli.text("scale", r, "1/2"))
         checks.ok("RXNKIND = CLI kind", cells[8].text == cli.text("kind", r))
-    except Exception as e:  # a CLI that does not answer as SPEC section 5 says is a failure
+    except Exception as e:  # a CLI that does not answer as cli/CLI.md says is a failure
         checks.ok("engine CLI answers", False, "%s: %s" % (type(e).__name__, e))
 
 
@@ -726,7 +726,7 @@ def check_errors(checks, sh, svc):
 
 
 def check_table(checks, sh):
-    """A user species table (SPEC 3.4): CH4(g) with the NIST-JANAF ΔfH° −74.87 kJ/mol
+    """A user species table (engine/DATA.md, User tables): CH4(g) with the NIST-JANAF ΔfH° −74.87 kJ/mol
     (4th ed., 1998; typed from memory) instead of the built-in −74.6."""
     rows = [["formula", "phase", "dHf", "source"], ["CH4", "g", -74.87, "NIST-JANAF (test)"]]
     for i, row in enumerate(rows):

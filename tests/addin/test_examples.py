@@ -46,7 +46,7 @@ DESIGN = "design-dh-vs-temperature.fods"
 
 # Molar gas constant, CODATA 2018 (exact in the 2019 SI): 8.31446261815324 J/(mol K).
 R = 8.31446261815324
-# Normal cubic metre: 0 °C and 101.325 kPa (SPEC section 4); ideal gas, n = pV/(RT).
+# Normal cubic metre: 0 °C and 101.325 kPa (engine/DATA.md, Units); ideal gas, n = pV/(RT).
 MOL_PER_NM3 = 101325.0 / (R * 273.15)
 # Common names used as key species in the workbooks -> formula (from memory: ethanol C2H5OH).
 FORMULA_OF = {"ethanol": "C2H5OH"}

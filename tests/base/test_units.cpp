@@ -316,7 +316,7 @@ TEST_CASE("load result units agree with GNU units", "[units]") {
         INFO(r.ours << " = " << r.gnu);
         CHECK_REL(d::load_result(x, r.ours, true), x / gnu_units(r.gnu, "W"));
     }
-    // TR = 12,000 BTU/h (SPEC). source: GNU units
+    // TR = 12,000 BTU/h (engine/DATA.md, Units). source: GNU units
     CHECK_REL(d::load_result(x, "TR", true), x / gnu_units("12000 btu/hour", "W"));
     // Defaults: kJ for totals, kW for rates.
     CHECK_REL(d::load_result(x, "", false), x / 1e3);

@@ -57,7 +57,7 @@ sys.path.insert(0, os.path.join(HERE, "..", "..", "scripts"))
 import office as officelib  # noqa: E402  (scripts/office.py; needs python3-uno)
 
 # A realistic mix of 20 reactions a process engineer's sheet would hold (combustion, synthesis
-# gas, ammonia and acid plants, calcination, hydrogenation), written the ways SPEC section 2
+# gas, ammonia and acid plants, calcination, hydrogenation), written the ways grammar/SYNTAX.md
 # allows (phases omitted, fractions, Unicode arrows and subscripts, aliases).
 REACTIONS = [
     "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)",

@@ -339,7 +339,7 @@ expect_err_re "extra arguments: quoting hint" 'quotes'
 run dh "$METHANE" -- --json
 expect_rc "-- ends options (then --json is an extra argument)" 2
 
-# The commands SPEC section 5 names whose functions the catalogue does not have yet.
+# The commands cli/CLI.md names as not in this version, whose functions the catalogue does not have yet.
 for cmd in dg logk tad hv eqx duty streamh steam hess; do
     run "$cmd" "$METHANE"
     expect_rc "$cmd not in this version: exit 2" 2
@@ -491,7 +491,7 @@ expect_out_re "functions lists RXNDH and its command" '^RXNDH +dh '
 run functions --json
 expect_rc "functions --json" 0
 cp "$TMP/out" "$TMP/functions.json"
-# The cell names of SPEC section 4 that exist today, listed here by hand (not read from the program).
+# The cell names of engine/FUNCTIONS.md that exist today, listed here by hand (not read from the program).
 pycheck "functions --json: every known cell name, nothing unknown" "$TMP/functions.json" <<'PYEOF'
 import json, sys
 j = json.load(open(sys.argv[1], encoding="utf-8"))

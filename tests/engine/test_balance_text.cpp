@@ -35,7 +35,7 @@ TEST_CASE("balance gives the smallest whole numbers", "[behaviour][balance]") {
     CHECK_NOTHROW(eng().dh(eng().balance("CH4(g) + O2(g) -> CO2(g) + H2O(l)")));  // consequence of balancing
     CHECK(eng().dh(eng().balance("CH4(g) + O2(g) -> CO2(g) + H2O(l)")) == Approx(eng().dh(CH4_COMB)).margin(1e-9));  // same reaction
 
-    // Two independent balances, or none: errors (SPEC 4 RXNBALANCE).
+    // Two independent balances, or none: errors (engine/FUNCTIONS.md, RXNBALANCE).
     for (const char* bad : {"H2 + O2 -> H2O + H2O2",        // two independent balances (4 species, 2 elements)
                             "CO + O2 + C -> CO2",            // two independent balances
                             "Na -> Cl",                      // no balance
@@ -43,22 +43,22 @@ TEST_CASE("balance gives the smallest whole numbers", "[behaviour][balance]") {
                             "Fe^3+ -> Fe"}) {                // charge cannot balance
         auto o = attempt([&] { return eng().balance(bad); });
         INFO("balance('" << bad << "')");
-        REQUIRE_ENGINE_ERROR(o);  // SPEC 4 RXNBALANCE: an error if no balance or more than one
+        REQUIRE_ENGINE_ERROR(o);  // engine/FUNCTIONS.md, RXNBALANCE: an error if no balance or more than one
         CHECK_FALSE(o.message.empty());
     }
 }
 
 TEST_CASE("report, source and version", "[behaviour]") {
     const auto rep = eng().report("2H2 + O2 = 2H2O");
-    CHECK(rep.canonical == "2 H2(g) + O2(g) -> 2 H2O(l)");                 // rxnheat.hpp canonical form, SPEC 3.3 phases
+    CHECK(rep.canonical == "2 H2(g) + O2(g) -> 2 H2O(l)");                 // rxnheat.hpp canonical form, engine/DATA.md, Phases
     CHECK(rep.dH_kJ_per_mol == Approx(eng().dh("2H2 + O2 = 2H2O")).margin(1e-9));  // consistency
     CHECK(rep.dU_kJ_per_mol == Approx(eng().du("2H2 + O2 = 2H2O")).margin(1e-9));  // consistency
     CHECK(rep.dn_gas == Approx(-3).margin(1e-12));                          // 0 − (2 + 1), counted by hand
-    CHECK(rep.sources.size() >= 3);                                         // SPEC 3.1: every species carries its source
+    CHECK(rep.sources.size() >= 3);                                         // engine/DATA.md, Sources: every species carries its source
     const std::string src = eng().source(CH4_COMB);
     INFO(src);
-    CHECK(contains(src, "CH4"));                   // SPEC 4 RXNSOURCE: every number's source
-    CHECK(contains(src, "H2O"));                   // SPEC 4 RXNSOURCE
-    CHECK((contains(src, "NASA") || contains(src, "McBride")));  // SPEC 3.1 citation
-    CHECK_FALSE(rxnheat::Engine::version().empty());  // SPEC 4 RXNVERSION
+    CHECK(contains(src, "CH4"));                   // engine/FUNCTIONS.md, RXNSOURCE: every number's source
+    CHECK(contains(src, "H2O"));                   // engine/FUNCTIONS.md, RXNSOURCE
+    CHECK((contains(src, "NASA") || contains(src, "McBride")));  // engine/DATA.md, Sources citation
+    CHECK_FALSE(rxnheat::Engine::version().empty());  // engine/FUNCTIONS.md, RXNVERSION
 }

@@ -82,7 +82,7 @@ TEST_CASE("optional arguments: omitted, empty, blank text and Calc's 0 mean the 
     CHECK(at298 == Approx(-890.57).margin(0.01));
     for (const Arg& blank : {Arg::omitted(), empty_cell(), text(""), text("   "), num(0)}) {
         const rxnheat::Outcome o = one("RXNDH", {text(CH4), blank}, calc);
-        CHECK(number_of(o) == at298);   // 298.15 K by default (catalogue.hpp, SPEC 4)
+        CHECK(number_of(o) == at298);   // 298.15 K by default (catalogue.hpp, engine/FUNCTIONS.md)
         CHECK(o.unit == "kJ/mol");      // the default unit
     }
     // The CLI (and C) keep 0 as 0: a temperature of 0 K is an error, not the default.
@@ -186,7 +186,7 @@ TEST_CASE("a range of reactions gives an array of its shape", "[catalogue][range
     const Result m = eval("MOLARMASS", {Arg::range(1, 3, {t("CH4"), t("Xx2"), t("CuSO4·5H2O")})}, calc);
     REQUIRE(m.cells.size() == 3);
     CHECK(number_of(m.cells[0]) == Approx(pt[0]).margin(0.01));  // python3-periodictable
-    CHECK(m.cells[1].kind == rxnheat::Outcome::Kind::error);     // not an element symbol (SPEC 2)
+    CHECK(m.cells[1].kind == rxnheat::Outcome::Kind::error);     // not an element symbol (grammar/SYNTAX.md)
     CHECK(number_of(m.cells[2]) == Approx(pt[1]).margin(0.01));  // python3-periodictable
 }
 
@@ -383,7 +383,7 @@ TEST_CASE("the Engine's own cache: sized, observable, clearable", "[catalogue][c
 
 TEST_CASE("every catalogue row is well-formed", "[catalogue][rows]") {
     const auto& all = rxnheat::catalogue();
-    // SPEC section 4: the cell functions that exist today, written out by hand.
+    // engine/FUNCTIONS.md: the cell functions that exist today, written out by hand.
     const std::set<std::string> spec = {"RXNDH",     "RXNDU",     "RXNLOAD",   "RXNKIND",   "RXNCHECK",
                                         "RXNBALANCE", "RXNREVERSE", "RXNSCALE", "RXNWHY",    "SPECIESHF",
                                         "SPECIESCP", "SPECIESH",  "MOLARMASS", "RXNSOURCE", "RXNVERSION"};
@@ -415,7 +415,7 @@ TEST_CASE("every catalogue row is well-formed", "[catalogue][rows]") {
             else CHECK_FALSE(optional_seen);  // every required argument before the optional ones
         }
     }
-    CHECK(calc_names == spec);  // the hand-written SPEC list
+    CHECK(calc_names == spec);  // the hand-written list
     CHECK(all.size() == spec.size());
 }
 
@@ -442,7 +442,7 @@ TEST_CASE("every catalogue row's call works on a sample input", "[catalogue][row
          }}},
         {"RXNREVERSE", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == eng().reverse(CH4)); }}},
         {"RXNSCALE", {{text("2 H2(g) + O2(g) -> 2 H2O(l)"), text("1/2")}, [](const rxnheat::Outcome& o) {
-             CHECK(has(o.text, "1/2 O2(g)"));  // SPEC 4 RXNSCALE: exact fractions kept
+             CHECK(has(o.text, "1/2 O2(g)"));  // engine/FUNCTIONS.md, RXNSCALE: exact fractions kept
          }}},
         {"RXNWHY", {{text("RXNDH"), text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == "ok"); }}},
         {"SPECIESHF", {{text("CO2(g)")}, [](const rxnheat::Outcome& o) {

@@ -28,13 +28,13 @@ TEST_CASE("reverse flips the sign of the enthalpy", "[behaviour][hess]") {
         CHECK(eng().du(rev, T) == Approx(-eng().du(r, T)).margin(1e-9));    // Hess's law, common practice
         CHECK(eng().dh(eng().reverse(rev), T) == Approx(fwd).margin(1e-9)); // reversing twice is the identity
     }
-    // The products of the original come first in the reversed text (SPEC 4: RXNREVERSE).
+    // The products of the original come first in the reversed text (engine/FUNCTIONS.md, RXNREVERSE).
     const std::string rev = eng().reverse(CH4_COMB);
     const auto arrow = rev.find("->");
     REQUIRE(arrow != std::string::npos);
-    CHECK(contains(rev.substr(0, arrow), "CO2(g)"));  // SPEC 4 RXNREVERSE: products and reactants exchanged
-    CHECK(contains(rev.substr(0, arrow), "H2O(l)"));  // SPEC 4 RXNREVERSE
-    CHECK(contains(rev.substr(arrow), "CH4(g)"));     // SPEC 4 RXNREVERSE
+    CHECK(contains(rev.substr(0, arrow), "CO2(g)"));  // engine/FUNCTIONS.md, RXNREVERSE: products and reactants exchanged
+    CHECK(contains(rev.substr(0, arrow), "H2O(l)"));  // engine/FUNCTIONS.md, RXNREVERSE
+    CHECK(contains(rev.substr(arrow), "CH4(g)"));     // engine/FUNCTIONS.md, RXNREVERSE
 }
 
 TEST_CASE("scale multiplies the enthalpy and keeps exact fractions", "[behaviour][hess]") {
@@ -45,28 +45,28 @@ TEST_CASE("scale multiplies the enthalpy and keeps exact fractions", "[behaviour
         CHECK(eng().dh(s) == Approx(f * eng().dh(CH4_COMB)).margin(1e-9));                      // Hess's law
         CHECK(eng().dh(s, 350) == Approx(f * eng().dh(CH4_COMB, 350)).margin(1e-9));  // Hess's law at 350 K
     }
-    // Exact fractions (SPEC 4 RXNSCALE: "exact fractions kept: 1/2 O2").
+    // Exact fractions (engine/FUNCTIONS.md, RXNSCALE: "exact fractions kept: 1/2 O2").
     const std::string half = eng().scale("2 H2(g) + O2(g) -> 2 H2O(l)", "1/2");
     INFO("scaled by 1/2: " << half);
-    CHECK(contains(half, "1/2 O2(g)"));  // SPEC 4 RXNSCALE
-    CHECK_FALSE(contains(half, "0.5"));  // SPEC 4 RXNSCALE: fractions, not decimals
+    CHECK(contains(half, "1/2 O2(g)"));  // engine/FUNCTIONS.md, RXNSCALE
+    CHECK_FALSE(contains(half, "0.5"));  // engine/FUNCTIONS.md, RXNSCALE: fractions, not decimals
     CHECK_FALSE(contains(half, "2 H2(g)"));  // 2 × 1/2 = 1 (arithmetic)
-    CHECK(eng().scale("2 H2(g) + O2(g) -> 2 H2O(l)", "½") == half);  // SPEC 2: ½ is 1/2
+    CHECK(eng().scale("2 H2(g) + O2(g) -> 2 H2O(l)", "½") == half);  // grammar/SYNTAX.md: ½ is 1/2
     CHECK(eng().scale("2 H2(g) + O2(g) -> 2 H2O(l)", 0.5) == half);  // 0.5 is exactly 1/2 in binary
     const std::string third = eng().scale("N2(g) + 3 H2(g) -> 2 NH3(g)", "1/3");
     INFO("scaled by 1/3: " << third);
-    CHECK(contains(third, "1/3 N2(g)"));   // SPEC 4 RXNSCALE, exact rational 1 × 1/3
-    CHECK(contains(third, "2/3 NH3(g)"));  // SPEC 4 RXNSCALE, exact rational 2 × 1/3
+    CHECK(contains(third, "1/3 N2(g)"));   // engine/FUNCTIONS.md, RXNSCALE, exact rational 1 × 1/3
+    CHECK(contains(third, "2/3 NH3(g)"));  // engine/FUNCTIONS.md, RXNSCALE, exact rational 2 × 1/3
     CHECK(eng().dh(third) == Approx(eng().dh("N2(g) + 3 H2(g) -> 2 NH3(g)") / 3).margin(1e-9));  // Hess's law
     // A zero or non-finite factor is no reaction: a clear error, not "0 N2".
     auto zero = attempt([] { return eng().scale("N2(g) + 3 H2(g) -> 2 NH3(g)", "0"); });
-    REQUIRE_ENGINE_ERROR(zero);  // RULES: bad input gets a clear error
+    REQUIRE_ENGINE_ERROR(zero);  // DEVELOPERS.md, Working rules: bad input gets a clear error
     auto nan = attempt([] { return eng().scale("N2(g) + 3 H2(g) -> 2 NH3(g)", std::nan("")); });
-    REQUIRE_ENGINE_ERROR(nan);  // RULES: bad input gets a clear error
+    REQUIRE_ENGINE_ERROR(nan);  // DEVELOPERS.md, Working rules: bad input gets a clear error
 }
 
 TEST_CASE("RXNDU is RXNDH minus dn(gas) R T", "[behaviour]") {
-    // SPEC 4: ΔrU° = ΔrH° − Δn(gas)·R·T; R from GNU units. Δn counted by hand below.
+    // engine/FUNCTIONS.md, RXNDU: ΔrU° = ΔrH° − Δn(gas)·R·T; R from GNU units. Δn counted by hand below.
     // Tolerance 1e-4 kJ/mol: the difference between R = 8.314510 (NASA fits) and
     // 8.31446261815324 (SI) is below 3e-5 kJ/mol for these cases.
     struct Case { const char* r; double T; double dn; };
@@ -82,7 +82,7 @@ TEST_CASE("RXNDU is RXNDH minus dn(gas) R T", "[behaviour]") {
     for (const auto& c : cases) {
         INFO(c.r << " at " << c.T << " K, dn(gas) = " << c.dn);
         const double dh = eng().dh(c.r, c.T);
-        CHECK(eng().du(c.r, c.T) == Approx(dh - c.dn * R_gnu() * c.T / 1000).margin(1e-4));  // SPEC 4, R from GNU units
+        CHECK(eng().du(c.r, c.T) == Approx(dh - c.dn * R_gnu() * c.T / 1000).margin(1e-4));  // engine/FUNCTIONS.md, RXNDU; R from GNU units
         CHECK(eng().report(c.r, c.T).dn_gas == Approx(c.dn).margin(1e-12));                  // counted by hand
     }
 }
@@ -90,10 +90,10 @@ TEST_CASE("RXNDU is RXNDH minus dn(gas) R T", "[behaviour]") {
 TEST_CASE("results per species: per mole and per mass of a species", "[behaviour][units]") {
     const auto pt = periodictable_masses({"CH4", "O2", "H2O", "CO2"});  // python3-periodictable
     const double dh = eng().dh(CH4_COMB);
-    // Per mole of a species: ΔH/ν with ν its coefficient as written (SPEC 4 RXNDH `per`).
-    CHECK(eng().dh(CH4_COMB, 298.15, "kJ/mol", "CH4(g)") == Approx(dh / 1).margin(1e-9));  // SPEC 4, ν = 1
-    CHECK(eng().dh(CH4_COMB, 298.15, "kJ/mol", "O2(g)") == Approx(dh / 2).margin(1e-9));   // SPEC 4, ν = 2
-    CHECK(eng().dh(CH4_COMB, 298.15, "kJ/mol", "H2O(l)") == Approx(dh / 2).margin(1e-9));  // SPEC 4, ν = 2
+    // Per mole of a species: ΔH/ν with ν its coefficient as written (engine/FUNCTIONS.md, RXNDH `per`).
+    CHECK(eng().dh(CH4_COMB, 298.15, "kJ/mol", "CH4(g)") == Approx(dh / 1).margin(1e-9));  // engine/FUNCTIONS.md, RXNDH per: ν = 1
+    CHECK(eng().dh(CH4_COMB, 298.15, "kJ/mol", "O2(g)") == Approx(dh / 2).margin(1e-9));   // engine/FUNCTIONS.md, RXNDH per: ν = 2
+    CHECK(eng().dh(CH4_COMB, 298.15, "kJ/mol", "H2O(l)") == Approx(dh / 2).margin(1e-9));  // engine/FUNCTIONS.md, RXNDH per: ν = 2
     // Per mass: (kJ/mol)/(g/mol) = kJ/g = MJ/kg; molar masses from python3-periodictable.
     CHECK(eng().dh(CH4_COMB, 298.15, "MJ/kg", "CH4(g)") == Approx(dh / pt[0]).epsilon(1e-4));   // periodictable M(CH4)
     CHECK(eng().dh(CH4_COMB, 298.15, "kJ/kg", "CH4(g)") == Approx(dh / pt[0] * 1000).epsilon(1e-4));  // periodictable
@@ -105,9 +105,9 @@ TEST_CASE("results per species: per mole and per mass of a species", "[behaviour
           Approx(dh / pt[0] * gnu_units("kJ/g", "kcal/kg")).epsilon(1e-4));  // GNU units kJ/g -> kcal/kg
     // A per-mass unit without `per`, and a `per` species not in the reaction, are errors.
     auto no_per = attempt([] { return eng().dh(CH4_COMB, 298.15, "MJ/kg"); });
-    REQUIRE_ENGINE_ERROR(no_per);  // SPEC 4: per-mass units need `per`
+    REQUIRE_ENGINE_ERROR(no_per);  // engine/FUNCTIONS.md, RXNDH: per-mass units need `per`
     auto absent = attempt([] { return eng().dh(CH4_COMB, 298.15, "kJ/mol", "N2(g)"); });
-    REQUIRE_ENGINE_ERROR(absent);  // SPEC 4: `per` is a species of the reaction
+    REQUIRE_ENGINE_ERROR(absent);  // engine/FUNCTIONS.md, RXNDH: `per` is a species of the reaction
 }
 
 TEST_CASE("energy-per-amount units against GNU units", "[behaviour][units]") {
@@ -119,24 +119,24 @@ TEST_CASE("energy-per-amount units against GNU units", "[behaviour][units]") {
     // lbmol = (lb/g) mol; GNU units has no "lbmol", so the conversion is spelled out.
     CHECK(eng().dh(CH4_COMB, 298.15, "BTU/lbmol") ==
           Approx(dh * gnu_units("kJ/mol", "btu / (lb/g) mol")).epsilon(1e-9));  // GNU units
-    // Case matters where the trade says so: mJ is not MJ (SPEC 4), and the error lists units.
+    // Case matters where the trade says so: mJ is not MJ (engine/DATA.md, Units), and the error lists units.
     for (const char* bad : {"mJ/mol", "mj/kmol", "kj/mol", "KJ/mol", "kJ/kmol ", "kJ per mol", "furlong"}) {
         auto o = attempt([&] { return eng().dh(CH4_COMB, 298.15, bad); });
         INFO("unit '" << bad << "'");
-        REQUIRE_ENGINE_ERROR(o);                    // SPEC 4: unknown unit is an error
-        CHECK(o.kind == ErrorKind::unit);           // SPEC 4
-        CHECK(contains(o.message, "kJ/mol"));       // SPEC 4: the error lists the known ones
-        CHECK(contains(o.message, "MJ/kmol"));      // SPEC 4: the error lists the known ones
+        REQUIRE_ENGINE_ERROR(o);                    // engine/DATA.md, Units: unknown unit is an error
+        CHECK(o.kind == ErrorKind::unit);           // engine/DATA.md, Units
+        CHECK(contains(o.message, "kJ/mol"));       // engine/DATA.md, Units: the error lists the known ones
+        CHECK(contains(o.message, "MJ/kmol"));      // engine/DATA.md, Units: the error lists the known ones
     }
 }
 
 TEST_CASE("the same species on both sides nets", "[behaviour]") {
-    // SPEC 2: the same species on both sides is allowed (its net coefficient counts).
+    // grammar/SYNTAX.md: the same species on both sides is allowed (its net coefficient counts).
     for (double T : {298.15, 350.0}) {
         const double base = eng().dh(CH4_COMB, T);
-        CHECK(eng().dh("CH4(g) + 2 O2(g) + 3.76 N2(g) -> CO2(g) + 2 H2O(l) + 3.76 N2(g)", T) == Approx(base).margin(1e-9));  // SPEC 2
-        CHECK(eng().dh("CH4(g) + 3 O2(g) -> CO2(g) + 2 H2O(l) + O2(g)", T) == Approx(base).margin(1e-9));                   // SPEC 2
-        CHECK(eng().du("CH4(g) + 3 O2(g) -> CO2(g) + 2 H2O(l) + O2(g)", T) == Approx(eng().du(CH4_COMB, T)).margin(1e-9));  // SPEC 2 + SPEC 4
+        CHECK(eng().dh("CH4(g) + 2 O2(g) + 3.76 N2(g) -> CO2(g) + 2 H2O(l) + 3.76 N2(g)", T) == Approx(base).margin(1e-9));  // grammar/SYNTAX.md
+        CHECK(eng().dh("CH4(g) + 3 O2(g) -> CO2(g) + 2 H2O(l) + O2(g)", T) == Approx(base).margin(1e-9));                   // grammar/SYNTAX.md
+        CHECK(eng().du("CH4(g) + 3 O2(g) -> CO2(g) + 2 H2O(l) + O2(g)", T) == Approx(eng().du(CH4_COMB, T)).margin(1e-9));  // grammar/SYNTAX.md + engine/FUNCTIONS.md, RXNDU
     }
     CHECK(eng().load("CH4(g) + 3 O2(g) -> CO2(g) + 2 H2O(l) + O2(g)", 1, "mol", "O2(g)") ==
           Approx(eng().dh(CH4_COMB) / 2).epsilon(1e-9));  // net ν(O2) = 2
@@ -147,8 +147,8 @@ TEST_CASE("temperatures as text", "[behaviour][units]") {
     CHECK(rxnheat::parse_temperature("350 °C") == Approx(gnu_units("tempC(350)", "K")).margin(1e-9));  // GNU units tempC
     CHECK(rxnheat::parse_temperature("662 F") == Approx(gnu_units("tempF(662)", "K")).margin(1e-9));   // GNU units tempF
     CHECK(rxnheat::parse_temperature("1100 R") == Approx(gnu_units("tempR(1100)", "K")).margin(1e-9)); // GNU units tempR
-    CHECK(rxnheat::parse_temperature("623.15 K") == Approx(623.15).margin(1e-12));                     // SPEC 4
-    CHECK(rxnheat::parse_temperature("623.15") == Approx(623.15).margin(1e-12));                       // SPEC 4: a bare number is kelvin
+    CHECK(rxnheat::parse_temperature("623.15 K") == Approx(623.15).margin(1e-12));                     // engine/DATA.md, Units
+    CHECK(rxnheat::parse_temperature("623.15") == Approx(623.15).margin(1e-12));                       // engine/DATA.md, Units: a bare number is kelvin
     for (const char* bad : {"", "hot", "350 X", "-5 K", "-300 C", "nan", "1e999", "350 C C"}) {
         auto o = attempt([&] { return rxnheat::parse_temperature(bad); });
         INFO("parse_temperature('" << bad << "') gave " << o.value);

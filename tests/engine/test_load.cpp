@@ -24,10 +24,10 @@ TEST_CASE("RXNLOAD for amounts, masses, normal volumes and flows", "[behaviour][
     CHECK(eng().load(CH4_COMB, 2, "kg", "CO2(g)") == Approx(2 * gnu_units("kg", "g") / pt[1] * dh).epsilon(1e-4));  // GNU units, periodictable
     CHECK(eng().load(CH4_COMB, 2, "t", "CH4(g)") == Approx(2 * gnu_units("tonne", "g") / pt[0] * dh).epsilon(1e-4));  // GNU units tonne
     CHECK(eng().load(CH4_COMB, 2, "lb", "CH4(g)") == Approx(2 * gnu_units("lb", "g") / pt[0] * dh).epsilon(1e-4));    // GNU units lb
-    // Normal volume: 0 °C and 101.325 kPa, ideal gas n = pV/(RT) (SPEC 4).
+    // Normal volume: 0 °C and 101.325 kPa, ideal gas n = pV/(RT) (engine/DATA.md, Units).
     const double n_Nm3 = gnu_units("atm", "Pa") * 1.0 / (R * gnu_units("tempC(0)", "K"));
     CHECK(eng().load(CH4_COMB, 100, "Nm3", "CH4(g)") == Approx(100 * n_Nm3 * dh).epsilon(1e-6));  // ideal gas from R, GNU units
-    // scf: 60 °F and 14.696 psia (SPEC 4).
+    // scf: 60 °F and 14.696 psia (engine/DATA.md, Units).
     const double n_scf = gnu_units("14.696 psi", "Pa") * gnu_units("ft3", "m3") / (R * gnu_units("tempF(60)", "K"));
     CHECK(eng().load(CH4_COMB, 1000, "scf", "CH4(g)") == Approx(1000 * n_scf * dh).epsilon(1e-6));  // ideal gas from R, GNU units
 
@@ -65,7 +65,7 @@ TEST_CASE("RXNLOAD for amounts, masses, normal volumes and flows", "[behaviour][
     for (auto f : std::vector<std::function<double()>>{
              [] { return eng().load(CH4_COMB, 1, "kmol/h", "CH4(g)", "kJ"); },      // a total unit for a flow
              [] { return eng().load(CH4_COMB, 1, "kmol", "CH4(g)", "kW"); },        // a power unit for a total
-             [] { return eng().load(CH4_COMB, 1, "kmol/week", "CH4(g)"); },         // not a time unit of SPEC 4
+             [] { return eng().load(CH4_COMB, 1, "kmol/week", "CH4(g)"); },         // not a time unit of engine/DATA.md, Units
              [] { return eng().load(CH4_COMB, 1, "KMOL", "CH4(g)"); },              // case matters
              [] { return eng().load(CH4_COMB, 1, "", "CH4(g)"); },                  // no unit
              [] { return eng().load(CH4_COMB, 1, "kmol", "N2(g)"); },               // key not in the reaction
@@ -74,6 +74,6 @@ TEST_CASE("RXNLOAD for amounts, masses, normal volumes and flows", "[behaviour][
              [] { return eng().load(CH4_COMB, INFINITY, "kmol", "CH4(g)"); },       // infinite quantity
          }) {
         auto o = attempt(f);
-        REQUIRE_ENGINE_ERROR(o);  // SPEC 4, RULES: clear error, never a plausible number
+        REQUIRE_ENGINE_ERROR(o);  // DEVELOPERS.md, Working rules: clear error, never a plausible number
     }
 }

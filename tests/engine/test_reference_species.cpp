@@ -219,5 +219,5 @@ TEST_CASE("species report agrees with the single functions", "[species]") {
     CHECK(rep.molar_mass_g_per_mol == Approx(engine().molar_mass("CO2")).margin(1e-9));       // consistency
     CHECK(rep.tmin_K <= 1000.0);  // the record used must hold T
     CHECK(rep.tmax_K >= 1000.0);  // the record used must hold T
-    CHECK_FALSE(rep.source.empty());  // SPEC 3.1: every species carries its source text
+    CHECK_FALSE(rep.source.empty());  // engine/DATA.md, Sources: every species carries its source text
 }

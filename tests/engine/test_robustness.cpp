@@ -53,7 +53,7 @@ TEST_CASE("bad input never crashes or hangs", "[behaviour][robust]") {
     for (const auto& c : cases) {
         auto o = attempt(c.f);
         INFO(c.what << ": value " << o.value << ", kind " << kind_name(o.kind) << ", message: " << o.message);
-        REQUIRE_ENGINE_ERROR(o);                                 // RULES: bad input gets a clear error
+        REQUIRE_ENGINE_ERROR(o);                                 // DEVELOPERS.md, Working rules: bad input gets a clear error
         CHECK_FALSE(o.message.empty());                          // an error in words
         if (c.check_kind) CHECK(o.kind == c.kind);               // rxnheat.hpp ErrorKind
         CHECK(o.kind != ErrorKind::internal);                    // bad input is not a bug
@@ -66,7 +66,7 @@ TEST_CASE("bad input never crashes or hangs", "[behaviour][robust]") {
                                  std::string("H2 + O2 \xff\xfe-> H2O")}) {
         const std::string said = eng().check(r);
         INFO("check said: " << said);
-        CHECK(said != "ok");       // SPEC 4 RXNCHECK
+        CHECK(said != "ok");       // engine/FUNCTIONS.md, RXNCHECK
         CHECK_FALSE(said.empty()); // in words
     }
     // Legal but extreme inputs: a finite number or rxnheat::Error, quickly.
@@ -83,11 +83,11 @@ TEST_CASE("bad input never crashes or hangs", "[behaviour][robust]") {
         CHECK((o.engine_error || (o.returned && std::isfinite(o.value))));  // rxnheat.hpp contract
         CHECK(o.seconds < 1.0);  // never hangs
     }
-    // Exactly 4096 characters is allowed (SPEC 2: longer than 4096 is refused).
-    CHECK(eng().dh(long_ok) == Approx(eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)")).margin(1e-9));  // SPEC 2 limit
+    // Exactly 4096 characters is allowed (grammar/SYNTAX.md: longer than 4096 is refused).
+    CHECK(eng().dh(long_ok) == Approx(eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)")).margin(1e-9));  // grammar/SYNTAX.md limit
     auto over = attempt([&] { return eng().dh(long_ok + " "); });
     REQUIRE_ENGINE_ERROR(over);
-    CHECK(over.kind == ErrorKind::too_long);  // SPEC 2: 4097 characters refused
+    CHECK(over.kind == ErrorKind::too_long);  // grammar/SYNTAX.md: 4097 characters refused
 }
 
 TEST_CASE("random byte strings: a finite number or rxnheat::Error, quickly", "[behaviour][robust][fuzz]") {
@@ -144,7 +144,7 @@ TEST_CASE("random byte strings: a finite number or rxnheat::Error, quickly", "[b
          << n_other << " other exceptions, " << n_nonfinite << " non-finite; slowest call " << slowest << " s");
     INFO("first offending inputs:" << first_bad);
     CHECK(n_other == 0);      // rxnheat.hpp: every function returns a value or throws rxnheat::Error
-    CHECK(n_nonfinite == 0);  // RULES: never a non-number
+    CHECK(n_nonfinite == 0);  // DEVELOPERS.md, Working rules: never a non-number
     CHECK(slowest < 1.0);     // issue 2: never hangs
 }
 
@@ -202,8 +202,8 @@ TEST_CASE("threads give the same values as one thread", "[behaviour][threads]") 
 TEST_CASE("the cache is invisible: same text, same value", "[behaviour][cache]") {
     const double first = eng().dh("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000);
     CHECK(eng().dh("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000) == first);           // issue 2: cache keyed by text
-    CHECK(eng().dh("CO(g)+H2O(g)->CO2(g)+H2(g)", 1000) == Approx(first).margin(1e-12));   // SPEC 2: whitespace is free
-    CHECK(eng().dh("  CO(g) + H2O(g)  =  CO2(g) + H2(g) ", 1000) == Approx(first).margin(1e-12));  // SPEC 2: arrows mean the same
+    CHECK(eng().dh("CO(g)+H2O(g)->CO2(g)+H2(g)", 1000) == Approx(first).margin(1e-12));   // grammar/SYNTAX.md: whitespace is free
+    CHECK(eng().dh("  CO(g) + H2O(g)  =  CO2(g) + H2(g) ", 1000) == Approx(first).margin(1e-12));  // grammar/SYNTAX.md: arrows mean the same
     // Many distinct texts (beyond any reasonable cache bound), then the first again.
     for (int i = 0; i < 5000; ++i) eng().dh("CO(g) + H2O(g) -> CO2(g) + H2(g)" + std::string(static_cast<std::size_t>(i % 3000 + 1), ' '), 700 + i % 5);
     CHECK(eng().dh("CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000) == first);  // issue 2: eviction does not change values

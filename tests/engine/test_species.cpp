@@ -12,26 +12,27 @@
 using namespace rxnheat_test;
 
 TEST_CASE("phase rules", "[behaviour][phase]") {
-    // SPEC 3.3: no phase = the phase stable at 298.15 K and 1 bar.
-    CHECK(eng().species_report("H2O").record == "H2O(L)");   // SPEC 3.3: H2O liquid
-    CHECK(eng().species_report("H2O").species == "H2O(l)");  // SPEC 3.3
-    CHECK(eng().species_report("CO2").record == "CO2");      // SPEC 3.3: CO2 gas
-    CHECK(eng().species_report("H2").record == "H2");        // SPEC 3.3: H2 gas
-    CHECK(eng().species_report("O2").record == "O2");        // SPEC 3.3: O2 gas
-    CHECK(eng().species_report("C").record == "C(gr)");      // SPEC 3.3: C graphite
+    // engine/DATA.md, Phases: no phase = the phase stable at the evaluation temperature (here
+    // 298.15 K) and 1 bar.
+    CHECK(eng().species_report("H2O").record == "H2O(L)");   // engine/DATA.md, Phases: H2O liquid
+    CHECK(eng().species_report("H2O").species == "H2O(l)");  // engine/DATA.md, Phases
+    CHECK(eng().species_report("CO2").record == "CO2");      // engine/DATA.md, Phases: CO2 gas
+    CHECK(eng().species_report("H2").record == "H2");        // engine/DATA.md, Phases: H2 gas
+    CHECK(eng().species_report("O2").record == "O2");        // engine/DATA.md, Phases: O2 gas
+    CHECK(eng().species_report("C").record == "C(gr)");      // engine/DATA.md, Phases: C graphite
     CHECK(eng().species_report("C(s)").record == "C(gr)");   // only solid record of carbon in thermo.inp
-    CHECK(eng().species_hf("H2O") == Approx(eng().species_hf("H2O(l)")).margin(1e-12));  // SPEC 3.3
-    CHECK(eng().dh("2H2 + O2 = 2H2O") == Approx(2 * eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)")).margin(1e-9));  // SPEC 2 example + SPEC 3.3
-    // SPEC 3.3: (s) picks the record whose range holds T: alpha iron at 298 K, gamma at 1300 K.
-    CHECK(eng().species_report("Fe(s)", 298.15).record == "Fe(a)");  // SPEC 3.3, thermo.inp Fe(a) 200–1184 K
+    CHECK(eng().species_hf("H2O") == Approx(eng().species_hf("H2O(l)")).margin(1e-12));  // engine/DATA.md, Phases
+    CHECK(eng().dh("2H2 + O2 = 2H2O") == Approx(2 * eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)")).margin(1e-9));  // grammar/SYNTAX.md example + engine/DATA.md, Phases
+    // engine/DATA.md, Phases: (s) picks the record whose range holds T: alpha iron at 298 K, gamma at 1300 K.
+    CHECK(eng().species_report("Fe(s)", 298.15).record == "Fe(a)");  // engine/DATA.md, Phases, thermo.inp Fe(a) 200–1184 K
     CHECK(eng().species_report("Fe(s)", 1100).record == "Fe(a)");    // thermo.inp Fe(a) second record 1042–1184 K
-    CHECK(eng().species_report("Fe(s)", 1300).record == "Fe(c)");    // SPEC 3.3, thermo.inp Fe(c) 1184–1665 K
+    CHECK(eng().species_report("Fe(s)", 1300).record == "Fe(c)");    // engine/DATA.md, Phases, thermo.inp Fe(c) 1184–1665 K
     CHECK(eng().species_report("Fe(s)", 1700).record == "Fe(d)");    // thermo.inp Fe(d) 1665–1809 K
-    CHECK(eng().species_report("Fe(cr)", 1300).record == "Fe(c)");   // SPEC 2: (cr) is a synonym of (s)
+    CHECK(eng().species_report("Fe(cr)", 1300).record == "Fe(c)");   // grammar/SYNTAX.md: (cr) is a synonym of (s)
     {
         auto ice = attempt([] { return eng().species_report("H2O(s)", 250).record; });
         INFO("species_report(\"H2O(s)\", 250): " << ice.text << ice.message);
-        CHECK(ice.text == "H2O(cr)");  // thermo.inp H2O(cr) ice 200–273.15 K; SPEC 3.3 (s) at T
+        CHECK(ice.text == "H2O(cr)");  // thermo.inp H2O(cr) ice 200–273.15 K; engine/DATA.md, Phases (s) at T
     }
     // Sensible heat across the alpha→gamma change includes the transition (rxnheat.hpp species_h).
     const double through = eng().species_h("Fe(s)", 1300);
@@ -53,9 +54,9 @@ TEST_CASE("out-of-range temperatures are errors naming the range", "[behaviour][
     for (const auto& c : cases) {
         auto o = attempt(c.f);
         INFO(c.what << ": " << o.message);
-        REQUIRE_ENGINE_ERROR(o);                       // SPEC 3.3: never an extrapolation
+        REQUIRE_ENGINE_ERROR(o);                       // engine/DATA.md, Phases: never an extrapolation
         CHECK(o.kind == ErrorKind::out_of_range);      // rxnheat.hpp ErrorKind::out_of_range
-        for (const auto& m : c.mentions) CHECK(contains(o.message, m));  // SPEC 3.3: the error names the range
+        for (const auto& m : c.mentions) CHECK(contains(o.message, m));  // engine/DATA.md, Phases: the error names the range
     }
     // Just inside the limits works (thermo.inp ranges).
     CHECK(std::isfinite(eng().species_h("CH4(g)", 200)));     // thermo.inp CH4 from 200 K
@@ -68,17 +69,17 @@ TEST_CASE("ambiguous compositions list the candidates, and names come from the a
         auto o = attempt([] { return eng().species_hf("C3H6(g)"); });
         INFO(o.message);
         REQUIRE_ENGINE_ERROR(o);
-        CHECK(o.kind == ErrorKind::ambiguous_species);  // SPEC 3.2
-        CHECK(contains(o.message, "propylene"));        // SPEC 3.2 example
-        CHECK(contains(o.message, "cyclopropane"));     // SPEC 3.2 example
-        CHECK(eng().check("C3H6(g) + 9/2 O2(g) -> 3 CO2(g) + 3 H2O(l)") == o.message);  // SPEC 4: same diagnosis
+        CHECK(o.kind == ErrorKind::ambiguous_species);  // engine/DATA.md, Identity
+        CHECK(contains(o.message, "propylene"));        // engine/DATA.md, Identity example
+        CHECK(contains(o.message, "cyclopropane"));     // engine/DATA.md, Identity example
+        CHECK(eng().check("C3H6(g) + 9/2 O2(g) -> 3 CO2(g) + 3 H2O(l)") == o.message);  // engine/FUNCTIONS.md, RXNCHECK: same diagnosis
     }
     {
         auto o = attempt([] { return eng().dh("C4H10(g) + 13/2 O2(g) -> 4 CO2(g) + 5 H2O(l)"); });
         INFO(o.message);
         REQUIRE_ENGINE_ERROR(o);
-        CHECK(o.kind == ErrorKind::ambiguous_species);  // SPEC 3.2: n-butane and isobutane share C4H10
-        CHECK(contains(o.message, "butane"));           // SPEC 3.2: lists the candidates
+        CHECK(o.kind == ErrorKind::ambiguous_species);  // engine/DATA.md, Identity: n-butane and isobutane share C4H10
+        CHECK(contains(o.message, "butane"));           // engine/DATA.md, Identity: lists the candidates
     }
     // Alias names pick the right record (thermo.inp headers, ΔfH° in J/mol).
     CHECK(eng().species_hf("ethanol(l)") == Approx(-277.510).margin(0.005));     // thermo.inp C2H5OH(L): -277510.000
@@ -87,13 +88,13 @@ TEST_CASE("ambiguous compositions list the candidates, and names come from the a
     CHECK(eng().species_hf("cyclopropane(g)") == Approx(53.300).margin(0.005));  // thermo.inp C3H6,cyclo-: 53300.000
     CHECK(eng().species_hf("methanol(l)") == Approx(-238.910).margin(0.005));    // thermo.inp CH3OH(L): -238910.000
     CHECK(eng().species_hf("n-butane(g)") == Approx(-125.790).margin(0.005));    // thermo.inp C4H10,n-butane: -125790.000
-    // The formula as written matches the data's own formula (SPEC 3.2: C2H5OH vs CH3OCH3).
+    // The formula as written matches the data's own formula (engine/DATA.md, Identity: C2H5OH vs CH3OCH3).
     CHECK(eng().dh("ethanol(l) + 3 O2(g) -> 2 CO2(g) + 3 H2O(l)") ==
-          Approx(eng().dh("C2H5OH(l) + 3 O2(g) -> 2 CO2(g) + 3 H2O(l)")).margin(1e-9));  // SPEC 3.2
-    CHECK(eng().species_hf("C2H5OH(g)") != Approx(eng().species_hf("CH3OCH3(g)")).margin(1.0));  // SPEC 3.2: isomers differ
+          Approx(eng().dh("C2H5OH(l) + 3 O2(g) -> 2 CO2(g) + 3 H2O(l)")).margin(1e-9));  // engine/DATA.md, Identity
+    CHECK(eng().species_hf("C2H5OH(g)") != Approx(eng().species_hf("CH3OCH3(g)")).margin(1.0));  // engine/DATA.md, Identity: isomers differ
     // Unknown names are errors.
     auto o = attempt([] { return eng().species_hf("unobtainium(s)"); });
-    REQUIRE_ENGINE_ERROR(o);                          // SPEC 3.2
+    REQUIRE_ENGINE_ERROR(o);                          // engine/DATA.md, Identity
     CHECK(o.kind == ErrorKind::unknown_species);      // rxnheat.hpp ErrorKind::unknown_species
 }
 
@@ -134,17 +135,17 @@ TEST_CASE("molar masses against python3-periodictable", "[behaviour][molar-mass]
     // A phase is allowed and ignored (rxnheat.hpp molar_mass).
     CHECK(eng().molar_mass("H2O(l)") == Approx(eng().molar_mass("H2O")).margin(1e-12));            // rxnheat.hpp
     CHECK(eng().molar_mass("CuSO4·5H2O(s)") == Approx(eng().molar_mass("CuSO4*5H2O")).margin(1e-12)); // rxnheat.hpp
-    CHECK(eng().molar_mass("Co") != Approx(eng().molar_mass("CO")).margin(1.0));  // SPEC 2: Co ≠ CO
+    CHECK(eng().molar_mass("Co") != Approx(eng().molar_mass("CO")).margin(1.0));  // grammar/SYNTAX.md: Co ≠ CO
     // Not a formula: errors.
     for (const char* bad : {"", "Xx2", "H2O)", "co2", "2H2O + O2", "((((", "H-1"}) {
         auto o = attempt([&] { return eng().molar_mass(bad); });
         INFO("molar_mass('" << bad << "') value " << o.value);
-        REQUIRE_ENGINE_ERROR(o);  // SPEC 2: only real element symbols; RULES: clear errors
+        REQUIRE_ENGINE_ERROR(o);  // grammar/SYNTAX.md: only real element symbols; DEVELOPERS.md, Working rules: clear errors
     }
 }
 
 TEST_CASE("user species tables", "[behaviour][usertable]") {
-    // SPEC 3.4. A constant-cp species: H(T) − H(298.15) = cp·(T − 298.15) exactly.
+    // engine/DATA.md, User tables. A constant-cp species: H(T) − H(298.15) = cp·(T − 298.15) exactly.
     const auto t = rxnheat::SpeciesTable::from_rows({{"formula", "phase", "dHf", "cp", "tmin", "tmax", "name", "source"},
                                                      {"XeF6", "g", "-279", "120", "250", "600", "xenon hexafluoride", "demo row"}});
     CHECK(eng().species_hf("XeF6(g)", {298.15, &t}, "kJ/mol") == Approx(-279).margin(1e-9));         // the table row
@@ -160,12 +161,12 @@ TEST_CASE("user species tables", "[behaviour][usertable]") {
     CHECK(eng().species_h("N2(g)", {500, &n2}, 298.15) == Approx(sh(500) - sh(298.15)).margin(1e-6));  // Shomate integral (NIST form)
     CHECK(eng().species_h("N2(g)", {500, &n2}, 298.15) == Approx(5.912).margin(0.01));                 // NIST-JANAF, from memory
     auto out = attempt([&] { return eng().species_h("N2(g)", {600, &n2}, 298.15); });
-    REQUIRE_ENGINE_ERROR(out);  // SPEC 3.3/3.4: outside tmax is an error
-    // Overriding built-in data (SPEC 3.4: rows override the same formula and phase).
+    REQUIRE_ENGINE_ERROR(out);  // engine/DATA.md, Phases and User tables: outside tmax is an error
+    // Overriding built-in data (engine/DATA.md, User tables: rows override the same formula and phase).
     const auto w = rxnheat::SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"H2O", "l", "-300"}});
     CHECK(eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)", {298.15, &w}, "kJ/mol") == Approx(-300).margin(1e-6));  // the table row
     CHECK(eng().dh("H2(g) + 1/2 O2(g) -> H2O(l)") == Approx(-285.83).margin(0.01));  // built-in unchanged (CODATA, from memory)
-    // A malformed table names the row and the column (SPEC 3.4).
+    // A malformed table names the row and the column (engine/DATA.md, User tables).
     auto bad = attempt([] {
         rxnheat::SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"H2O", "l", "-300"}, {"CO", "g", "abc"}});
         return 0.0;
@@ -176,5 +177,5 @@ TEST_CASE("user species tables", "[behaviour][usertable]") {
     CHECK(contains(bad.message, "3"));    // row 3 (header = row 1)
     CHECK(contains(bad.message, "dHf"));  // the column
     auto missing = attempt([] { rxnheat::SpeciesTable::from_rows({{"formula", "phase"}, {"CO", "g"}}); return 0.0; });
-    REQUIRE_ENGINE_ERROR(missing);  // SPEC 3.4: dHf is required
+    REQUIRE_ENGINE_ERROR(missing);  // engine/DATA.md, User tables: dHf is required
 }

@@ -1,4 +1,4 @@
-// User species tables (SPEC 3.4): rows override and extend the built-in data.
+// User species tables (engine/DATA.md, User tables): rows override and extend the built-in data.
 #include <catch2/catch.hpp>
 
 #include "rxnheat/rxnheat.hpp"

@@ -1,4 +1,4 @@
-// Every example of SPEC section 2 ("Examples that must parse"): coefficients, atoms, charges,
+// Every example of grammar/SYNTAX.md, Examples: coefficients, atoms, charges,
 // phases and positions as the text means them.
 #include "grammar_helpers.hpp"
 

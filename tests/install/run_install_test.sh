@@ -22,7 +22,7 @@ export LD_LIBRARY_PATH="$work/prefix/lib:$work/prefix/lib/$(gcc -print-multiarch
 out=$("$work/cmake/consumer_cpp"); check "find_package C++ consumer" "$out" "-890.57"
 check "C++ consumer sees the unbalanced error" "$out" "not balanced"
 check "C++ consumer reads and writes CSV" "$out" 'csv: "a, b",c'
-# A user species table for RXNLOAD (an invented demo row, SPEC 3.4 columns).
+# A user species table for RXNLOAD (an invented demo row; the columns of engine/DATA.md, User tables).
 printf 'formula,phase,dHf,name,source\nXeF6,g,-279,xenon hexafluoride,demo row\n' >"$work/species.csv"
 rc=0
 out=$("$work/cmake/consumer_c" "$work/species.csv") || rc=$?

@@ -95,7 +95,7 @@ enum class ArgKind : unsigned char {
 RXNHEAT_API const char* to_string(ArgKind kind) noexcept;
 
 struct ArgSpec {
-    const char* name;         ///< SPEC's argument name: Function Wizard, docs, messages
+    const char* name;         ///< the documented argument name: Function Wizard, docs, messages
     ArgKind kind;
     bool required;
     const char* default_text; ///< the default in words ("298.15 K"), "" when there is none
@@ -130,7 +130,7 @@ struct FunctionSpec {
     bool variadic() const noexcept { return !args.empty() && args.back().kind == ArgKind::rest; }
 };
 
-/// Every cell function, in SPEC order.
+/// Every cell function, in the order engine/FUNCTIONS.md lists them (it is generated from this list).
 RXNHEAT_API const std::vector<FunctionSpec>& catalogue();
 /// By Calc name (ASCII case-insensitive), IDL method or CLI command; nullptr when unknown.
 RXNHEAT_API const FunctionSpec* find_function(std::string_view name) noexcept;

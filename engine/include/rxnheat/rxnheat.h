@@ -104,7 +104,7 @@ RXNHEAT_C_API rxnheat_status rxnheat_molar_mass(rxnheat_engine* engine, const ch
  * rxnheat_call() evaluates any function of the catalogue (the same table the Calc add-in and the
  * CLI are built from, so a function added there is callable here with no new C symbol). It is
  * named by its Calc name ("RXNDH", ASCII case-insensitive), its CLI command ("dh") or its frozen
- * IDL method ("rxnDH"); the arguments are given in the Calc order, as in SPEC section 4.
+ * IDL method ("rxnDH"); the arguments are given in the Calc order, as in engine/FUNCTIONS.md.
  * rxnheat_function_count()/rxnheat_function_name() list the functions.
  *
  * Argument rules (the catalogue's own, with 0 meaning 0 and no text read as a number):
@@ -128,7 +128,7 @@ RXNHEAT_C_API rxnheat_status rxnheat_molar_mass(rxnheat_engine* engine, const ch
  *
  * Nothing throws across this interface; out of memory is RXNHEAT_E_INTERNAL with a message. */
 
-/* A user species table (SPEC 3.4), parsed once; immutable, so one handle may be used by any
+/* A user species table (engine/DATA.md, User tables), parsed once; immutable, so one handle may be used by any
  * number of calls on any threads at the same time. Close it after the last call that uses it. */
 typedef struct rxnheat_table rxnheat_table;
 
@@ -208,7 +208,7 @@ RXNHEAT_C_API rxnheat_status rxnheat_call(rxnheat_engine* engine, const char* fu
 RXNHEAT_C_API rxnheat_status rxnheat_why(rxnheat_engine* engine, const char* function, const rxnheat_value* args,
                                          size_t nargs, char* text, size_t text_size, char* err, size_t err_size);
 
-/* The functions rxnheat_call() knows, in SPEC order: their Calc names ("RXNDH", ...).
+/* The functions rxnheat_call() knows, in the order of engine/FUNCTIONS.md: their Calc names ("RXNDH", ...).
  * rxnheat_function_name() returns a static string, or NULL when i >= rxnheat_function_count(). */
 RXNHEAT_C_API size_t rxnheat_function_count(void);
 RXNHEAT_C_API const char* rxnheat_function_name(size_t i);

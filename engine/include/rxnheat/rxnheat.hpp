@@ -81,7 +81,7 @@ RXNHEAT_API std::string number_words(double x);
 /// number (kelvin). Throws Error(unit/argument) for anything else or below 0 K.
 RXNHEAT_API double parse_temperature(std::string_view text);
 
-/// A user species table (SPEC 3.4), built from rows of text cells; row 0 names the columns.
+/// A user species table (engine/DATA.md, User tables), built from rows of text cells; row 0 names the columns.
 /// Rows override the built-in data for the same formula and phase.
 class RXNHEAT_API SpeciesTable {
 public:
