@@ -62,9 +62,10 @@ constexpr const char* table_help =
     "(Shomate, T in K/1000), tmin, tmax, name, source. Its rows override the built-in data for "
     "the same formula and phase.";
 constexpr const char* species_help =
-    "Species with its phase, e.g. CO2(g), H2O(l), Fe(s), or a name such as ethanol(l); or a cell "
-    "holding it. A range gives an array of the same shape (enter as an array formula); an "
-    "element that fails shows Err:502.";
+    "Species, e.g. CO2(g), H2O(l), Fe(s), or a name such as ethanol(l); written without a phase, the "
+    "phase stable at the temperature is taken (a charged species: aqueous). Or a cell holding it. A "
+    "range gives an array of the same shape (enter as an array formula); an element that fails shows "
+    "Err:502.";
 // Appended (by literal concatenation) to the descriptions of the functions that give heat loads
 // and temperature rises.
 #define RXNHEAT_CAUTION                                                                            \
@@ -237,11 +238,16 @@ std::vector<FunctionSpec> make_catalogue() {
          Returns::number, layer_all, none, false, molar_mass_call},
         {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
          "Text naming where every number used for the reaction or species came from: the data set, its record "
-         "and its publication.",
+         "and its publication, and the phase used at the temperature.",
          {{"reaction_or_species", ArgKind::reaction, true, "",
            "A reaction or a species, as text or a cell. A range gives an array of the same shape.", true, nullptr,
            "REACTION_OR_SPECIES"},
-          table_arg()},
+          table_arg(),
+          // After the table: saved documents call rxnSource(reaction_or_species; table).
+          {"temperature", ArgKind::temperature, false, "298.15 K",
+           "The temperature whose data are cited: a species written without a phase is cited in the phase stable "
+           "there, and a written liquid above its 1-bar boiling point is noted. Omitted, empty or blank: 298.15 K.",
+           true, "-T,--temperature", "TEMP"}},
          Returns::text, layer_all, none, false, source_call},
         {"RXNVERSION", "rxnVersion", "version", "version and data-set identity, for template audits",
          "Version of rxnheat and identity of its data set, for template audits.", {}, Returns::text, layer_all,

@@ -56,7 +56,9 @@ def main():
             failures += 1
             continue
         got = generated[index[name]][1]
-        if got != args:
+        # A method may gain optional arguments at its end: a saved call passes fewer, and Calc
+        # hands the missing trailing ones over as empty (omitted). Nothing before them may change.
+        if got[:len(args)] != args:
             print("FAIL  %s: arguments %s, frozen %s" % (name, got, args))
             failures += 1
         if index[name] < last:
