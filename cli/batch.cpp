@@ -68,6 +68,8 @@ struct BatchRow {
     std::string kind;
 };
 
+// Spaces and tabs only, not rxnheat::trim: a line break inside a quoted cell is text, so such a
+// cell is neither blank nor the header word (the row gets its own error instead).
 std::string trimmed(const std::string& s) {
     const auto b = s.find_first_not_of(" \t");
     if (b == std::string::npos) return {};

@@ -9,6 +9,7 @@
 
 #include "rxnheat/catalogue.hpp"
 
+#include <cmath>
 #include <cstdio>
 #include <cstdlib>
 #include <memory>
@@ -269,13 +270,18 @@ const CommandEntry entries[] = {
     {"cp", nullptr, {"", nullptr, "rxnheat cp \"CO2(g)\" \"500 C\"\n"}},
     {"sensible", nullptr, {"", nullptr, "rxnheat sensible \"N2(g)\" 1000 --tref \"25 C\"\n"}},
     {"species", nullptr,
-     {"Prints, for one species (a formula with its phase, or a name such as ethanol): ΔfH° at 298.15 K, Cp° "
-      "and S° at T, the sensible heat H°(T) − H°(298.15 K), the assigned enthalpy H°(T), the molar mass, the "
-      "data record used with its temperature range, and its source.",
+     {"Prints a card for one species (a formula with its phase, or a name such as ethanol), under four "
+      "headings: Species (as resolved, and its molar mass); At 298.15 K (ΔfH°); At T (Cp°, the sensible heat "
+      "H°(T) − H°(298.15 K), the assigned enthalpy H°(T) and S°); Source record (the data record's name, its "
+      "temperature range and the citation). For a record that gives no heat capacity (only ΔfH° at 298.15 K, "
+      "or only the enthalpy at one other temperature) it prints what the record gives and says that the rest "
+      "is missing; the exit status is 0.",
       "{\"species\", \"record\", \"temperature_K\", \"dHf_kJ_per_mol\", \"Cp_J_per_molK\", "
       "\"dH_sensible_kJ_per_mol\", \"H_kJ_per_mol\", \"S_J_per_molK\", \"molar_mass_g_per_mol\", \"tmin_K\", "
-      "\"tmax_K\" (null for user-table rows without a range), \"source\"}",
-      "rxnheat species \"Fe(s)\" -T 1300\n"}},
+      "\"tmax_K\", \"source\"}; null for what the data do not give (Cp, S and the enthalpies of a record "
+      "without heat capacity; tmin_K and tmax_K of such a record or of a user-table row without a range)",
+      "rxnheat species \"Fe(s)\" -T 1300\n"
+      "rxnheat species \"CH3NO2(l)\" --json\n"}},
     {"batch", nullptr, {batch_details, batch_json_fields, "rxnheat batch feeds.csv --threads 2 > heats.csv\n"}},
     {"functions", nullptr,
      {"Lists every function of the catalogue, in the order of the specification: its cell name, its command "
@@ -352,46 +358,98 @@ int run_function(const CommandDef& cmd, const Parsed& p, Output& out, Engine& en
 
 // ---- commands of the command line only -----------------------------------------------------------
 
+/// The species command's text: our own card, grouped under headings, one "label  value" line
+/// each, the values in one column (labels are padded by characters, not bytes: ΔfH° is UTF-8).
+class Card {
+public:
+    void heading(const std::string& title) {
+        if (!text_.empty()) text_ += "\n";
+        text_ += title + "\n";
+    }
+    void line(const std::string& label, const std::string& value) {
+        std::size_t chars = 0;
+        for (unsigned char c : label) chars += (c & 0xC0) != 0x80;
+        text_ += "  " + label + std::string(chars < label_chars ? label_chars - chars : 1, ' ') + value + "\n";
+    }
+    void note(const std::string& words) { text_ += "  " + words + "\n"; }
+    std::string text() const { return text_.substr(0, text_.size() - 1); }  // Output adds the line feed
+
+private:
+    static constexpr std::size_t label_chars = 24;
+    std::string text_;
+};
+
 int run_species(const Parsed& p, Output& out, Engine& engine) {
     const double T = p.has("temperature") ? parse_temperature(p.value_or("temperature", "")) : T_ref;
     std::shared_ptr<const SpeciesTable> table;
     if (p.has("table")) table = load_table(p.value_or("table", ""));
     const SpeciesReport r = engine.species_report(p.positionals.at(0), {T, table.get()});
     const bool has_range = r.tmax_K > 0;
-    std::string plain;
-    auto line = [&](const char* label, const std::string& value) {
-        char buf[32];
-        std::snprintf(buf, sizeof buf, "%-11s ", label);
-        plain += buf + value + "\n";
-    };
-    line("species", r.species);
-    line("record", r.record + (has_range ? ", " + plain_number(r.tmin_K) + " to " + plain_number(r.tmax_K) + " K" : ""));
-    line("T", plain_number(r.temperature_K) + " K");
-    line("dHf", plain_number(r.dHf_kJ_per_mol) + " kJ/mol (at 298.15 K)");
-    line("Cp", plain_number(r.Cp_J_per_molK) + " J/(mol K)");
-    line("H-H298", plain_number(r.dH_sensible_kJ_per_mol) + " kJ/mol");
-    line("H", plain_number(r.H_kJ_per_mol) + " kJ/mol (assigned enthalpy: dHf + H-H298)");
-    line("S", plain_number(r.S_J_per_molK) + " J/(mol K)");
-    line("molar mass", plain_number(r.molar_mass_g_per_mol) + " g/mol");
-    line("source", r.source);
-    plain.pop_back();
+    const std::string at_T = plain_number(r.temperature_K) + " K";
+    // A record without heat capacity covers one temperature only, so r.temperature_K is that
+    // temperature. At 298.15 K its value is ΔfH°; at any other temperature (NASA Glenn gives
+    // liquefied gases at their boiling points) it is the assigned enthalpy H°(T) there, and the
+    // record says nothing about ΔfH° at 298.15 K.
+    const bool value_is_dHf = r.has_heat_capacity || std::fabs(r.temperature_K - T_ref) < 0.005;
+
+    Card card;
+    card.heading("Species");
+    card.line("species", r.species);
+    card.line("molar mass", plain_number(r.molar_mass_g_per_mol) + " g/mol");
+    if (value_is_dHf) {
+        card.heading("At 298.15 K");
+        card.line("ΔfH°", plain_number(r.dHf_kJ_per_mol) + " kJ/mol");
+    }
+    card.heading("At T = " + at_T);
+    if (r.has_heat_capacity) {
+        card.line("Cp°", plain_number(r.Cp_J_per_molK) + " J/(mol K)");
+        card.line("H°(T) − H°(298.15 K)", plain_number(r.dH_sensible_kJ_per_mol) + " kJ/mol");
+        card.line("H°(T)", plain_number(r.H_kJ_per_mol) + " kJ/mol (assigned enthalpy: ΔfH° + H°(T) − H°(298.15 K))");
+        card.line("S°", plain_number(r.S_J_per_molK) + " J/(mol K)");
+    } else if (value_is_dHf) {
+        card.note("The data give no heat capacity for " + r.species + ", only ΔfH° at 298.15 K:");
+        card.note("no Cp°, H°(T) − H°(298.15 K), H°(T) or S° can be given.");
+    } else {
+        card.line("H°(T)", plain_number(r.dHf_kJ_per_mol) + " kJ/mol (assigned enthalpy, as the record gives it)");
+        card.note("The data give no heat capacity for " + r.species + ", only this enthalpy at " + at_T + ":");
+        card.note("no ΔfH° at 298.15 K, Cp°, H°(T) − H°(298.15 K) or S° can be given.");
+    }
+    card.heading("Source record");
+    card.line("name", r.record);
+    if (has_range)
+        card.line("temperature range", plain_number(r.tmin_K) + " to " + plain_number(r.tmax_K) + " K");
+    else if (!r.has_heat_capacity)
+        card.line("temperature range", at_T + " only");
+    else
+        card.line("temperature range", "none given");
+    card.line("citation", r.source);
 
     JsonObject j;
-    j.str("species", r.species)
-        .str("record", r.record)
-        .num("temperature_K", r.temperature_K)
-        .num("dHf_kJ_per_mol", r.dHf_kJ_per_mol)
-        .num("Cp_J_per_molK", r.Cp_J_per_molK)
-        .num("dH_sensible_kJ_per_mol", r.dH_sensible_kJ_per_mol)
-        .num("H_kJ_per_mol", r.H_kJ_per_mol)
-        .num("S_J_per_molK", r.S_J_per_molK)
-        .num("molar_mass_g_per_mol", r.molar_mass_g_per_mol);
+    j.str("species", r.species).str("record", r.record).num("temperature_K", r.temperature_K);
+    if (value_is_dHf)
+        j.num("dHf_kJ_per_mol", r.dHf_kJ_per_mol);
+    else
+        j.null("dHf_kJ_per_mol");
+    if (r.has_heat_capacity) {
+        j.num("Cp_J_per_molK", r.Cp_J_per_molK)
+            .num("dH_sensible_kJ_per_mol", r.dH_sensible_kJ_per_mol)
+            .num("H_kJ_per_mol", r.H_kJ_per_mol)
+            .num("S_J_per_molK", r.S_J_per_molK);
+    } else {
+        j.null("Cp_J_per_molK").null("dH_sensible_kJ_per_mol");
+        if (value_is_dHf)
+            j.null("H_kJ_per_mol");
+        else
+            j.num("H_kJ_per_mol", r.dHf_kJ_per_mol);
+        j.null("S_J_per_molK");
+    }
+    j.num("molar_mass_g_per_mol", r.molar_mass_g_per_mol);
     if (has_range)
         j.num("tmin_K", r.tmin_K).num("tmax_K", r.tmax_K);
     else
         j.null("tmin_K").null("tmax_K");
     j.str("source", r.source);
-    out.result(plain, j);
+    out.result(card.text(), j);
     return exit_ok;
 }
 

@@ -671,8 +671,10 @@ private:
     void formula(const ast::Formula& tree, Species& s) const {
         auto const range = tr_.position_of(tree);
         Where where{std::size_t(range.begin() - t_.begin()), std::size_t(range.end() - t_.begin()), 0, 0};
+        std::vector<Atom> before_last;  // s.atoms before the last part, to count that part alone
         for (std::size_t k = 0; k < tree.parts.size(); ++k) {
             const ast::Part& part = tree.parts[k];
+            if (k + 1 == tree.parts.size()) before_last = s.atoms;
             where.part_first = item_first(part.items.front());
             where.part_last = std::size_t(tr_.position_of(part).end() - t_.begin());
             Rational multiplier{1};
@@ -690,7 +692,26 @@ private:
         }
         if (tree.charge) s.charge = charge(*tree.charge);
         mistyped_phase(tree.parts.back());
-        zero_for_letter_o_at_end(tree.parts.back(), where);
+        zero_for_letter_o_at_end(tree.parts.back(), part_atoms(s.atoms, before_last, tree.parts.back()), where);
+    }
+
+    /// The atoms of one formula part per unit of it (its hydrate multiplier divided out): `after`
+    /// less `before`, the totals before and after the part was added.
+    Rational part_count(const std::vector<Atom>& after, const std::vector<Atom>& before, const char* symbol) const {
+        Rational n{0};
+        for (const auto& a : after)
+            if (a.symbol == symbol) n += a.count;
+        for (const auto& a : before)
+            if (a.symbol == symbol) n -= a.count;
+        return n;
+    }
+    struct PartAtoms {
+        Rational C, H, N;
+    };
+    PartAtoms part_atoms(const std::vector<Atom>& after, const std::vector<Atom>& before, const ast::Part& part) const {
+        Rational const m = part.multiplier.empty() ? Rational{1} : number(part.multiplier, start(part));
+        return {part_count(after, before, "C") / m, part_count(after, before, "H") / m,
+                part_count(after, before, "N") / m};
     }
 
     /// "H20", "Na20", "CuSO4·5H20": a count of 20 to 90 typed as the last thing of a formula, on
@@ -700,12 +721,16 @@ private:
     /// Exempt: O ("O2O" is no formula), C (carbon clusters such as C60 are written this way and
     /// a carbon oxide ending in "C6O" is rare), 10 ("H1O" is nobody's way of writing HO, while
     /// C4H10 and C5H10 are common), and subscript digits (typeset on purpose, not a slip).
-    void zero_for_letter_o_at_end(const ast::Part& part, const Where& where) const {
+    /// Also exempt: H in a part with carbon whose hydrogen count is one a molecule can have, at
+    /// most 2·C + 2 + N (a saturated open chain: nonane C9H20, C14H30, C19H40 are real). Above
+    /// that the zero is still read as a mistyped O: "CH20" (CH2O), "CH3CH20" (CH3CH2O, 23 H on 2 C).
+    void zero_for_letter_o_at_end(const ast::Part& part, const PartAtoms& atoms, const Where& where) const {
         if (part.items.empty()) return;
         auto const* e = boost::get<ast::Element>(&part.items.back().get());
         if (!e || e->symbol == U"O" || e->symbol == U"C") return;
         const Text& n = e->count;
         if (n.size() != 2 || n[0] < U'2' || n[0] > U'9' || n[1] != U'0') return;
+        if (e->symbol == U"H" && atoms.C > 0 && atoms.H <= 2 * atoms.C + 2 + atoms.N) return;
         std::size_t const count_at = start(*e) - 1 + e->symbol.size();  // index of the count
         Text letter_o = formula_text(where);
         letter_o[count_at + 1 - where.first] = U'O';

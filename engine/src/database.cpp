@@ -39,11 +39,6 @@ std::string count_text(double x) {
     return s;
 }
 
-std::string number_text(double x) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.10g", x);
-    return buf;
-}
 
 Rational rational_from_count(double x) {
     // NASA element counts are written with at most 5 decimals.
@@ -166,7 +161,7 @@ const Record* stable_among(const std::vector<const Record*>& records, double T) 
 void need_polynomial(const Substance& s, const Record& r, double T, const char* what) {
     if (r.intervals.empty())
         throw Error(ErrorKind::out_of_range, s.display_at(T) + ": the NASA Glenn record '" + r.name +
-                                                 "' gives only the enthalpy at " + number_text(r.t_single) +
+                                                 "' gives only the enthalpy at " + number_words(r.t_single) +
                                                  " K, no " + what);
 }
 
@@ -178,12 +173,12 @@ const Record& Substance::record_at(double T) const {
     if (phase_assumed) {
         if (const Record* r = stable_among(candidates, T)) return *r;
         throw Error(ErrorKind::out_of_range,
-                    label + ": no phase was written, and none of its data covers " + number_text(T) +
+                    label + ": no phase was written, and none of its data covers " + number_words(T) +
                         " K (the data cover " + range_text() + "; rxnheat never extrapolates)");
     }
     for (const Record* r : records)
         if (covers(*r, T)) return *r;
-    throw Error(ErrorKind::out_of_range, display + ": the data cover " + range_text() + "; " + number_text(T) +
+    throw Error(ErrorKind::out_of_range, display + ": the data cover " + range_text() + "; " + number_words(T) +
                                              " K is outside them (rxnheat never extrapolates)");
 }
 
@@ -226,9 +221,9 @@ std::string Substance::range_text() const {
     for (const Record* r : phase_assumed ? candidates : records) {
         if (!out.empty()) out += ", ";
         if (r->intervals.empty())
-            out += number_text(r->t_single) + " K only";
+            out += number_words(r->t_single) + " K only";
         else
-            out += number_text(r->tmin()) + "–" + number_text(r->tmax()) + " K";
+            out += number_words(r->tmin()) + "–" + number_words(r->tmax()) + " K";
         out += " ('" + r->name + "')";
     }
     return out;
@@ -256,7 +251,7 @@ std::string Substance::source(double T) const {
     out += " — McBride, Zehe & Gordon, NASA/TP-2002-211556";
     if (phase_assumed)
         out += ". No phase was written: the " + std::string(phase_word(phase_at(T))) + " is the phase of lowest G° at " +
-               number_text(T) + " K and 1 bar";
+               number_words(T) + " K and 1 bar";
     if (!phase_assumed && phase == 'l' && !vapour.empty()) {
         // A written liquid where the gas is the stable phase at 1 bar: allowed (a pressurised
         // liquid), but said.
@@ -265,7 +260,7 @@ std::string Substance::source(double T) const {
         for (const Record* r : records)
             if (!r->intervals.empty() && covers(*r, T)) liquid = r;
         if (gas && liquid && gibbs(*gas, T) < gibbs(*liquid, T))
-            out += ". Note: the liquid is used at " + number_text(T) +
+            out += ". Note: the liquid is used at " + number_words(T) +
                    " K, above its 1-bar boiling point (a pressurised liquid; write (g) for the vapour)";
     }
     return out;

@@ -12,6 +12,8 @@
 //   no interval     1-11 the temperature
 #include "nasa.hpp"
 
+#include "rxnheat/rxnheat.hpp"
+
 #include <algorithm>
 #include <cctype>
 #include <charconv>
@@ -44,11 +46,9 @@ std::vector<Line> split_lines(std::string_view text) {
     return lines;
 }
 
-std::string_view trim(std::string_view s) {
-    while (!s.empty() && (s.front() == ' ' || s.front() == '\t')) s.remove_prefix(1);
-    while (!s.empty() && (s.back() == ' ' || s.back() == '\t')) s.remove_suffix(1);
-    return s;
-}
+// Fields and lines are trimmed with rxnheat::trim (spaces, tabs, CR, LF). The same as trimming
+// spaces and tabs alone here: split_lines cuts at LF and drops the CR of CRLF (the shipped file's
+// line end), so a CR or LF reaches trim only from a malformed file.
 
 bool blank(std::string_view s) { return trim(s).empty(); }
 

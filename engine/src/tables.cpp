@@ -36,7 +36,9 @@ private:
     std::string file_;
 };
 
-std::string_view trim(std::string_view s) {
+// Spaces and tabs only, not rxnheat::trim: a quoted cell may hold a line break, which is part of
+// its text (and then fails the cell's own check) rather than a blank to drop.
+std::string_view trim_spaces_tabs(std::string_view s) {
     while (!s.empty() && (s.front() == ' ' || s.front() == '\t')) s.remove_prefix(1);
     while (!s.empty() && (s.back() == ' ' || s.back() == '\t')) s.remove_suffix(1);
     return s;
@@ -58,7 +60,7 @@ Csv read_csv(std::string_view text, const CsvError& fail) {
     bool have_header = false;
     while (reader.next(rec)) {
         if (!rec.error.empty()) fail(rec.line, rec.error);
-        for (std::string& cell : rec.cells) cell = std::string(trim(cell));
+        for (std::string& cell : rec.cells) cell = std::string(trim_spaces_tabs(cell));
         if (rec.cells.size() == 1 && rec.cells[0].empty()) continue;  // a blank line
         CsvRow row{rec.line, std::move(rec.cells)};
         if (!have_header) {
@@ -172,7 +174,7 @@ std::vector<Alias> parse_aliases_csv(std::string_view text) {
             std::size_t p = 0;
             while (true) {
                 std::size_t bar = solid.find('|', p);
-                std::string one(trim(std::string_view(solid).substr(p, bar == std::string::npos ? std::string::npos : bar - p)));
+                std::string one(trim_spaces_tabs(std::string_view(solid).substr(p, bar == std::string::npos ? std::string::npos : bar - p)));
                 if (one.empty()) fail(row.line, "column 'solid': an empty record name between '|'");
                 check_record_name(row, "solid", one);
                 if (std::find(a.solid.begin(), a.solid.end(), one) != a.solid.end())

@@ -19,21 +19,13 @@ namespace {
 
 using detail::UserSpecies;
 
-std::string trim(std::string s) {
-    const char* ws = " \t\r\n";
-    const auto b = s.find_first_not_of(ws);
-    if (b == std::string::npos) return {};
-    const auto e = s.find_last_not_of(ws);
-    return s.substr(b, e - b + 1);
-}
-
 [[noreturn]] void table_error(std::size_t row, const std::string& column, const std::string& what) {
     throw Error(ErrorKind::table, "species table row " + std::to_string(row) +
                                       (column.empty() ? "" : ", column '" + column + "'") + ": " + what);
 }
 
 double number_cell(const std::string& text, std::size_t row, const std::string& column) {
-    const std::string t = trim(text);
+    const std::string t(trim(text));
     double v = 0;
     auto [p, ec] = std::from_chars(t.data(), t.data() + t.size(), v);
     if (t.empty() || ec != std::errc() || p != t.data() + t.size() || !std::isfinite(v))
@@ -44,11 +36,6 @@ double number_cell(const std::string& text, std::size_t row, const std::string& 
 const char* const known_columns[] = {"formula", "phase", "dHf", "S", "cp", "a", "b", "c", "d", "e",
                                      "tmin", "tmax", "name", "source"};
 
-std::string fmt(double x) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.10g", x);
-    return buf;
-}
 
 }  // namespace
 
@@ -56,7 +43,7 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
     auto impl = std::make_shared<Impl>();
     if (rows.empty()) table_error(1, "", "the table is empty; its first row must name the columns");
     std::vector<std::string> header;
-    for (const auto& h : rows.front()) header.push_back(trim(h));
+    for (const auto& h : rows.front()) header.emplace_back(trim(h));
     int col_of[std::size(known_columns)];
     for (auto& c : col_of) c = -1;
     for (std::size_t j = 0; j < header.size(); ++j) {
@@ -81,7 +68,7 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
     auto cell = [&](const std::vector<std::string>& r, const char* name) -> std::string {
         for (std::size_t k = 0; k < std::size(known_columns); ++k)
             if (std::string(known_columns[k]) == name)
-                return col_of[k] >= 0 && static_cast<std::size_t>(col_of[k]) < r.size() ? trim(r[col_of[k]]) : "";
+                return col_of[k] >= 0 && static_cast<std::size_t>(col_of[k]) < r.size() ? std::string(trim(r[col_of[k]])) : std::string();
         return {};
     };
     // The table's identity: every cell of every row, the header included (two tables with the
@@ -202,7 +189,7 @@ void check_range(const UserSpecies& u, double T, const std::string& shown) {
     if (!std::isfinite(T) || T <= 0) throw Error(ErrorKind::argument, "temperature must be a positive number of kelvin");
     if (T < u.tmin - 1e-6 || T > u.tmax + 1e-6)
         throw Error(ErrorKind::out_of_range, shown + ": the species table row " + std::to_string(u.row) + " covers " +
-                                                 u.range_text() + "; " + fmt(T) + " K is outside it");
+                                                 u.range_text() + "; " + number_words(T) + " K is outside it");
 }
 // Shomate integrals (NIST form, t = T/1000): ∫Cp dT in kJ/mol and ∫Cp/T dT in J/(mol·K).
 double shomate_h(const UserSpecies& u, double T) {
@@ -215,7 +202,7 @@ double shomate_s(const UserSpecies& u, double T) {
 }
 }  // namespace
 
-std::string UserSpecies::range_text() const { return fmt(tmin) + "–" + fmt(tmax) + " K"; }
+std::string UserSpecies::range_text() const { return number_words(tmin) + "–" + number_words(tmax) + " K"; }
 
 double UserSpecies::H(double T, const std::string& shown) const {
     check_range(*this, T, shown);

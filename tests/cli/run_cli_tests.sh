@@ -261,9 +261,40 @@ M_H2O=$(molar_mass H2O)
 expect_close "species H2O molar mass (periodictable)" "$("$PY" -c 'import json,sys; print(json.load(open(sys.argv[1]))["molar_mass_g_per_mol"])' "$TMP/out")" "$M_H2O" 0.002
 run species "H2O(l)"
 expect_rc "species text" 0
-expect_out_re "species text has dHf" '^dHf +-285\.8'
-expect_out_re "species text has molar mass" '^molar mass +18\.01'
-expect_out_re "species text has source" '^source +.*NASA'
+# The card's own layout: headings, then "  label  value" lines under them.
+expect_out_re "species text heading Species" '^Species$'
+expect_out_re "species text heading At 298.15 K" '^At 298\.15 K$'
+expect_out_re "species text heading At T" '^At T = 298\.15 K$'
+expect_out_re "species text heading Source record" '^Source record$'
+expect_out_re "species text has dHf" '^  ΔfH° +-285\.8'
+expect_out_re "species text has molar mass" '^  molar mass +18\.01'
+expect_out_re "species text has Cp" '^  Cp° +75\.[0-9]* J/\(mol K\)$'
+expect_out_re "species text has S" '^  S° +69\.9[0-9]* J/\(mol K\)$'
+expect_out_re "species text has the record's range" '^  temperature range +[0-9.]+ to [0-9.]+ K$'
+expect_out_re "species text has source" '^  citation +.*NASA'
+# A record with no heat capacity (NASA Glenn gives nitromethane liquid, CH3NO2(L), as ΔfH° at
+# 298.15 K alone, interval count 0): ΔfH° is printed, the rest is said to be missing, exit 0.
+# ΔfH°(CH3NO2, l) = −113.1 kJ/mol: NBS tables (Wagman et al. 1982), from memory.
+run species "CH3NO2(l)"
+expect_rc "species without heat capacity" 0
+expect_out_re "species without heat capacity: dHf" '^  ΔfH° +-113\.1 kJ/mol$'
+expect_out_re "species without heat capacity: said plainly" 'data give no heat capacity for CH3NO2\(l\)'
+expect_out_re "species without heat capacity: one temperature" '^  temperature range +298\.15 K only$'
+if out | grep -Eq '^  (Cp°|S°) '; then fail "species without heat capacity: no Cp or S line"; else pass; fi
+run species "CH3NO2(l)" --json
+expect_rc "species without heat capacity --json" 0
+jcheck "species without heat capacity --json: dHf" 'abs(j["dHf_kJ_per_mol"] + 113.1) <= 0.5'
+jcheck "species without heat capacity --json: nulls" 'all(j[k] is None for k in ("Cp_J_per_molK", "dH_sensible_kJ_per_mol", "H_kJ_per_mol", "S_J_per_molK", "tmin_K", "tmax_K")) and j["temperature_K"] == 298.15 and j["record"] == "CH3NO2(L)"'
+# NASA Glenn gives liquid methane, CH4(L), only as its assigned enthalpy at the normal boiling
+# point, 111.643 K: that is H°(T), not ΔfH° at 298.15 K. Expected about −89.3 kJ/mol: ΔfH°(CH4, g)
+# −74.87 (NIST-JANAF 1998), less about 6.2 of gas heat from 111.6 to 298.15 K (Cp° near 33.4
+# J/(mol K)) and the heat of vaporisation 8.19 at 111.7 K, all from memory.
+run species "CH4(l)" -T 111.643 --json
+expect_rc "species at the one temperature of its record" 0
+jcheck "species CH4(l) 111.643 K: H, not dHf" 'j["dHf_kJ_per_mol"] is None and abs(j["H_kJ_per_mol"] + 89.3) <= 0.5 and j["Cp_J_per_molK"] is None and j["S_J_per_molK"] is None'
+run species "CH4(l)" -T 111.643
+expect_out_re "species CH4(l) 111.643 K text: H°(T)" '^  H°\(T\) +-89\.2[0-9]* kJ/mol'
+if out | grep -q 'ΔfH° *-'; then fail "species CH4(l) 111.643 K text: no ΔfH° value"; else pass; fi
 run species "Fe(s)" -T 1300 --json
 # At 1300 K solid iron is the gamma (fcc) form, stable 1184–1665 K: NIST-JANAF (1998), from memory.
 jcheck "species Fe(s) 1300 K gamma record" 'j["tmin_K"] <= 1300 <= j["tmax_K"] and abs(j["tmin_K"] - 1184) < 1 and abs(j["tmax_K"] - 1665) < 1'

@@ -56,9 +56,23 @@ TEST_CASE("typos: 20 to 90 at the end of a formula is the letter O", "[grammar][
     CHECK_SPECIES_ERROR("CH20", 4,
                         "'20' at the end of the formula is far more often the letter O typed as a zero; "
                         "if you meant the letter O, write 'CH2O'; for a true count of 20 write 'C(H)20'");
-    CHECK_SPECIES_ERROR("C9H20", 5,
+    // H on carbon is refused only above what a molecule can hold (2·C + 2 + N hydrogen atoms):
+    // CH20 (1 C: at most 4 H) and CH3CH20 (2 C: at most 6 H, written 23) are CH2O and CH3CH2O.
+    CHECK_SPECIES_ERROR("CH3CH20", 7,
                         "'20' at the end of the formula is far more often the letter O typed as a zero; "
-                        "if you meant the letter O, write 'C9H2O'; for a true count of 20 write 'C9(H)20'");
+                        "if you meant the letter O, write 'CH3CH2O'; for a true count of 20 write 'CH3C(H)20'");
+    CHECK_SPECIES_ERROR("N20", 3,
+                        "'20' at the end of the formula is far more often the letter O typed as a zero; "
+                        "if you meant the letter O, write 'N2O'; for a true count of 20 write '(N)20'");
+    // the carbon of another part does not count: the water of a hydrate is its own part
+    CHECK_SPECIES_ERROR("C2H2O4·2H20", 11,
+                        "'20' at the end of the formula is far more often the letter O typed as a zero; "
+                        "if you meant the letter O, write 'C2H2O4·2H2O'; for a true count of 20 write "
+                        "'C2H2O4·2(H)20'");
+    // N on carbon is not exempt: C3H8N20 is C3H8N2O
+    CHECK_SPECIES_ERROR("C3H8N20", 7,
+                        "'20' at the end of the formula is far more often the letter O typed as a zero; "
+                        "if you meant the letter O, write 'C3H8N2O'; for a true count of 20 write 'C3H8(N)20'");
     CHECK_SPECIES_ERROR("K30", 3,
                         "'30' at the end of the formula is far more often the letter O typed as a zero; "
                         "if you meant the letter O, write 'K3O'; for a true count of 30 write '(K)30'");
@@ -81,6 +95,16 @@ TEST_CASE("typos: the escape for a true count of 20 gives the same atoms", "[gra
     CHECK(atoms(parse_species("H20C9")) == "H=20 C=9");
     CHECK(atoms(parse_species("C9H₂₀")) == "C=9 H=20");  // subscripts are typeset, not slips
     CHECK(atoms(parse_species("CuSO4·5(H)20")) == "Cu=1 S=1 O=4 H=100");
+}
+
+TEST_CASE("typos: alkanes and alkenes ending in H20 to H40 are real formulas", "[grammar][typos]") {
+    // CnH2n+2 and CnH2n (common practice): nonane, decene, tetradecane, nonadecane, eicosene.
+    CHECK(atoms(parse_species("C9H20")) == "C=9 H=20");
+    CHECK(atoms(parse_species("C9H20(l)")) == "C=9 H=20");
+    CHECK(atoms(parse_species("C10H20")) == "C=10 H=20");
+    CHECK(atoms(parse_species("C14H30")) == "C=14 H=30");
+    CHECK(atoms(parse_species("C19H40")) == "C=19 H=40");
+    CHECK(atoms(parse_species("C20H40")) == "C=20 H=40");
 }
 
 TEST_CASE("typos: real formulas with 10 or a trailing zero keep working", "[grammar][typos]") {
