@@ -5,6 +5,7 @@
 #include "database.hpp"
 #include "reaction.hpp"
 #include "units.hpp"
+#include "usertable.hpp"
 
 #include <cmath>
 #include <cstdio>
@@ -292,7 +293,9 @@ SpeciesReport Engine::species_report(std::string_view species, const Conditions&
     r.source = s.source(T);
     if (s.user) {
         r.record = "user table";
-        r.dHf_kJ_per_mol = s.H(T_ref) / 1000.0;
+        r.dHf_kJ_per_mol = s.user->dHf / 1000.0;
+        // A row with only dHf (no cp): what the table has, and nothing more.
+        if (s.user->cp_form == detail::UserSpecies::CpForm::none) return r;
     } else {
         const detail::Record& rec = s.record_at(T);
         r.record = rec.name;

@@ -51,7 +51,7 @@ DOCUMENTED_FUNCTIONS = {
     "SPECIESCP": ["species", "temperature", "table"],
     "SPECIESH": ["species", "temperature", "reference_temperature", "table"],
     "MOLARMASS": ["formula"],
-    "RXNSOURCE": ["reaction_or_species", "table"],
+    "RXNSOURCE": ["reaction_or_species", "table", "temperature"],
     "RXNVERSION": [],
 }
 
@@ -239,6 +239,14 @@ def check_why_and_tables(checks, sh):
     checks.ok("RXNWHY names the bad temperature", why[3].text not in ("", "ok") and
               "temperature" in why[3].text, repr(why[3]))
     checks.ok("RXNWHY of an unknown function says so", "NOSUCH" in why[4].text, repr(why[4]))
+    # RXNSOURCE at a temperature names the phase used there and notes a liquid above its 1-bar
+    # boiling point (NASA Glenn records 'H2O' and 'H2O(L)'; normal boiling point 373.12 K, from memory).
+    src = sh.evaluate(['=RXNSOURCE("H2O";;500)', '=RXNSOURCE("H2O(l) -> H2O(g)";;"400 K")',
+                       '=RXNSOURCE("H2O")'])
+    checks.ok("RXNSOURCE at 500 K: steam", src[0].text.startswith("H2O(g)"), repr(src[0]))
+    checks.ok("RXNSOURCE notes a liquid above its boiling point",
+              "above its 1-bar boiling point" in src[1].text, repr(src[1]))
+    checks.ok("RXNSOURCE at 298.15 K: liquid water", src[2].text.startswith("H2O(l)"), repr(src[2]))
     # A column of 3 reactions with a row of 5 temperatures: the whole 3×5 table in one call.
     reactions = [CH4_COMBUSTION_GAS, "2 H2(g) + O2(g) -> 2 H2O(g)", "1/2 N2(g) + 3/2 H2(g) -> NH3(g)"]
     temperatures = [298.15, 400, "176.85 C", 500, "990 R"]  # 450 K = 176.85 °C, 550 K = 990 °R

@@ -817,5 +817,13 @@ for line in body.splitlines():
 EOF
 )
 
+# ---- species of a user-table row with only dHf: what the table has, exit 0 -------------------------
+printf 'formula,phase,dHf\nXeF6,g,-279\n' > "$TMP/only-dhf.csv"   # an invented demo row
+run species "XeF6(g)" --table "$TMP/only-dhf.csv"
+expect_rc "species: a table row with only dHf exits 0" 0
+expect_out_re "species: a table row with only dHf prints it" '-279 kJ/mol'
+run species "XeF6(g)" --table "$TMP/only-dhf.csv" --json
+jcheck "species --json: a table row with only dHf" 'j["dHf_kJ_per_mol"] == -279 and j["Cp_J_per_molK"] is None'
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -150,8 +150,10 @@ struct SpeciesReport {
     double temperature_K = 0;
     double dHf_kJ_per_mol = 0;    ///< ΔfH° at 298.15 K (a phase whose data start above or end below
                                   ///< 298.15 K: the value its data record gives for 298.15 K)
-    bool has_heat_capacity = false;  ///< false: the record gives only ΔfH° at one temperature, and
-                                     ///< the fields below are zero (nothing in the data to print)
+    bool has_heat_capacity = false;  ///< false: the record (or table row) gives only an enthalpy at
+                                     ///< one temperature — then dHf_kJ_per_mol holds that value (it
+                                     ///< is ΔfH° only when that temperature is 298.15 K) and the
+                                     ///< fields below are zero (nothing in the data to print)
     double H_kJ_per_mol = 0;      ///< assigned enthalpy H°(T) = ΔfH°(298.15) + [H°(T) − H°(298.15)]
     double dH_sensible_kJ_per_mol = 0;  ///< H°(T) − dHf: sensible heat from 298.15 K
     double Cp_J_per_molK = 0;
