@@ -2,6 +2,8 @@
 // rules by which every host's arguments are read and spread into arrays.
 #include "rxnheat/catalogue.hpp"
 
+#include "reaction.hpp"
+
 #include <cerrno>
 #include <cmath>
 #include <cstdlib>
@@ -312,13 +314,7 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
     out.given = true;
     if (c.kind == Cell::Kind::text) {
         const std::string_view t = trim(c.text);
-        std::size_t chars = 0;
-        for (unsigned char ch : t)
-            if ((ch & 0xC0) != 0x80) ++chars;
-        if (chars > max_input_chars)
-            throw Error(ErrorKind::too_long, quoted(a.name) + " is " + std::to_string(chars) +
-                                                 " characters long; rxnheat reads at most " +
-                                                 std::to_string(max_input_chars));
+        detail::check_input_text(t, quoted(a.name).c_str());  // the one input-length limit
         out.text = std::string(t);
     }
     const bool number = c.kind == Cell::Kind::number;

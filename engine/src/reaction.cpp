@@ -74,6 +74,9 @@ void check_balance(Prepared& p) {
 
 }  // namespace
 
+// The grammar refuses longer text unread; the engine's limit is the same number.
+static_assert(max_input_chars == grammar::max_input_characters, "one input-length limit");
+
 void check_input_text(std::string_view text, const char* what) {
     std::size_t chars = 0;
     for (unsigned char c : text)
