@@ -9,6 +9,7 @@
 #include <cstdio>
 #include <limits>
 #include <set>
+#include <stdexcept>
 
 namespace rxnheat::detail {
 
@@ -130,6 +131,7 @@ std::string charge_suffix(int charge) {
 }
 
 std::string Substance::identity() const {
+    if (aqueous) return "aq:" + aqueous->label;
     if (user) return "user:" + user->formula + charge_suffix(composition.charge) + "(" + phase + ")";
     std::string id(1, phase_assumed ? '?' : phase);
     for (const Record* r : phase_assumed ? candidates : records) id += "|" + r->name;
@@ -167,7 +169,40 @@ void need_polynomial(const Substance& s, const Record& r, double T, const char* 
 
 }  // namespace
 
+namespace {
+
+/// The full citation of a data/aqueous.csv source cell ("CODATA 1989; Cp NBS 1982").
+std::string aqueous_citation(const std::string& source) {
+    std::string out;
+    if (source.find("CODATA 1989") != std::string::npos)
+        out += "CODATA Key Values for Thermodynamics, Cox, Wagman & Medvedev 1989";
+    if (source.find("NBS 1982") != std::string::npos)
+        out += std::string(out.empty() ? "" : "; ") +
+               "NBS tables of chemical thermodynamic properties, Wagman et al. 1982";
+    return out;
+}
+
+void check_aqueous_range(const AqueousSpecies& a, const std::string& shown, double T) {
+    if (!std::isfinite(T) || T <= 0)
+        throw Error(ErrorKind::argument, "temperature must be a positive number of kelvin");
+    if (!a.row.has_cp) {
+        if (std::fabs(T - T_ref) < 0.005) return;
+        throw Error(ErrorKind::out_of_range,
+                    shown + ": data/aqueous.csv gives it at 298.15 K only (line " + std::to_string(a.row.line) +
+                        " has no Cp°); " + number_words(T) + " K is outside that");
+    }
+    if (T < aqueous_tmin_K - 1e-6 || T > aqueous_tmax_K + 1e-6)
+        throw Error(ErrorKind::out_of_range,
+                    shown + ": data/aqueous.csv covers " + number_words(aqueous_tmin_K) + "–" +
+                        number_words(aqueous_tmax_K) + " K (constant Cp° from 298.15 K); " + number_words(T) +
+                        " K is outside it");
+}
+
+}  // namespace
+
 const Record& Substance::record_at(double T) const {
+    if (aqueous || user)
+        throw Error(ErrorKind::internal, display + " has no NASA Glenn record");
     if (!std::isfinite(T) || T <= 0)
         throw Error(ErrorKind::argument, "temperature must be a positive number of kelvin");
     if (phase_assumed) {
@@ -183,16 +218,20 @@ const Record& Substance::record_at(double T) const {
 }
 
 char Substance::phase_at(double T) const {
-    if (user || !phase_assumed) return phase;
+    if (aqueous || user || !phase_assumed) return phase;
     return phase_char(record_at(T).phase);
 }
 
 std::string Substance::display_at(double T) const {
-    if (user || !phase_assumed) return display;
+    if (aqueous || user || !phase_assumed) return display;
     return label + "(" + std::string(1, phase_at(T)) + ")";
 }
 
 double Substance::H(double T) const {
+    if (aqueous) {
+        check_aqueous_range(*aqueous, display, T);
+        return aqueous->row.dHf_J_per_mol + (aqueous->row.has_cp ? aqueous->row.Cp_J_per_molK * (T - T_ref) : 0.0);
+    }
     if (user) return user->H(T, display);
     const Record& r = record_at(T);
     // At 298.15 K itself the tabulated ΔfH° is used (the polynomial reproduces it to within
@@ -202,6 +241,10 @@ double Substance::H(double T) const {
 }
 
 double Substance::S(double T) const {
+    if (aqueous) {
+        check_aqueous_range(*aqueous, display, T);
+        return aqueous->row.S_J_per_molK + (aqueous->row.has_cp ? aqueous->row.Cp_J_per_molK * std::log(T / T_ref) : 0.0);
+    }
     if (user) return user->S(T, display);
     const Record& r = record_at(T);
     need_polynomial(*this, r, T, "entropy");
@@ -209,6 +252,13 @@ double Substance::S(double T) const {
 }
 
 double Substance::Cp(double T) const {
+    if (aqueous) {
+        if (!aqueous->row.has_cp)
+            throw Error(ErrorKind::unknown_species, display + ": data/aqueous.csv gives no Cp° for it (line " +
+                                                        std::to_string(aqueous->row.line) + ")");
+        check_aqueous_range(*aqueous, display, T);
+        return aqueous->row.Cp_J_per_molK;
+    }
     if (user) return user->Cp(T, display);
     const Record& r = record_at(T);
     need_polynomial(*this, r, T, "heat capacity");
@@ -216,6 +266,9 @@ double Substance::Cp(double T) const {
 }
 
 std::string Substance::range_text() const {
+    if (aqueous)
+        return aqueous->row.has_cp ? number_words(aqueous_tmin_K) + "–" + number_words(aqueous_tmax_K) + " K"
+                                   : std::string("298.15 K only");
     if (user) return user->range_text();
     std::string out;
     for (const Record* r : phase_assumed ? candidates : records) {
@@ -230,6 +283,19 @@ std::string Substance::range_text() const {
 }
 
 std::string Substance::source(double T) const {
+    if (aqueous) {
+        const AqueousRow& a = aqueous->row;
+        std::string out = display + ": data/aqueous.csv line " + std::to_string(a.line) + ", " + a.source + " (" +
+                          aqueous_citation(a.source) + ")";
+        if (a.from_memory) out += "; the values were typed from memory (check them against the printed tables)";
+        if (!a.has_cp)
+            out += ". No Cp° given: used at 298.15 K only";
+        else if (std::fabs(T - T_ref) >= 1e-9)
+            out += ". At " + number_words(T) + " K: taken from 298.15 K with Cp° held constant at " +
+                   number_words(a.Cp_J_per_molK) + " J/(mol·K) (an assumption; used only within " +
+                   number_words(aqueous_tmin_K) + "–" + number_words(aqueous_tmax_K) + " K)";
+        return out;
+    }
     if (user) return display + ": user species table row " + std::to_string(user->row) +
                      (user->source.empty() ? "" : " (" + user->source + ")");
     // The records of the phase used at T (all of them: polymorphs and continued records).
@@ -270,11 +336,13 @@ std::string Substance::source(double T) const {
 // Database
 
 const Database& Database::get() {
-    static const Database db(embedded_thermo_inp(), embedded_elements_csv(), embedded_aliases_csv());
+    static const Database db(embedded_thermo_inp(), embedded_elements_csv(), embedded_aliases_csv(),
+                             embedded_aqueous_csv());
     return db;
 }
 
-Database::Database(std::string_view thermo, std::string_view elements, std::string_view aliases)
+Database::Database(std::string_view thermo, std::string_view elements, std::string_view aliases,
+                   std::string_view aqueous)
     : records_(parse_nasa_glenn(thermo)),
       elements_(parse_elements_csv(elements)),
       aliases_(parse_aliases_csv(aliases)) {
@@ -295,12 +363,40 @@ Database::Database(std::string_view thermo, std::string_view elements, std::stri
         for (const auto& n : names)
             if (const Record* r = record(n)) alias_of_.emplace(r, a.name);
     }
+    for (AqueousRow& row : parse_aqueous_csv(aqueous)) {
+        // The file's formulas are read by the reaction grammar, so a row means what the same
+        // text in a reaction means; a formula the grammar reads otherwise is an error here.
+        auto fail = [&row](const std::string& what) {
+            throw std::runtime_error("aqueous.csv line " + std::to_string(row.line) + ", column 'formula': " + what);
+        };
+        AqueousSpecies a;
+        try {
+            a.parsed = grammar::parse_species(row.formula);
+        } catch (const grammar::ParseError& e) {
+            fail(e.what());
+        }
+        if (a.parsed.is_name || !a.parsed.phase.empty()) fail("'" + row.formula + "' is not a formula without a phase");
+        for (const auto& atom : a.parsed.atoms)
+            if (!element(atom.symbol)) fail("'" + atom.symbol + "' is not an element symbol");
+        a.label = a.parsed.formula + charge_suffix(a.parsed.charge);
+        if (a.label != row.formula)
+            fail("write '" + row.formula + "' as '" + a.label + "', the way the engine writes it back");
+        a.composition = composition(a.parsed);
+        a.molar_mass = molar_mass(a.composition);
+        a.row = std::move(row);
+        aqueous_.push_back(std::move(a));
+    }
+    for (const AqueousSpecies& a : aqueous_) {
+        aqueous_by_label_.emplace(a.label, &a);
+        if (!a.row.name.empty()) aqueous_by_name_.emplace(lower(a.row.name), &a);
+        aqueous_by_composition_[a.composition.key()].push_back(&a);
+    }
     char buf[32];
     std::snprintf(buf, sizeof buf, "%016llx",
-                  static_cast<unsigned long long>(fnv1a(aliases, fnv1a(elements, fnv1a(thermo)))));
+                  static_cast<unsigned long long>(fnv1a(aqueous, fnv1a(aliases, fnv1a(elements, fnv1a(thermo))))));
     identity_ = std::string("data set ") + buf + " (NASA Glenn thermo.inp, " + std::to_string(records_.size()) +
                 " records; " + std::to_string(elements_.size()) + " atomic weights; " +
-                std::to_string(aliases_.size()) + " names)";
+                std::to_string(aliases_.size()) + " names; " + std::to_string(aqueous_.size()) + " aqueous species)";
 }
 
 const Element* Database::element(std::string_view symbol) const {
@@ -347,6 +443,8 @@ const Alias& known_alias(const Database& db, const grammar::Species& sp) {
 Composition Database::composition(const grammar::Species& sp, const SpeciesTable* table) const {
     if (table && table->impl())
         if (auto user = find_user_species(*table->impl(), sp)) return composition(user->parsed);
+    if (sp.is_name && sp.phase == "aq")
+        if (const AqueousSpecies* a = aqueous(sp)) return a->composition;
     if (sp.is_name) {
         const Alias& a = known_alias(*this, sp);
         for (const std::string* n : {&a.gas, &a.liquid})
@@ -384,6 +482,24 @@ std::string Database::describe(const Record* r) const {
     return r->name;
 }
 
+const AqueousSpecies* Database::aqueous(const grammar::Species& sp) const {
+    if (sp.is_name) {
+        auto it = aqueous_by_name_.find(lower(sp.name));
+        return it == aqueous_by_name_.end() ? nullptr : it->second;
+    }
+    const std::string label = sp.formula + charge_suffix(sp.charge);
+    if (auto it = aqueous_by_label_.find(label); it != aqueous_by_label_.end()) return it->second;
+    // The same atoms under another formula (HO- for OH-, C2H6O for C2H5OH): said, not taken,
+    // since an isomer the table does not hold has the same composition.
+    auto it = aqueous_by_composition_.find(composition(sp).key());
+    if (it == aqueous_by_composition_.end()) return nullptr;
+    std::string rows;
+    for (const AqueousSpecies* a : it->second) rows += std::string(rows.empty() ? "" : ", ") + a->label + "(aq)";
+    throw Error(ErrorKind::unknown_species,
+                sp.written + ": data/aqueous.csv has no row for " + label + "(aq) as written; it has this composition as " +
+                    rows + ". Write that formula if it is the species you mean");
+}
+
 Substance Database::resolve(const grammar::Species& written, const SpeciesTable* table) const {
     // A charged species written without a phase is an ion in water, as chemists mean it; a
     // gas-phase ion needs (g) written.
@@ -407,16 +523,31 @@ Substance Database::resolve(const grammar::Species& written, const SpeciesTable*
             return s;
         }
     }
-    if (charged_unphased)
+    if (sp.phase == "aq") {
+        if (sp.is_name && !aqueous(sp) && !alias(sp.name))
+            known_alias(*this, sp);  // the unknown-name error, which says how to write a formula
+        if (const AqueousSpecies* a = aqueous(sp)) {
+            Substance s;
+            s.aqueous = a;
+            s.phase = 'a';
+            s.label = sp.is_name ? sp.name : a->label;
+            s.display = s.label + "(aq)";
+            s.composition = a->composition;
+            s.molar_mass = a->molar_mass;
+            return s;
+        }
+        const std::string what = sp.is_name ? sp.name : shown;
+        const std::string count = std::to_string(aqueous_.size());
+        if (charged_unphased)
+            throw Error(ErrorKind::unknown_species,
+                        written.written + ": a charged species written without a phase is taken as aqueous (aq), "
+                                          "and the built-in aqueous table (data/aqueous.csv, " + count +
+                                          " species) has no " + what + "(aq); give it in a user species table "
+                                          "(formula, phase aq, dHf), or write (g) for the gas-phase ion");
         throw Error(ErrorKind::unknown_species,
-                    written.written + ": a charged species written without a phase is taken as aqueous (aq); "
-                                      "the built-in data of this version have no aqueous species, so give it in a "
-                                      "user species table (formula, phase aq, dHf), or write (g) for the gas-phase "
-                                      "ion");
-    if (sp.phase == "aq")
-        throw Error(ErrorKind::unknown_species,
-                    sp.written + ": the built-in data of this version have no aqueous (aq) species; "
-                                 "give them in a user species table (formula, phase aq, dHf)");
+                    sp.written + ": the built-in aqueous table (data/aqueous.csv, " + count + " species) has no " +
+                        what + "(aq); give it in a user species table (formula, phase aq, dHf)");
+    }
     std::vector<const Record*> found;
     if (sp.is_name) {
         const Alias& a = known_alias(*this, sp);

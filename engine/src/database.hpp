@@ -27,6 +27,20 @@ struct Composition {
 /// Thermodynamic model of one phase over one temperature range: a NASA record or a user row.
 struct UserSpecies;  // usertable.hpp
 
+/// Temperatures over which a row of data/aqueous.csv that gives Cp° is used, Cp° held at its
+/// 298.15 K value (engine/DATA.md, Aqueous); a row without Cp° holds at 298.15 K only.
+inline constexpr double aqueous_tmin_K = 273.15;
+inline constexpr double aqueous_tmax_K = 373.15;
+
+/// A row of data/aqueous.csv with its formula parsed.
+struct AqueousSpecies {
+    AqueousRow row;
+    std::string label;          ///< formula with its charge as the engine writes it: "SO4^2-"
+    grammar::Species parsed;
+    Composition composition;
+    double molar_mass = 0;      ///< g/mol
+};
+
 /// A species in a reaction, resolved to its data: one phase, one or more records (several
 /// only for solid polymorphs, picked by temperature), or a user-table row.
 struct Substance {
@@ -44,6 +58,7 @@ struct Substance {
     /// 1-bar boiling point (a pressurised liquid).
     std::vector<const Record*> vapour;
     std::shared_ptr<const UserSpecies> user;  ///< set instead of records for a user-table row
+    const AqueousSpecies* aqueous = nullptr;  ///< set instead of records for a data/aqueous.csv row
     std::string identity() const; ///< equal for the same data (used to net and match species)
 
     /// The record used at T: the stable one (lowest G°) when no phase was written, else the
@@ -67,7 +82,8 @@ class Database {
 public:
     /// The embedded data, parsed and indexed on first use (thread-safe).
     static const Database& get();
-    explicit Database(std::string_view thermo, std::string_view elements, std::string_view aliases);
+    explicit Database(std::string_view thermo, std::string_view elements, std::string_view aliases,
+                      std::string_view aqueous);
 
     const Element* element(std::string_view symbol) const;
     const Alias* alias(std::string_view name) const;
@@ -84,6 +100,12 @@ public:
     /// Records of the reference form of an element (NASA "Ref-Elm"), sorted by temperature.
     const std::vector<const Record*>& reference_forms(const std::string& symbol) const;
 
+    /// The data/aqueous.csv row for an (aq) species: by formula and charge as written, or by
+    /// its `name` column; nullptr if the table has none. A row of the same composition under
+    /// another formula is an error naming that row (never taken silently).
+    const AqueousSpecies* aqueous(const grammar::Species& sp) const;
+    const std::vector<AqueousSpecies>& aqueous_rows() const { return aqueous_; }
+
     const std::vector<Record>& records() const { return records_; }
     std::string identity() const { return identity_; }  ///< data-set identity text
 
@@ -97,6 +119,10 @@ private:
     std::unordered_map<std::string, std::vector<const Record*>> by_composition_;
     std::unordered_map<std::string, std::vector<const Record*>> reference_forms_;
     std::unordered_map<const Record*, std::string> alias_of_;  ///< a common name for a record
+    std::vector<AqueousSpecies> aqueous_;
+    std::unordered_map<std::string, const AqueousSpecies*> aqueous_by_label_;
+    std::unordered_map<std::string, const AqueousSpecies*> aqueous_by_name_;
+    std::unordered_map<std::string, std::vector<const AqueousSpecies*>> aqueous_by_composition_;
     std::string identity_;
 
     /// `comp`: the species' composition when written as a formula (a name takes its record's).

@@ -11,6 +11,8 @@ extern const char embedded_elements_csv_text[];
 extern const unsigned long embedded_elements_csv_text_size;
 extern const char embedded_aliases_csv_text[];
 extern const unsigned long embedded_aliases_csv_text_size;
+extern const char embedded_aqueous_csv_text[];
+extern const unsigned long embedded_aqueous_csv_text_size;
 
 std::string_view embedded_thermo_inp() { return {embedded_thermo_inp_text, embedded_thermo_inp_text_size}; }
 std::string_view embedded_nasa_provenance() {
@@ -18,5 +20,6 @@ std::string_view embedded_nasa_provenance() {
 }
 std::string_view embedded_elements_csv() { return {embedded_elements_csv_text, embedded_elements_csv_text_size}; }
 std::string_view embedded_aliases_csv() { return {embedded_aliases_csv_text, embedded_aliases_csv_text_size}; }
+std::string_view embedded_aqueous_csv() { return {embedded_aqueous_csv_text, embedded_aqueous_csv_text_size}; }
 
 }  // namespace rxnheat::detail

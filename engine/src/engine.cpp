@@ -119,6 +119,14 @@ bool looks_like_reaction(std::string_view s) {
     return false;
 }
 
+/// The name of the data a species was taken from, for reports: a NASA record's own name, or
+/// the table it came from.
+std::string record_name(const Substance& s, double T) {
+    if (s.aqueous) return "data/aqueous.csv " + s.aqueous->label;
+    if (s.user) return "user table";
+    return s.record_at(T).name;
+}
+
 /// ΔfH° of a species at T: its H°(T) minus that of its elements in their reference forms.
 double formation_enthalpy(const Substance& s, double T) {
     check_temperature(T);
@@ -137,7 +145,22 @@ double formation_enthalpy(const Substance& s, double T) {
                                                  " K, so ΔfH° there cannot be formed");
     };
     for (const auto& [sym, n] : s.composition.atoms) h -= detail::to_double(n) * element_h(sym);
-    if (s.composition.charge) {
+    if (s.composition.charge && s.aqueous) {
+        // Aqueous ions are formed on the convention that ΔfH°(H+, aq) = 0 at every temperature:
+        // the charge is carried by H+(aq) formed from 1/2 H2, not by the electron gas.
+        grammar::Species hplus;
+        hplus.formula = "H";
+        hplus.atoms = {{"H", 1, 1}};
+        hplus.charge = 1;
+        hplus.phase = "aq";
+        hplus.written = "H+(aq)";
+        const detail::AqueousSpecies* hp = db.aqueous(hplus);
+        if (!hp) throw Error(ErrorKind::internal, "data/aqueous.csv has no H+ row");
+        Substance h_ion;
+        h_ion.aqueous = hp;
+        h_ion.display = "H+(aq)";
+        h -= s.composition.charge * (h_ion.H(T) - element_h("H"));
+    } else if (s.composition.charge) {
         const detail::Record* e = db.record("e-");
         if (!e) throw Error(ErrorKind::internal, "no electron record");
         Substance el;
@@ -254,7 +277,7 @@ ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {
     std::set<std::string> seen;
     for (const auto& s : p->substances) {
         if (!seen.insert(s.identity()).second) continue;
-        r.sources.push_back({s.display_at(T), s.user ? std::string("user table") : s.record_at(T).name, s.source(T)});
+        r.sources.push_back({s.display_at(T), record_name(s, T), s.source(T)});
     }
     return r;
 }
@@ -291,8 +314,15 @@ SpeciesReport Engine::species_report(std::string_view species, const Conditions&
     r.temperature_K = T;
     r.molar_mass_g_per_mol = s.molar_mass;
     r.source = s.source(T);
-    if (s.user) {
-        r.record = "user table";
+    if (s.aqueous) {
+        r.record = record_name(s, T);
+        r.dHf_kJ_per_mol = s.aqueous->row.dHf_J_per_mol / 1000.0;
+        // A row without Cp° holds at 298.15 K only: its ΔfH°, and nothing more (as for a user row).
+        if (!s.aqueous->row.has_cp) return r;
+        r.tmin_K = detail::aqueous_tmin_K;
+        r.tmax_K = detail::aqueous_tmax_K;
+    } else if (s.user) {
+        r.record = record_name(s, T);
         r.dHf_kJ_per_mol = s.user->dHf / 1000.0;
         // A row with only dHf (no cp): what the table has, and nothing more.
         if (s.user->cp_form == detail::UserSpecies::CpForm::none) return r;

@@ -1,4 +1,4 @@
-// Readers for the small CSV tables data/elements.csv and data/aliases.csv.
+// Readers for the small CSV tables data/elements.csv, data/aliases.csv and data/aqueous.csv.
 //
 // The CSV itself is read by rxnheat::csv::Reader (rules in include/rxnheat/csv.hpp), with two
 // additions for tables we write ourselves: a line whose first non-blank character is '#' is a
@@ -191,6 +191,63 @@ std::vector<Alias> parse_aliases_csv(std::string_view text) {
         out.push_back(std::move(a));
     }
     if (out.empty()) fail(csv.header.line, "no alias rows after the header");
+    return out;
+}
+
+namespace {
+/// A finite number filling the whole cell, or an error naming the column.
+double number_field(const CsvRow& row, const char* col, const std::string& v, const CsvError& fail) {
+    double x = 0;
+    auto r = std::from_chars(v.data(), v.data() + v.size(), x);
+    if (v.empty() || r.ec != std::errc() || r.ptr != v.data() + v.size() || !std::isfinite(x))
+        fail(row.line, std::string("column '") + col + "': '" + v + "' is not a number");
+    return x;
+}
+}  // namespace
+
+std::vector<AqueousRow> parse_aqueous_csv(std::string_view text) {
+    const CsvError fail("aqueous.csv");
+    const Csv csv = read_csv(text, fail);
+    const auto idx = columns(csv.header,
+                             {"formula", "dHf_kJ_per_mol", "S_J_per_molK", "Cp_J_per_molK", "source", "from_memory"},
+                             {"name"}, fail);
+    const std::size_t ncols = csv.header.fields.size();
+    std::vector<AqueousRow> out;
+    std::unordered_map<std::string, std::size_t> seen_formula, seen_name;
+    for (const CsvRow& row : csv.rows) {
+        AqueousRow a;
+        a.line = row.line;
+        a.formula = field(row, idx[0], ncols, fail);
+        if (a.formula.empty()) fail(row.line, "column 'formula' is empty");
+        if (a.formula.find_first_of(" \t(") != std::string::npos)
+            fail(row.line, "column 'formula': '" + a.formula + "' must be one formula without a phase");
+        a.dHf_J_per_mol = 1000.0 * number_field(row, "dHf_kJ_per_mol", field(row, idx[1], ncols, fail), fail);
+        a.S_J_per_molK = number_field(row, "S_J_per_molK", field(row, idx[2], ncols, fail), fail);
+        if (const std::string& cp = field(row, idx[3], ncols, fail); !cp.empty()) {
+            a.has_cp = true;
+            a.Cp_J_per_molK = number_field(row, "Cp_J_per_molK", cp, fail);
+        }
+        a.source = field(row, idx[4], ncols, fail);
+        // Every row names one of the two compilations the file is drawn from, so that a citation
+        // never reads as something it is not.
+        if (a.source.rfind("NBS 1982", 0) != 0 && a.source.rfind("CODATA 1989", 0) != 0)
+            fail(row.line, "column 'source': '" + a.source + "' must start with 'NBS 1982' or 'CODATA 1989'");
+        const std::string& mem = field(row, idx[5], ncols, fail);
+        if (mem != "yes" && mem != "no") fail(row.line, "column 'from_memory': '" + mem + "' must be yes or no");
+        a.from_memory = mem == "yes";
+        a.name = field(row, idx[6], ncols, fail);
+        if (!a.name.empty() && !valid_alias_name(a.name))
+            fail(row.line, "column 'name': '" + a.name + "' must start with a small letter and hold only "
+                           "small letters, digits, '-', ',' and single spaces");
+        auto [it, fresh] = seen_formula.emplace(a.formula, row.line);
+        if (!fresh) fail(row.line, "formula '" + a.formula + "' repeats line " + std::to_string(it->second));
+        if (!a.name.empty()) {
+            auto [jt, fresh_name] = seen_name.emplace(a.name, row.line);
+            if (!fresh_name) fail(row.line, "name '" + a.name + "' repeats line " + std::to_string(jt->second));
+        }
+        out.push_back(std::move(a));
+    }
+    if (out.empty()) fail(csv.header.line, "no rows after the header");
     return out;
 }
 

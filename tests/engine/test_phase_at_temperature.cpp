@@ -52,13 +52,19 @@ TEST_CASE("a written liquid above its boiling point is kept, and said", "[phase]
 }
 
 TEST_CASE("a charged species written without a phase is aqueous", "[phase][ions]") {
-    // H+ + OH- -> H2O is the neutralisation, never the gas-phase ion reaction (−1676.8 kJ/mol).
-    const std::string why = eng().check("H+ + OH- -> H2O");
-    CHECK(contains(why, "aqueous"));
+    // H+ + OH- -> H2O is the neutralisation, never the gas-phase ion reaction (−1676.8 kJ/mol):
+    // −55.815 kJ/mol from the built-in aqueous table (CODATA Key Values, Cox et al. 1989:
+    // ΔfH° OH−(aq) −230.015, H2O(l) −285.830; from memory).
+    CHECK(eng().dh("H+ + OH- -> H2O") == Approx(-55.815).margin(0.001));
+    CHECK(eng().report("H+ + OH- -> H2O").canonical == "H+(aq) + OH-(aq) -> H2O(l)");
+    // An ion the aqueous table does not hold is still taken as aqueous, and the error says so and
+    // how to write the gas-phase ion.
+    const std::string why = eng().check("Au+ + Cl- -> AuCl(s)");
+    CHECK(contains(why, "taken as aqueous"));
+    CHECK(contains(why, "data/aqueous.csv"));
     CHECK(contains(why, "(g)"));
-    CHECK_THROWS_AS(eng().dh("H+ + OH- -> H2O"), rxnheat::Error);
-    // With aqueous rows in a user table the same text is the neutralisation: −55.815 kJ/mol
-    // (CODATA Key Values, Cox et al. 1989: ΔfH° OH−(aq) −230.015, H2O(l) −285.830; from memory).
+    CHECK_THROWS_AS(eng().dh("Au+ + Cl- -> AuCl(s)"), rxnheat::Error);
+    // With aqueous rows in a user table the rows are used (they give the same value here).
     const auto ions = rxnheat::SpeciesTable::from_rows({
         {"formula", "phase", "dHf"},
         {"H+", "aq", "0"},

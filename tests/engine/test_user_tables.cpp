@@ -36,8 +36,11 @@ TEST_CASE("aqueous neutralisation from a user table", "[usertable]") {
     CHECK(e.dh("H+(aq) + hydroxide(aq) -> H2O(l)", {298.15, &t}, "kJ/mol") == Approx(-55.815).margin(0.001));
     CHECK(e.balance("H+ + hydroxide(aq) -> H2O", {rxnheat::T_ref, &t}) == "H+ + hydroxide(aq) -> H2O");
     CHECK(e.source("H+(aq) + OH-(aq) -> H2O(l)", {rxnheat::T_ref, &t}).find("user species table row 3") != std::string::npos);
-    // without the table, the built-in data have no aqueous species and say so
-    CHECK(e.check("H+(aq) + OH-(aq) -> H2O(l)").find("aqueous") != std::string::npos);
+    // without the table, the built-in aqueous table (data/aqueous.csv) gives the same CODATA value
+    CHECK(e.dh("H+(aq) + OH-(aq) -> H2O(l)", {298.15}, "kJ/mol") == Approx(-55.815).margin(0.001));
+    CHECK(e.source("H+(aq) + OH-(aq) -> H2O(l)").find("OH-(aq): data/aqueous.csv") != std::string::npos);
+    // a name the table and the built-in data do not hold with (aq) is an error naming the table
+    CHECK(e.check("H+(aq) + hydroxide(aq) -> H2O(l)").find("is not a name rxnheat knows") != std::string::npos);
     // the rows cover 298.15 K only (no cp given): another temperature is a range error
     CHECK_THROWS_WITH(e.dh("H+(aq) + OH-(aq) -> H2O(l)", {310, &t}, "kJ/mol"),
                       Catch::Contains("covers 298.15–298.15 K"));
