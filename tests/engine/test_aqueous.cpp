@@ -81,6 +81,15 @@ TEST_CASE("aqueous table: H2SO4(l) dissolving fully dissociated", "[aqueous][con
     CHECK(eng().check("H2SO4(l) -> 2 H+ + SO4^2-") == "ok");
 }
 
+TEST_CASE("aqueous table: more heats of solution", "[aqueous][consistency]") {
+    // Common practice (textbook heats of solution at infinite dilution, 25 °C), against the
+    // NASA Glenn solids/gases and the table's ions (from memory): a cross-check of several rows.
+    CHECK(eng().dh("NaCl(s) -> Na+ + Cl-") == Approx(3.9).margin(0.3));   // about +3.9 kJ/mol
+    CHECK(eng().dh("KCl(s) -> K+ + Cl-") == Approx(17.2).margin(0.3));    // about +17.2 kJ/mol
+    CHECK(eng().dh("HCl(g) -> H+ + Cl-") == Approx(-74.8).margin(0.3));   // about −74.8 kJ/mol
+    for (const char* r : {"NaCl(s) -> Na+ + Cl-", "KCl(s) -> K+ + Cl-", "HCl(g) -> H+ + Cl-"}) CHECK(eng().check(r) == "ok");
+}
+
 TEST_CASE("aqueous table: ionic reactions must balance charge", "[aqueous][consistency]") {
     // Common practice: an ionic equation balances charge as well as atoms.
     for (const char* r : {"H+ + OH- -> H2O", "NaOH(s) -> Na+ + OH-", "NH4NO3(s) -> NH4+ + NO3-",
