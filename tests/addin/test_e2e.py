@@ -51,6 +51,7 @@ DOCUMENTED_FUNCTIONS = {
     "SPECIESCP": ["species", "temperature", "table"],
     "SPECIESH": ["species", "temperature", "reference_temperature", "table"],
     "MOLARMASS": ["formula"],
+    "RXNEQX": ["reaction", "temperature", "pressure", "feed", "key", "table"],
     "RXNSOURCE": ["reaction_or_species", "table", "temperature"],
     "RXNVERSION": [],
 }
