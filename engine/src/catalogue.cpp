@@ -262,7 +262,10 @@ std::vector<FunctionSpec> make_catalogue() {
            "The reactant whose conversion is given, e.g. \"N2\". Omitted: the first reactant.", false, "--key",
            "SPECIES"},
           table_arg()},
-         Returns::number, layer_all, none, false, eqx_call},
+         Returns::number, layer_calc | layer_cli,
+         "C: the feed is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
+         "Engine::eq_conversion.",
+         false, eqx_call},
         {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
          "Text naming where every number used for the reaction or species came from: the data set, its record "
          "and its publication, and the phase used at the temperature.",

@@ -273,6 +273,12 @@ double Engine::eq_conversion(std::string_view reaction, const std::vector<FeedIt
         sp[match].n0_mol = item.amount_mol;
     }
 
+    // Only the ratios matter: amounts relative to the largest, so that no sum of them overflows.
+    double largest = 0;
+    for (const auto& s : sp) largest = std::max(largest, s.n0_mol);
+    if (largest > 0)
+        for (auto& s : sp) s.n0_mol /= largest;
+
     // The key: a reactant (net coefficient < 0), the first one by default.
     std::size_t k = reacting;
     if (trim(key).empty()) {

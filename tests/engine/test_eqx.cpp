@@ -79,6 +79,17 @@ TEST_CASE("RXNEQX: N2O4 <=> 2 NO2 against the closed form", "[eqx]") {
     // Only ratios matter: 5 mol of the same feed.
     CHECK(eng().eq_conversion("N2O4(g) <=> 2 NO2(g)", {{"N2O4", 5}}, "N2O4", at(320, 2)) ==
           Approx(eng().eq_conversion("N2O4(g) <=> 2 NO2(g)", {{"N2O4", 1}}, "", at(320, 2))).epsilon(1e-12));
+    // Much NO2 fed: it reacts back, and the conversion is negative. N2O4 1−ξ, NO2 10+2ξ, total 11+ξ:
+    // K(1−ξ)(11+ξ) = p(10+2ξ)², i.e. (4p+K)ξ² + (40p+10K)ξ + 100p − 11K = 0, the root above −5 (algebra).
+    {
+        const double K = std::exp(ln_K(terms, 298.15)), p = 1;
+        const double qa = 4 * p + K, qb = 40 * p + 10 * K, qc = 100 * p - 11 * K;
+        const double root = (-qb + std::sqrt(qb * qb - 4 * qa * qc)) / (2 * qa);
+        const double x =
+            eng().eq_conversion("N2O4(g) <=> 2 NO2(g)", {{"N2O4", 1}, {"NO2", 10}}, "", at(298.15, p));
+        CHECK(x < 0);
+        CHECK(x == Approx(root).epsilon(1e-9));
+    }
     // A product in the feed pushes back: with NO2 fed, less N2O4 dissociates (common practice).
     CHECK(eng().eq_conversion("N2O4(g) <=> 2 NO2(g)", {{"N2O4", 1}, {"NO2", 0.5}}, "", at(320, 1)) <
           eng().eq_conversion("N2O4(g) <=> 2 NO2(g)", {{"N2O4", 1}}, "", at(320, 1)));
@@ -103,6 +114,11 @@ TEST_CASE("RXNEQX: ammonia synthesis against bisection, and its textbook behavio
     const double x_argon = eng().eq_conversion(NH3_SYNTHESIS, with_argon, "", at(700, 200));
     CHECK(x_argon < x_700_200);
     CHECK(x_argon == Approx(ammonia_bisection(1, 3, 1, 700, 200)).epsilon(1e-9));
+    // Only the ratios matter, even for amounts whose sum would overflow a double.
+    CHECK(eng().eq_conversion(NH3_SYNTHESIS, {{"N2", 5e307}, {"H2", 1.5e308}}, "", at(700, 200)) ==
+          Approx(x_700_200).epsilon(1e-12));
+    CHECK(eng().eq_conversion(NH3_SYNTHESIS, {{"N2", 1e-300}, {"H2", 3e-300}}, "", at(700, 200)) ==
+          Approx(x_700_200).epsilon(1e-12));
     // The key: N2 and H2 in the 1:3 ratio of the reaction convert alike; in excess H2, N2 more than H2.
     CHECK(eng().eq_conversion(NH3_SYNTHESIS, feed, "H2", at(700, 200)) == Approx(x_700_200).epsilon(1e-12));
     const std::vector<FeedItem> rich = {{"N2", 1}, {"H2", 6}};

@@ -104,7 +104,7 @@ private:
 /// as "at 500 K".
 struct Conditions {
     double temperature_K = T_ref;
-    double pressure_bar = P_standard_bar;  ///< for the equilibrium and steam functions to come
+    double pressure_bar = P_standard_bar;  ///< absolute: eq_conversion() (RXNEQX); the steam functions to come
     const SpeciesTable* table = nullptr;   ///< user species table over the built-in data, or none
     Conditions() = default;
     Conditions(double T_K, const SpeciesTable* user_table = nullptr)  // NOLINT: implicit on purpose
