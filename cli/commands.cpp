@@ -9,6 +9,7 @@
 
 #include "rxnheat/catalogue.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -176,8 +177,16 @@ std::string input_json(const Call& c) {
         }
         j.str(name, c.p.positionals[k]);
     }
-    for (const auto& o : c.cmd.options)
-        if (c.p.has(o.long_name)) j.str(c.f.args[o.arg_index].name, c.p.value_or(o.long_name, ""));
+    for (const auto& o : c.cmd.options) {
+        if (!c.p.has(o.long_name)) continue;
+        if (o.repeatable) {
+            std::string list = "[";
+            for (const auto& w : c.p.repeated.at(o.long_name)) list += (list.size() > 1 ? "," : "") + json_string(w);
+            j.raw(std::string(c.f.args[o.arg_index].name) + "_options", list + "]");
+            continue;
+        }
+        j.str(c.f.args[o.arg_index].name, c.p.value_or(o.long_name, ""));
+    }
     return j.text();
 }
 
@@ -324,6 +333,28 @@ std::vector<Arg> why_arguments(const Parsed& p, std::string& failure) {
     return args;
 }
 
+/// A feed from SPECIES=MOL words: the positionals from `first` on, then every --feed, as the
+/// two-column range (species, amount) the catalogue reads.
+Arg feed_argument(const CommandDef& cmd, const Parsed& p, std::size_t first) {
+    std::vector<std::string> words(p.positionals.begin() + static_cast<std::ptrdiff_t>(std::min(first, p.positionals.size())),
+                                   p.positionals.end());
+    for (const auto& o : cmd.options)
+        if (o.repeatable && p.repeated.count(o.long_name))
+            for (const auto& w : p.repeated.at(o.long_name)) words.push_back(w);
+    std::vector<Cell> cells;
+    for (const auto& w : words) {
+        const auto eq = w.rfind('=');
+        if (eq == std::string::npos || trim(std::string_view(w).substr(0, eq)).empty() ||
+            trim(std::string_view(w).substr(eq + 1)).empty())
+            throw UsageError("a feed item is SPECIES=MOL, e.g. N2=1, not '" + w + "'");
+        cells.push_back(Cell::of(w.substr(0, eq)));
+        cells.push_back(Cell::of(w.substr(eq + 1)));
+    }
+    if (cells.empty()) return Arg::omitted();  // "--feed is required"
+    const std::size_t rows = cells.size() / 2;
+    return Arg::range(rows, 2, std::move(cells));
+}
+
 int run_function(const CommandDef& cmd, const Parsed& p, Output& out, Engine& engine) {
     const FunctionSpec& f = *cmd.function;
     Call c{cmd, f, p, engine, out, {}, {}, {}};
@@ -332,10 +363,19 @@ int run_function(const CommandDef& cmd, const Parsed& p, Output& out, Engine& en
         c.args = why_arguments(p, failure);
     } else {
         c.args.assign(f.args.size(), Arg::omitted());
-        for (std::size_t k = 0; k < cmd.positionals.size() && k < p.positionals.size(); ++k)
+        for (std::size_t k = 0; k < cmd.positionals.size() && k < p.positionals.size(); ++k) {
+            if (f.args[cmd.positionals[k].arg_index].kind == ArgKind::feed) {
+                c.args[cmd.positionals[k].arg_index] = feed_argument(cmd, p, k);
+                break;
+            }
             c.args[cmd.positionals[k].arg_index] = Arg::of(p.positionals[k]);
+        }
         for (const auto& o : cmd.options) {
             if (!p.has(o.long_name)) continue;
+            if (f.args[o.arg_index].kind == ArgKind::feed) {
+                if (c.args[o.arg_index].kind == Arg::Kind::omitted) c.args[o.arg_index] = feed_argument(cmd, p, p.positionals.size());
+                continue;
+            }
             const std::string value = p.value_or(o.long_name, "");
             if (f.args[o.arg_index].kind == ArgKind::table) {
                 c.table = load_table(value);

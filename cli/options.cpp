@@ -53,6 +53,19 @@ CommandDef command_from(const FunctionSpec& f) {
     c.summary = f.summary;
     for (std::size_t i = 0; i < f.args.size(); ++i) {
         const ArgSpec& a = f.args[i];
+        if (a.kind == ArgKind::feed) {
+            // A feed is SPECIES=MOL words: the remaining positionals, or repeated options (or both).
+            const std::string help =
+                "Each species of the feed and its amount in mol (or any one amount unit for every species: only the "
+                "ratios matter), as SPECIES=MOL, e.g. N2=1 H2=3; species not in the reaction are inerts.";
+            c.positionals.push_back({a.cli_value, false, true, help, i});
+            OptionDef o = option_from(a, i);
+            o.help = "One species of the feed and its amount, SPECIES=MOL; give it once per species (instead of or "
+                     "besides the words after the other arguments).";
+            o.repeatable = true;
+            c.options.push_back(o);
+            continue;
+        }
         // Required arguments are positionals, in cell order; optional ones are options.
         if (a.cli_option && !a.required) {
             c.options.push_back(option_from(a, i));
@@ -178,7 +191,6 @@ const std::vector<PlannedCommand>& planned_commands() {
             {"logk", "equilibrium constant log10 K"},
             {"tad", "adiabatic outlet temperature"},
             {"hv", "heating value of a fuel"},
-            {"eqx", "equilibrium conversion of one reaction"},
             {"duty", "heat duty of a reactor from its feed and conversion"},
             {"streamh", "enthalpy flow of a stream"},
             {"steam", "water and steam properties (IAPWS-IF97)"},
@@ -260,9 +272,11 @@ Parsed parse(const CommandDef& cmd, const std::vector<std::string>& given) {
     for (const auto& o : cmd.options) {
         const auto& v = values[o.long_name];
         if (v.empty()) continue;
-        if (v.size() > 1) throw UsageError("the option " + o.display() + " is given twice");
-        if (trim(v.front()).empty()) throw UsageError("the option " + o.display() + " needs a value, not an empty one");
+        if (v.size() > 1 && !o.repeatable) throw UsageError("the option " + o.display() + " is given twice");
+        for (const auto& each : v)
+            if (trim(each).empty()) throw UsageError("the option " + o.display() + " needs a value, not an empty one");
         out.values[o.long_name] = v.front();
+        if (o.repeatable) out.repeated[o.long_name] = v;
     }
     out.positionals = std::move(positionals);
     if (out.help) return out;

@@ -37,6 +37,7 @@ struct OptionDef {
     std::string help;
     std::string default_text;  ///< "" when there is none
     std::size_t arg_index = 0;  ///< index into FunctionSpec::args (catalogue commands)
+    bool repeatable = false;    ///< given once per item (--feed N2=1 --feed H2=3)
 
     /// "-T/--temperature" or "--per", as messages name it.
     std::string display() const;
@@ -69,7 +70,8 @@ const PlannedCommand* find_planned(std::string_view name);
 /// The words after the command name, read.
 struct Parsed {
     std::vector<std::string> positionals;       ///< in order (after `--` too)
-    std::map<std::string, std::string> values;  ///< long option name -> value as given
+    std::map<std::string, std::string> values;  ///< long option name -> value as given (the first, if repeatable)
+    std::map<std::string, std::vector<std::string>> repeated;  ///< repeatable options: every value, in order
     bool help = false;
 
     bool has(const std::string& long_name) const { return values.count(long_name) != 0; }

@@ -3,6 +3,7 @@
 #include "rxnheat/catalogue.hpp"
 
 #include "reaction.hpp"
+#include "units.hpp"
 
 #include <cerrno>
 #include <cmath>
@@ -27,7 +28,8 @@ struct Bound {
         std::string text;      ///< trimmed text
     };
     std::vector<Value> values;  ///< one per ArgSpec
-    Conditions at;              ///< temperature (the argument named "temperature") and table
+    Conditions at;              ///< temperature and pressure (the arguments of those names) and table
+    std::vector<FeedItem> feed; ///< the feed argument, its blank rows left out
     const std::vector<Arg>* all = nullptr;  ///< the call's arguments as given (for `rest`)
     std::size_t rest_from = 0;
     const HostRules* rules = nullptr;
@@ -123,6 +125,10 @@ Outcome h_call(Engine& e, const Bound& b) {
     return Outcome::of(e.species_h(b.text(0), b.at, b.number(2, T_ref)), "kJ/mol");
 }
 Outcome molar_mass_call(Engine& e, const Bound& b) { return Outcome::of(e.molar_mass(b.text(0)), "g/mol"); }
+Outcome eqx_call(Engine& e, const Bound& b) {
+    const std::string key(b.text(4));
+    return Outcome::of(e.eq_conversion(b.text(0), b.feed, key, b.at));
+}
 Outcome source_call(Engine& e, const Bound& b) { return Outcome::of_text(e.source(b.text(0), b.at)); }
 Outcome version_call(Engine&, const Bound& b) {
     return Outcome::of_text(std::string("rxnheat ") + b.rules->host_name + " " + RXNHEAT_VERSION + "; engine " +
@@ -238,6 +244,28 @@ std::vector<FunctionSpec> make_catalogue() {
            "it. A range gives an array of the same shape.",
            true, nullptr, "FORMULA"}},
          Returns::number, layer_all, none, false, molar_mass_call},
+        {"RXNEQX", "rxnEqX", "eqx", "equilibrium conversion of a key reactant for one reaction from a feed",
+         "Equilibrium conversion (0 to 1) of the key reactant for this one reaction from the feed, at the "
+         "temperature and pressure: one reaction, ideal gas, no kinetics. K from ΔrG° = ΔrH° − T·ΔrS° of the "
+         "built-in data (NASA Glenn) or your table at 1 bar; gases as an ideal mixture, condensed species pure. "
+         "Feed species not in the reaction are inerts. Negative when products in the feed react back.",
+         {reaction_arg(), temperature_required_arg(),
+          {"pressure", ArgKind::pressure, true, "",
+           "Pressure: a number in bar (absolute), or text with a unit such as \"20 bar\", \"2 MPa\", \"300 kPa\", "
+           "\"1 atm\", \"150 psia\", or gauge \"19 barg\", \"150 psig\" (over 101.325 kPa).",
+           false, "-P,--pressure", "PRESSURE"},
+          {"feed", ArgKind::feed, true, "",
+           "A two-column range: species, amount in mol (or any one amount or flow unit for every row: only the "
+           "ratios matter). Blank rows are skipped; species not in the reaction are inerts.",
+           false, "--feed", "SPECIES=MOL"},
+          {"key", ArgKind::species, false, "the first reactant",
+           "The reactant whose conversion is given, e.g. \"N2\". Omitted: the first reactant.", false, "--key",
+           "SPECIES"},
+          table_arg()},
+         Returns::number, layer_calc | layer_cli,
+         "C: the feed is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
+         "Engine::eq_conversion.",
+         false, eqx_call},
         {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
          "Text naming where every number used for the reaction or species came from: the data set, its record "
          "and its publication, and the phase used at the temperature.",
@@ -294,7 +322,7 @@ bool blank_cell(const Cell& c, const ArgSpec& a, const HostRules& rules) {
     case Cell::Kind::number:
         // Calc gives a blank cell as 0; a required number or factor keeps its 0.
         return rules.zero_is_blank && c.number == 0 &&
-               !(a.required && (a.kind == ArgKind::number || a.kind == ArgKind::factor));
+               !(a.required && (a.kind == ArgKind::number || a.kind == ArgKind::factor || a.kind == ArgKind::pressure));
     }
     return true;
 }
@@ -330,6 +358,10 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
     case ArgKind::temperature:
         out.number = number ? c.number : parse_temperature(out.text);
         return;
+    case ArgKind::pressure:
+        out.number = number ? c.number : detail::parse_pressure(out.text);
+        if (!(out.number > 0)) bad(a, "must be above zero absolute (a number in bar, or text such as \"20 bar\")");
+        return;
     case ArgKind::number:
         if (!number && !rules.text_numbers) bad(a, "must be a number, not text");
         out.number = number ? c.number : strict_number(a, out.text);
@@ -339,6 +371,7 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
         if (number) out.number = c.number;
         return;
     case ArgKind::table:
+    case ArgKind::feed:
     case ArgKind::rest:
         return;  // read elsewhere
     }
@@ -387,6 +420,38 @@ std::string shape_text(std::size_t rows, std::size_t cols) {
     return std::to_string(rows) + "×" + std::to_string(cols);
 }
 
+/// A feed: a two-column range (species, amount), blank rows skipped.
+void read_feed(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound& b) {
+    if (arg.kind == Arg::Kind::omitted || (arg.kind == Arg::Kind::cell && blank_cell(arg.cell, a, rules)))
+        bad(a, "is required (a two-column range: species, amount)");
+    if (arg.kind != Arg::Kind::range)
+        bad(a, "must be a two-column range (species, amount), not a single value");
+    if (arg.cols != 2)
+        bad(a, "must be a range of two columns (species, amount), not " + shape_text(arg.rows, arg.cols) + " cells");
+    const ArgSpec amount_spec{a.name, ArgKind::number, true, "", "", false, nullptr, nullptr};
+    for (std::size_t r = 0; r < arg.rows; ++r) {
+        const Cell& species = arg.cells[r * 2];
+        const Cell& amount = arg.cells[r * 2 + 1];
+        const bool no_species = species.kind == Cell::Kind::empty || (species.kind == Cell::Kind::text && trim(species.text).empty());
+        const bool no_amount = amount.kind == Cell::Kind::empty || (amount.kind == Cell::Kind::text && trim(amount.text).empty());
+        if (no_species && no_amount) continue;  // a blank row
+        const std::string row = " row " + std::to_string(r + 1);
+        if (no_species) bad(a, row + ": an amount without a species");
+        if (species.kind != Cell::Kind::text) bad(a, row + ": the species must be text, not a number");
+        if (no_amount) bad(a, row + ": '" + std::string(trim(species.text)) + "' has no amount");
+        Bound::Value v;
+        try {
+            read_cell(amount, amount_spec, rules, v);
+        } catch (const Error& e) {
+            // "'feed' must be a number, not text" -> "'feed' row 2: the amount must be ..."
+            const std::string what = e.what();
+            bad(a, row + ": the amount of '" + std::string(trim(species.text)) + "'" + what.substr(quoted(a.name).size()));
+        }
+        b.feed.push_back({std::string(trim(species.text)), v.number});
+    }
+    if (b.feed.empty()) bad(a, "is required, and every row of it is blank");
+}
+
 /// Reads a whole (non-spreading, or spreading but given as one value) argument.
 void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound& b,
                 std::shared_ptr<const SpeciesTable>& table_holder, std::size_t i) {
@@ -401,6 +466,11 @@ void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound&
         }
         out.given = table_holder != nullptr;
         b.at.table = table_holder.get();
+        return;
+    }
+    if (a.kind == ArgKind::feed) {
+        read_feed(arg, a, rules, b);
+        out.given = !b.feed.empty();
         return;
     }
     const Cell* cell = nullptr;
@@ -427,9 +497,12 @@ void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound&
 }
 
 void set_temperature(const FunctionSpec& f, Bound& b) {
-    for (std::size_t i = 0; i < f.args.size(); ++i)
+    for (std::size_t i = 0; i < f.args.size(); ++i) {
         if (f.args[i].kind == ArgKind::temperature && std::string_view(f.args[i].name) == "temperature")
             b.at.temperature_K = b.number(i, T_ref);
+        if (f.args[i].kind == ArgKind::pressure && std::string_view(f.args[i].name) == "pressure")
+            b.at.pressure_bar = b.number(i, P_standard_bar);
+    }
 }
 
 Outcome run(const FunctionSpec& f, Engine& engine, const Bound& b) {
@@ -580,11 +653,13 @@ const char* to_string(ArgKind kind) noexcept {
     case ArgKind::species: return "species";
     case ArgKind::formula: return "formula";
     case ArgKind::temperature: return "temperature";
+    case ArgKind::pressure: return "pressure";
     case ArgKind::unit: return "unit";
     case ArgKind::number: return "number";
     case ArgKind::factor: return "number or fraction";
     case ArgKind::text: return "text";
     case ArgKind::table: return "range (species table)";
+    case ArgKind::feed: return "range (species, amount)";
     case ArgKind::rest: return "arguments";
     }
     return "value";

@@ -7,7 +7,11 @@
 #include "units.hpp"
 #include "usertable.hpp"
 
+#include <boost/math/tools/roots.hpp>
+
+#include <cfloat>
 #include <cmath>
+#include <cstdint>
 #include <cstdio>
 #include <set>
 
@@ -202,6 +206,172 @@ double Engine::load(std::string_view reaction, double quantity, std::string_view
     const auto qu = detail::quantity_unit(quantity_unit);
     const double mol = detail::quantity_to_mol(quantity, quantity_unit, p->substances[idx].molar_mass);
     return detail::load_result(dH * mol / nu, result_unit, qu.is_rate(), quantity_unit);
+}
+
+namespace {
+
+/// One species of an equilibrium: its net coefficient, its feed and whether it is a gas at T.
+struct EqSpecies {
+    std::string name;   ///< as used at T, for messages
+    double nu = 0;      ///< net signed coefficient (0: an inert)
+    double n0_mol = 0;  ///< in the feed
+    bool gas = true;
+};
+
+/// ln Q(ξ) − ln K of an ideal-gas mixture at p/p° (condensed species pure: activity 1).
+double eq_residual(const std::vector<EqSpecies>& sp, double xi, double ln_p, double dn_gas, double ln_K) {
+    double f = 0, n_gas = 0;
+    for (const auto& s : sp) {
+        if (!s.gas) continue;
+        const double n = s.n0_mol + s.nu * xi;
+        n_gas += n;
+        if (s.nu != 0) f += s.nu * std::log(n);
+    }
+    // Δn(gas) = 0: the pressure and the total drop out (and no gas at all is then no NaN).
+    return (dn_gas != 0 ? f + dn_gas * (ln_p - std::log(n_gas)) : f) - ln_K;
+}
+
+}  // namespace
+
+double Engine::eq_conversion(std::string_view reaction, const std::vector<FeedItem>& feed, std::string_view key,
+                             const Conditions& at) {
+    const double T = at.temperature_K;
+    check_temperature(T);
+    if (!std::isfinite(at.pressure_bar) || at.pressure_bar <= 0)
+        throw Error(ErrorKind::argument, "the pressure must be above zero absolute (got " +
+                                             number_words(at.pressure_bar) + " bar)");
+    const auto p = impl_->prepare(reaction, at.table);
+    p->require_thermo();
+
+    // The reaction's species, netted by identity (a species on both sides counts once).
+    std::vector<EqSpecies> sp;
+    std::vector<std::size_t> group(p->terms.size());
+    std::vector<std::string> identities;
+    for (std::size_t i = 0; i < p->terms.size(); ++i) {
+        const std::string id = p->substances[i].identity();
+        std::size_t g = 0;
+        while (g < identities.size() && identities[g] != id) ++g;
+        if (g == identities.size()) {
+            identities.push_back(id);
+            sp.push_back({p->substances[i].display_at(T), 0, 0, p->substances[i].phase_at(T) == 'g'});
+        }
+        sp[g].nu += detail::to_double(p->nu[i]);
+        group[i] = g;
+    }
+    const std::size_t reacting = sp.size();
+
+    // The feed: each row is a species of the reaction (by composition, and by phase when one is
+    // written) or an inert (resolved, so that an unknown species is an error, and counted in the
+    // gas moles only when it is a gas at T).
+    if (feed.empty()) throw Error(ErrorKind::argument, "the feed is empty; give each species of the feed and its amount");
+    std::vector<bool> fed(reacting, false);
+    std::vector<std::string> inert_ids;
+    for (const FeedItem& item : feed) {
+        if (!std::isfinite(item.amount_mol) || item.amount_mol < 0)
+            throw Error(ErrorKind::argument, "the feed amount of '" + item.species + "' must be a number, zero or more (got " +
+                                                 number_words(item.amount_mol) + ")");
+        const auto fs = parse_one_species(item.species, "the feed species");
+        const std::string want = impl_->db.composition(fs, at.table).key();
+        const char want_phase = fs.phase.empty() ? 0 : fs.phase == "aq" ? 'a' : fs.phase[0];
+        std::size_t match = reacting;
+        for (std::size_t i = 0; i < p->terms.size(); ++i) {
+            if (p->composition_keys[i] != want) continue;
+            if (want_phase && p->substances[i].phase_at(T) != want_phase) continue;
+            if (match != reacting && match != group[i])
+                throw Error(ErrorKind::argument, "the feed species '" + item.species + "' fits more than one species of the reaction (" +
+                                                     sp[match].name + ", " + sp[group[i]].name + "); write its phase");
+            match = group[i];
+        }
+        if (match == reacting) {
+            const Substance inert = impl_->db.resolve(fs, at.table);
+            const std::string id = inert.identity();
+            for (const auto& seen : inert_ids)
+                if (seen == id) throw Error(ErrorKind::argument, "the feed names '" + item.species + "' twice; give each species once");
+            inert_ids.push_back(id);
+            sp.push_back({inert.display_at(T), 0, item.amount_mol, inert.phase_at(T) == 'g'});
+            continue;
+        }
+        if (fed[match]) throw Error(ErrorKind::argument, "the feed names " + sp[match].name + " twice; give each species once");
+        fed[match] = true;
+        sp[match].n0_mol = item.amount_mol;
+    }
+
+    // Only the ratios matter: amounts relative to the largest, so that no sum of them overflows.
+    double largest = 0;
+    for (const auto& s : sp) largest = std::max(largest, s.n0_mol);
+    if (largest > 0)
+        for (auto& s : sp) s.n0_mol /= largest;
+
+    // The key: a reactant (net coefficient < 0), the first one by default.
+    std::size_t k = reacting;
+    if (trim(key).empty()) {
+        for (std::size_t g = 0; g < reacting && k == reacting; ++g)
+            if (sp[g].nu < 0) k = g;
+    } else {
+        const auto ks = parse_one_species(key, "the key species");
+        std::size_t idx = 0;
+        p->key_coefficient(ks, at.table, T, &idx);  // throws when not in the reaction or ambiguous
+        k = group[idx];
+        if (sp[k].nu > 0)
+            throw Error(ErrorKind::argument, "the key species " + sp[k].name +
+                                                 " is a product; the conversion is of a reactant (write the reaction the other way round to ask for it)");
+    }
+    if (k == reacting) throw Error(ErrorKind::argument, "the reaction has no reactant whose conversion could be given");
+    for (std::size_t g = 0; g < reacting; ++g)
+        if (sp[g].nu < 0 && !(sp[g].n0_mol > 0))
+            throw Error(ErrorKind::argument, "the feed has no " + sp[g].name +
+                                                 ", a reactant; give every reactant of the reaction in the feed");
+
+    // ln K = −ΔrG°/(R·T) at the standard pressure (1 bar).
+    const double dG = p->dH(T) - T * p->dS(T);
+    const double ln_K = -dG / (detail::R * T);
+    const double ln_max = std::log(DBL_MAX);
+    if (!std::isfinite(ln_K) || std::fabs(ln_K) > ln_max)
+        throw Error(ErrorKind::argument, "the equilibrium constant at " + number_words(T) + " K is K = e^" + number_words(ln_K) +
+                                             ", beyond what a double holds (1e±308): the reaction " +
+                                             (ln_K > 0 ? "goes to completion" : "does not go") +
+                                             " for any practical purpose, and no conversion is computed");
+
+    // The extent runs between the bounds where a species runs out.
+    double lo = -HUGE_VAL, hi = HUGE_VAL, dn_gas = 0;
+    for (std::size_t g = 0; g < reacting; ++g) {
+        if (sp[g].gas) dn_gas += sp[g].nu;
+        if (sp[g].nu < 0) hi = std::min(hi, sp[g].n0_mol / -sp[g].nu);
+        if (sp[g].nu > 0) lo = std::max(lo, -sp[g].n0_mol / sp[g].nu);
+    }
+    if (!(hi > lo) || !std::isfinite(hi - lo)) throw Error(ErrorKind::internal, "no extent range for the equilibrium");
+    const double ln_p = std::log(at.pressure_bar / P_standard_bar);
+    const auto f = [&](double xi) { return eq_residual(sp, xi, ln_p, dn_gas, ln_K); };
+    const double width = hi - lo;
+
+    // Inner ends of the bracket: step towards each bound by factors of 1/16 until the residual
+    // has the sign of that side (a gas running out sends ln Q to ∓∞); if the bound itself is
+    // reached in doubles, the equilibrium lies there to double precision (a condensed species
+    // that runs out leaves ln Q finite, and the answer is that bound).
+    auto inner = [&](double bound, double sign) {
+        for (double d = width / 2;; d /= 16) {
+            const double x = bound + sign * d;
+            if (x == bound || d == 0) return bound;
+            const double r = f(x);
+            if (std::isfinite(r) && (sign > 0 ? r < 0 : r > 0)) return x;
+        }
+    };
+    const double a = inner(lo, +1), b = inner(hi, -1);
+    double xi;
+    if (a == lo && b == hi) {
+        throw Error(ErrorKind::argument, "every extent of this reaction is at equilibrium (ln Q − ln K is 0 throughout)");
+    } else if (a == lo) {
+        xi = lo;
+    } else if (b == hi) {
+        xi = hi;
+    } else {
+        std::uintmax_t iterations = 400;
+        const auto root = boost::math::tools::toms748_solve(f, a, b, f(a), f(b),
+                                                            boost::math::tools::eps_tolerance<double>(52), iterations);
+        if (iterations >= 400) throw Error(ErrorKind::internal, "the equilibrium extent did not converge");
+        xi = 0.5 * (root.first + root.second);
+    }
+    return -sp[k].nu * xi / sp[k].n0_mol;
 }
 
 std::string Engine::load_unit(std::string_view quantity_unit, std::string_view result_unit) {

@@ -522,3 +522,92 @@ double parse_temperature(std::string_view text) {
 }
 
 }  // namespace rxnheat
+
+// ---- pressure -----------------------------------------------------------------------------------
+
+namespace rxnheat::detail {
+namespace {
+
+const char* const pressure_forms =
+    "a number in bar (absolute), or a number and a unit: bar, bara, Pa, kPa, MPa, atm, psia (absolute), "
+    "barg, psig (gauge, over 101.325 kPa), e.g. '20 bar', '2 MPa', '150 psig'";
+
+struct PressureUnit {
+    std::string_view name;
+    double bar;     ///< one unit in bar
+    bool gauge;     ///< over the standard atmosphere
+};
+// 1 bar = 1e5 Pa exactly; atm = 101325 Pa exactly; psi = lbf/in² (unit_def::psi_Pa).
+constexpr double Pa_bar = 1e-5;
+const std::array<PressureUnit, 9> pressure_units = {{
+    {"bar", 1.0, false},
+    {"bara", 1.0, false},
+    {"barg", 1.0, true},
+    {"Pa", Pa_bar, false},
+    {"kPa", 1e3 * Pa_bar, false},
+    {"MPa", 1e6 * Pa_bar, false},
+    {"atm", unit_def::atm_Pa * Pa_bar, false},
+    {"psia", unit_def::psi_Pa * Pa_bar, false},
+    {"psig", unit_def::psi_Pa * Pa_bar, true},
+}};
+
+bool same_ignoring_ascii_case(std::string_view a, std::string_view b) {
+    if (a.size() != b.size()) return false;
+    for (std::size_t i = 0; i < a.size(); ++i)
+        if (ascii_lower(a[i]) != ascii_lower(b[i])) return false;
+    return true;
+}
+
+}  // namespace
+
+double parse_pressure(std::string_view text) {
+    const std::string_view s = trim(text);
+    if (s.empty()) throw Error(ErrorKind::argument, "the pressure is empty; give " + std::string(pressure_forms));
+    std::string_view rest = s;
+    bool negative = false;
+    if (rest[0] == '+' || rest[0] == '-') {
+        negative = rest[0] == '-';
+        rest.remove_prefix(1);
+    } else if (rest.size() >= 3 && rest.substr(0, 3) == "\xE2\x88\x92") {  // U+2212 minus (pasted text)
+        negative = true;
+        rest.remove_prefix(3);
+    }
+    double x = 0;
+    const bool numeric = !rest.empty() && ((rest[0] >= '0' && rest[0] <= '9') || rest[0] == '.');
+    const auto r = numeric ? std::from_chars(rest.data(), rest.data() + rest.size(), x, std::chars_format::general)
+                           : std::from_chars_result{rest.data(), std::errc::invalid_argument};
+    if (r.ec == std::errc::result_out_of_range)
+        throw Error(ErrorKind::argument, "the pressure " + quote(text) + " is not a finite number");
+    if (r.ec != std::errc())
+        throw Error(ErrorKind::argument,
+                    "the pressure " + quote(text) + " does not start with a number; give " + pressure_forms);
+    if (negative) x = -x;
+    const std::string_view unit = trim(rest.substr(static_cast<std::size_t>(r.ptr - rest.data())));
+    const PressureUnit* found = nullptr;
+    if (unit.empty()) {
+        found = &pressure_units[0];
+    } else {
+        for (const auto& u : pressure_units)
+            if (u.name == unit) found = &u;
+    }
+    if (!found) {
+        std::string hint;
+        if (unit == "psi")
+            hint = " (psi alone does not say whether it is absolute or gauge: write psia or psig)";
+        else if (!unit.empty() && unit[0] == ',')
+            hint = " (use '.' as the decimal point)";
+        else
+            for (const auto& u : pressure_units)
+                if (same_ignoring_ascii_case(u.name, unit)) hint = " (units are case-sensitive: did you mean " + quote(u.name) + "?)";
+        throw Error(ErrorKind::unit, "unknown pressure unit " + quote(unit) + " in " + quote(text) + hint + "; give " +
+                                         pressure_forms);
+    }
+    const double p = x * found->bar + (found->gauge ? unit_def::atm_Pa * Pa_bar : 0.0);
+    if (!std::isfinite(p)) throw Error(ErrorKind::argument, "the pressure " + quote(text) + " is too large");
+    if (p <= 0)
+        throw Error(ErrorKind::argument, "the pressure " + quote(text) + " is not above zero absolute (" +
+                                             format_number(p) + " bar); give an absolute pressure above 0");
+    return p;
+}
+
+}  // namespace rxnheat::detail

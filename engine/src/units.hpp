@@ -39,6 +39,8 @@
 //  time           s, min = 60 s, h = 3600 s (also written hr), d = 86 400 s. Every flow and
 //                 rate takes hr where it takes h: kg/hr, Btu/hr, kcal/hr, Gcal/hr, Nm3/hr.
 //  kWh, MWh       3.6e6 J, 3.6e9 J.
+//  pressure       bar = 1e5 Pa (number alone: bar absolute); atm = 101 325 Pa; psia = psi;
+//                 barg, psig: gauge, over 1 atm (101.325 kPa). GNU units: `bar`, `atm`, `psi`.
 //  temperature    K; C: T = t + 273.15; F: T = (t + 459.67)·5/9; R (Rankine): T = t·5/9.
 //
 // Unit names are case-sensitive (`MJ/kg` is accepted, `mJ/kg` and `mj/kg` are errors that list
@@ -126,6 +128,14 @@ QuantityUnit quantity_unit(std::string_view unit);
 /// a molar mass, Error(argument) for a non-finite quantity or a bad molar mass.
 double quantity_to_mol(double quantity, std::string_view unit,
                        std::optional<double> molar_mass_g_per_mol = std::nullopt);
+
+// ---- pressure: RXNEQX ------------------------------------------------------------------------
+
+/// Pressure text -> bar absolute: a bare number is bar; units bar, bara, Pa, kPa, MPa, atm, psia,
+/// and the gauge units barg, psig (over the standard atmosphere, 1.01325 bar). `psi` alone is an
+/// error (absolute or gauge is not said). Throws Error(unit) for an unknown unit,
+/// Error(argument) for no number, a non-finite value, or an absolute pressure <= 0.
+double parse_pressure(std::string_view text);
 
 // ---- load results: RXNLOAD ---------------------------------------------------------------------
 

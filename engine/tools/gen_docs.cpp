@@ -48,9 +48,10 @@ std::string cli_arguments(const FunctionSpec& f) {
     // A required argument is a positional even where it has an option name (SPECIESCP's TEMP).
     for (const auto& a : f.args)
         if (!a.cli_option || a.required)
-            out += std::string(out.empty() ? "" : " ") + a.cli_value + (a.kind == ArgKind::rest ? "..." : "");
+            out += std::string(out.empty() ? "" : " ") + a.cli_value +
+                   (a.kind == ArgKind::rest || a.kind == ArgKind::feed ? "..." : "");
     for (const auto& a : f.args)
-        if (a.cli_option && !a.required) {
+        if (a.cli_option && (!a.required || a.kind == ArgKind::feed)) {  // a feed is also --feed, repeated
             std::string opt = a.cli_option;
             const auto comma = opt.find(',');
             out += std::string(out.empty() ? "" : " ") + "[" + (comma == std::string::npos ? opt : opt.substr(0, comma)) +

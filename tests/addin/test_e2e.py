@@ -51,6 +51,7 @@ DOCUMENTED_FUNCTIONS = {
     "SPECIESCP": ["species", "temperature", "table"],
     "SPECIESH": ["species", "temperature", "reference_temperature", "table"],
     "MOLARMASS": ["formula"],
+    "RXNEQX": ["reaction", "temperature", "pressure", "feed", "key", "table"],
     "RXNSOURCE": ["reaction_or_species", "table", "temperature"],
     "RXNVERSION": [],
 }
@@ -247,6 +248,21 @@ def check_why_and_tables(checks, sh):
     checks.ok("RXNSOURCE notes a liquid above its boiling point",
               "above its 1-bar boiling point" in src[1].text, repr(src[1]))
     checks.ok("RXNSOURCE at 298.15 K: liquid water", src[2].text.startswith("H2O(l)"), repr(src[2]))
+    # RXNEQX with its feed as a two-column range (a blank row between): N2O4 <=> 2 NO2 at 298.15 K
+    # and 1 bar, ξ = sqrt(K/(K + 4)) with ΔrG° 4.73 kJ/mol (NBS tables, Wagman et al. 1982, from
+    # memory): about 0.19; a pressure in MPa as text.
+    sh.put("AX1", "N2O4")
+    sh.put("AY1", 1)
+    sh.put("AX3", "Ar")
+    sh.put("AY3", 0)
+    eqx = sh.evaluate(['=RXNEQX("N2O4(g) <=> 2 NO2(g)";298.15;1;AX1:AY3)',
+                       '=RXNEQX("N2O4(g) <=> 2 NO2(g)";298.15;"0.1 MPa";AX1:AY3)',
+                       '=RXNEQX("N2O4(g) <=> 2 NO2(g)";298.15;0;AX1:AY3)'])
+    checks.ok("RXNEQX of N2O4 near 0.19", eqx[0].number is not None and abs(eqx[0].number - 0.19) < 0.02,
+              repr(eqx[0]))
+    checks.ok("RXNEQX: 0.1 MPa is 1 bar", eqx[1].number is not None and eqx[0].number is not None and
+              abs(eqx[1].number - eqx[0].number) < 1e-12, repr(eqx[1]))
+    checks.ok("RXNEQX: a pressure of 0 is Err:502", eqx[2].error == ERR_ILLEGAL_ARGUMENT, repr(eqx[2]))
     # A column of 3 reactions with a row of 5 temperatures: the whole 3×5 table in one call.
     reactions = [CH4_COMBUSTION_GAS, "2 H2(g) + O2(g) -> 2 H2O(g)", "1/2 N2(g) + 3/2 H2(g) -> NH3(g)"]
     temperatures = [298.15, 400, "176.85 C", 500, "990 R"]  # 450 K = 176.85 °C, 550 K = 990 °R

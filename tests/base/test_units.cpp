@@ -586,3 +586,37 @@ TEST_CASE("unit functions throw only rxnheat::Error on random input", "[units]")
     CHECK(ok > 0);
     CHECK(errors > 0);
 }
+
+TEST_CASE("pressure units agree with GNU units", "[units]") {
+    // source: GNU units: bar, Pa, kPa, MPa, atm, psi (absolute); a bare number is bar.
+    CHECK_REL(d::parse_pressure("7.5"), gnu_units("7.5 bar", "bar"));
+    CHECK_REL(d::parse_pressure("7.5 bar"), gnu_units("7.5 bar", "bar"));
+    CHECK_REL(d::parse_pressure("7.5 bara"), gnu_units("7.5 bar", "bar"));
+    CHECK_REL(d::parse_pressure("250000 Pa"), gnu_units("250000 Pa", "bar"));
+    CHECK_REL(d::parse_pressure("300 kPa"), gnu_units("300 kPa", "bar"));
+    CHECK_REL(d::parse_pressure("2.5 MPa"), gnu_units("2.5 MPa", "bar"));
+    CHECK_REL(d::parse_pressure("3 atm"), gnu_units("3 atm", "bar"));
+    CHECK_REL(d::parse_pressure("150 psia"), gnu_units("150 psi", "bar"));
+    // Gauge: over the standard atmosphere (GNU units `atm` = 101325 Pa).
+    CHECK_REL(d::parse_pressure("19 barg"), gnu_units("19 bar + atm", "bar"));
+    CHECK_REL(d::parse_pressure("150 psig"), gnu_units("150 psi + atm", "bar"));
+    CHECK_REL(d::parse_pressure("0 psig"), gnu_units("atm", "bar"));
+    CHECK_REL(d::parse_pressure(" 20bar "), 20.0);  // blanks at either end and none before the unit
+}
+
+TEST_CASE("bad pressures are errors in words", "[units]") {
+    // psi alone: absolute or gauge is not said, so it is refused rather than guessed.
+    CHECK(error_of([] { d::parse_pressure("150 psi"); }, ErrorKind::unit).find("psia or psig") != std::string::npos);
+    CHECK(error_of([] { d::parse_pressure("2 mpa"); }, ErrorKind::unit).find("did you mean 'MPa'") != std::string::npos);
+    CHECK(error_of([] { d::parse_pressure("2 torr"); }, ErrorKind::unit).find("unknown pressure unit 'torr'") !=
+          std::string::npos);
+    CHECK(error_of([] { d::parse_pressure("0"); }, ErrorKind::argument).find("not above zero") != std::string::npos);
+    CHECK(error_of([] { d::parse_pressure("-5 bar"); }, ErrorKind::argument).find("not above zero") != std::string::npos);
+    // -2 barg is below vacuum: 1.01325 − 2 < 0 bar absolute.
+    CHECK(error_of([] { d::parse_pressure("-2 barg"); }, ErrorKind::argument).find("not above zero") != std::string::npos);
+    CHECK(error_of([] { d::parse_pressure("bar"); }, ErrorKind::argument).find("does not start with a number") !=
+          std::string::npos);
+    CHECK(error_of([] { d::parse_pressure(""); }, ErrorKind::argument).find("empty") != std::string::npos);
+    CHECK(error_of([] { d::parse_pressure("1e999 bar"); }, ErrorKind::argument).find("finite") != std::string::npos);
+    CHECK(error_of([] { d::parse_pressure("2,5 bar"); }, ErrorKind::unit).find("decimal point") != std::string::npos);
+}

@@ -371,7 +371,7 @@ run dh "$METHANE" -- --json
 expect_rc "-- ends options (then --json is an extra argument)" 2
 
 # The commands cli/CLI.md names as not in this version, whose functions the catalogue does not have yet.
-for cmd in dg logk tad hv eqx duty streamh steam hess; do
+for cmd in dg logk tad hv duty streamh steam hess; do
     run "$cmd" "$METHANE"
     expect_rc "$cmd not in this version: exit 2" 2
     expect_err_re "$cmd not in this version: words" 'not available in this version'
@@ -526,7 +526,7 @@ cp "$TMP/out" "$TMP/functions.json"
 pycheck "functions --json: every known cell name, nothing unknown" "$TMP/functions.json" <<'PYEOF'
 import json, sys
 j = json.load(open(sys.argv[1], encoding="utf-8"))
-known = "RXNDH RXNDU RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNSOURCE RXNVERSION".split()
+known = "RXNDH RXNDU RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNSOURCE RXNVERSION".split()
 names = [f["calc_name"] for f in j["functions"]]
 assert sorted(names) == sorted(known), sorted(set(names) ^ set(known))
 for f in j["functions"]:
@@ -824,6 +824,59 @@ expect_rc "species: a table row with only dHf exits 0" 0
 expect_out_re "species: a table row with only dHf prints it" '-279 kJ/mol'
 run species "XeF6(g)" --table "$TMP/only-dhf.csv" --json
 jcheck "species --json: a table row with only dHf" 'j["dHf_kJ_per_mol"] == -279 and j["Cp_J_per_molK"] is None'
+
+# ---- eqx: equilibrium conversion of one reaction from a feed ----------------------------------------
+NH3="N2(g) + 3 H2(g) -> 2 NH3(g)"
+run eqx "$NH3" 700 200 N2=1 H2=3
+expect_rc "eqx ammonia: exit 0" 0
+x200=$(out)
+run eqx "$NH3" 700 50 N2=1 H2=3
+x50=$(out)
+# Common practice: more pressure, more ammonia (fewer moles of gas on the product side).
+if "$PY" -c 'import sys; sys.exit(0 if float(sys.argv[1]) > float(sys.argv[2]) > 0 else 1)' "$x200" "$x50"; then pass; else fail "eqx: 200 bar ($x200) above 50 bar ($x50)"; fi
+# The same feed as repeated --feed options, the pressure in MPa, the temperature in C: the same number.
+run eqx "$NH3" "426.85 C" "20 MPa" --feed N2=1 --feed H2=3
+expect_rc "eqx --feed options: exit 0" 0
+expect_out "eqx --feed options, MPa, C: same value" "$x200"
+run eqx "$NH3" 700 200 N2=1 --feed H2=3 --json
+expect_rc "eqx --json" 0
+jcheck "eqx --json value" "j['function'] == 'RXNEQX' and abs(j['value'] - $x200) < 1e-6 and j['unit'] == '' and j['input']['feed'] == ['N2=1'] and j['input']['feed_options'] == ['H2=3']"
+# Argon as an inert lowers it (common practice: dilution acts like a lower pressure).
+run eqx "$NH3" 700 200 N2=1 H2=3 Ar=1
+xar=$(out)
+if "$PY" -c 'import sys; sys.exit(0 if float(sys.argv[1]) < float(sys.argv[2]) else 1)' "$xar" "$x200"; then pass; else fail "eqx: argon ($xar) below none ($x200)"; fi
+run eqx "$NH3" 700 200 N2=1 H2=3 --key H2
+expect_out "eqx --key H2 (1:3 feed converts alike)" "$x200"
+# N2O4 <=> 2 NO2 at 298.15 K and 1 bar: ξ = sqrt(K/(K+4)) with ΔrG° 4.73 kJ/mol (NBS tables,
+# Wagman et al. 1982, from memory): about 0.19.
+run eqx "N2O4(g) <=> 2 NO2(g)" 298.15 1 N2O4=1
+expect_rc "eqx N2O4: exit 0" 0
+expect_close "eqx N2O4 dissociation near 0.19" "$(out)" 0.19 0.02
+# Bad input: exit 2 with words.
+run eqx "$NH3" 700 200 NH3=1
+expect_rc "eqx feed without reactants: exit 2" 2
+expect_err_re "eqx feed without reactants: words" 'the feed has no N2\(g\), a reactant'
+run eqx "$NH3" 700 "150 psi" N2=1 H2=3
+expect_rc "eqx psi: exit 2" 2
+expect_err_re "eqx psi: absolute or gauge" 'psia or psig'
+run eqx "$NH3" 700 0 N2=1 H2=3
+expect_rc "eqx zero pressure: exit 2" 2
+expect_err_re "eqx zero pressure: words" "the pressure '0' is not above zero absolute"
+run eqx "$NH3" 700 200 N2 H2=3
+expect_rc "eqx feed word without =: exit 2" 2
+expect_err_re "eqx feed word without =: words" "SPECIES=MOL, e.g. N2=1, not 'N2'"
+run eqx "$NH3" 700 200
+expect_rc "eqx without a feed: exit 2" 2
+expect_err_re "eqx without a feed: words" 'feed.* is required'
+run eqx "$NH3" 700 200 N2=1 H2=3 Zz9=1
+expect_rc "eqx unknown feed species: exit 2" 2
+expect_err_re "eqx unknown feed species: named" 'Zz'
+run eqx "$NH3" 700 200 N2=1 H2=lots
+expect_rc "eqx feed amount not a number: exit 2" 2
+expect_err_re "eqx feed amount not a number: words" "amount of 'H2' must be a number"
+run eqx --help
+expect_out_re "eqx --help: feed as words or --feed" '--feed SPECIES=MOL'
+# ---- end of the eqx block ----------------------------------------------------------------------------
 
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

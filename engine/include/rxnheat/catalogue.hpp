@@ -84,11 +84,13 @@ enum class ArgKind : unsigned char {
     species,      ///< species text (formula or name, phase optional)
     formula,      ///< a formula (MOLARMASS)
     temperature,  ///< a number in K, or text with a unit ("350 C")
+    pressure,     ///< a number in bar absolute, or text with a unit ("20 barg", "2 MPa")
     unit,         ///< unit text
     number,       ///< a finite number
     factor,       ///< a number, or exact text ("1/2", "½")
     text,         ///< other text (a function name)
     table,        ///< a user species table: a range whose first row names the columns
+    feed,         ///< a two-column range: species, amount (mol); blank rows skipped
     rest,         ///< every argument from here on, unread (RXNWHY's "arguments…")
 };
 /// The word used for a kind in help and docs ("reaction", "temperature", ...).

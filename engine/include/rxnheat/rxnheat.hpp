@@ -104,11 +104,18 @@ private:
 /// as "at 500 K".
 struct Conditions {
     double temperature_K = T_ref;
-    double pressure_bar = P_standard_bar;  ///< for the equilibrium and steam functions to come
+    double pressure_bar = P_standard_bar;  ///< absolute: eq_conversion() (RXNEQX); the steam functions to come
     const SpeciesTable* table = nullptr;   ///< user species table over the built-in data, or none
     Conditions() = default;
     Conditions(double T_K, const SpeciesTable* user_table = nullptr)  // NOLINT: implicit on purpose
         : temperature_K(T_K), table(user_table) {}
+};
+
+/// One row of a feed (RXNEQX): a species as a user writes it and its amount, in mol (or any one
+/// amount or flow unit for every row: only the ratios matter).
+struct FeedItem {
+    std::string species;
+    double amount_mol = 0;
 };
 
 /// The sign of ΔrH°, as RXNKIND words it.
@@ -201,6 +208,13 @@ public:
     /// Every coefficient times `factor` ("2", "0.5", "1/2", "½"); exact fractions kept.
     std::string scale(std::string_view reaction, std::string_view factor);
     std::string scale(std::string_view reaction, double factor);
+    /// Equilibrium conversion (0–1) of the reactant `key` (empty: the first reactant) for this one
+    /// reaction from `feed`, at at.temperature_K and at.pressure_bar: ideal-gas mixture, condensed
+    /// species pure (activity 1), K from ΔrG° = ΔrH° − T·ΔrS° at 1 bar. Feed species not in the
+    /// reaction are inerts. Negative when products in the feed react back. Throws Error(argument)
+    /// for a feed without every reactant, a pressure <= 0, a K outside what a double holds.
+    double eq_conversion(std::string_view reaction, const std::vector<FeedItem>& feed,
+                         std::string_view key = {}, const Conditions& at = {});
     /// Everything at once, for reports.
     ReactionReport report(std::string_view reaction, const Conditions& at = {});
 
