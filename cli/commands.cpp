@@ -249,6 +249,9 @@ const CommandEntry entries[] = {
       "{\"value\", \"unit\", [\"per\"], \"temperature_K\", \"reaction\", \"dn_gas\", \"dH_kJ_per_mol\", "
       "\"sources\"}",
       "rxnheat du \"C7H16(l) + 11 O2(g) -> 7 CO2(g) + 8 H2O(l)\" -u kJ/kg --per \"C7H16(l)\"\n"}},
+    {"ds", nullptr, {"", nullptr, "rxnheat ds \"N2(g) + 3 H2(g) -> 2 NH3(g)\" -T 700 -u \"cal/(mol*K)\"\n"}},
+    {"dg", nullptr, {"", nullptr, "rxnheat dg \"CO(g) + H2O(g) -> CO2(g) + H2(g)\" -T \"800 C\"\n"}},
+    {"logk", nullptr, {"", nullptr, "rxnheat logk \"N2(g) + 3 H2(g) -> 2 NH3(g)\" -T 700\n"}},
     {"load", present_load,
      {"",
       "{\"value\", \"unit\", \"kind\", \"quantity\", \"quantity_unit\", \"key\", \"temperature_K\", "

@@ -187,8 +187,6 @@ const std::vector<PlannedCommand>& planned_commands() {
     // Named in cli/CLI.md as not in this version; each leaves this list when its function joins the catalogue.
     static const std::vector<PlannedCommand> all = [] {
         const std::vector<PlannedCommand> spec = {
-            {"dg", "standard reaction Gibbs energy ΔrG°"},
-            {"logk", "equilibrium constant log10 K"},
             {"tad", "adiabatic outlet temperature"},
             {"hv", "heating value of a fuel"},
             {"duty", "heat duty of a reactor from its feed and conversion"},

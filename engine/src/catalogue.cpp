@@ -98,6 +98,13 @@ Outcome dh_call(Engine& e, const Bound& b) {
 Outcome du_call(Engine& e, const Bound& b) {
     return Outcome::of(e.du(b.text(0), b.at, b.text(2), b.text(3)), unit_or(b.text(2), "kJ/mol"));
 }
+Outcome ds_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.ds(b.text(0), b.at, b.text(2)), unit_or(b.text(2), "J/(mol·K)"));
+}
+Outcome dg_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.dg(b.text(0), b.at, b.text(2)), unit_or(b.text(2), "kJ/mol"));
+}
+Outcome logk_call(Engine& e, const Bound& b) { return Outcome::of(e.logk(b.text(0), b.at)); }
 Outcome load_call(Engine& e, const Bound& b) {
     const double v = e.load(b.text(0), b.number(1), b.text(2), b.text(3), b.text(4), b.at);
     return Outcome::of(v, Engine::load_unit(b.text(2), b.text(4)));
@@ -154,6 +161,34 @@ std::vector<FunctionSpec> make_catalogue() {
           {"unit", ArgKind::unit, false, "kJ/mol", energy_unit_help, false, "-u,--unit", "UNIT"},
           {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"}, table_arg()},
          Returns::number, layer_all, none, false, du_call},
+        {"RXNDS", "rxnDS", "ds", "standard reaction entropy ΔrS° of the reaction as written",
+         "Standard reaction entropy ΔrS° = Σ ν·S° of the reaction as written (per mole of reaction extent, "
+         "standard pressure 1 bar), at 298.15 K or the temperature given, from the built-in data (NASA Glenn, "
+         "NASA/TP-2002-211556) or your table's S column. Default unit J/(mol·K).",
+         {reaction_arg(), temperature_arg(),
+          {"unit", ArgKind::unit, false, "J/(mol·K)",
+           "Result unit: J/(mol·K) (default), kJ/(mol·K), cal/(mol·K) (thermochemical calorie, 4.184 J); "
+           "also written J/(mol*K) or J/mol/K.",
+           false, "-u,--unit", "UNIT"},
+          table_arg()},
+         Returns::number, layer_all, none, false, ds_call},
+        {"RXNDG", "rxnDG", "dg", "standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS°",
+         "Standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS° of the reaction as written (per mole of "
+         "reaction extent, standard pressure 1 bar). Negative means the products are favoured at the standard "
+         "state (K > 1); an exothermic reaction can still have ΔrG° > 0 at a high temperature. Default unit "
+         "kJ/mol.",
+         {reaction_arg(), temperature_arg(),
+          {"unit", ArgKind::unit, false, "kJ/mol",
+           "Result unit: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of reaction "
+           "as written).",
+           false, "-u,--unit", "UNIT"},
+          table_arg()},
+         Returns::number, layer_all, none, false, dg_call},
+        {"RXNLOGK", "rxnLogK", "logk", "equilibrium constant log10 K = −ΔrG°/(R·T·ln 10)",
+         "Decimal logarithm of the equilibrium constant K of the reaction as written, log10 K = "
+         "−ΔrG°/(R·T·ln 10), with gases referred to the standard pressure of 1 bar and condensed species "
+         "pure. Above 0: products favoured; below 0: reactants favoured.",
+         {reaction_arg(), temperature_arg(), table_arg()}, Returns::number, layer_all, none, false, logk_call},
         {"RXNLOAD", "rxnLoad", "load", "heat load when an amount or flow of a key species reacts",
          "Heat load: the enthalpy change when the given amount or flow of the key species reacts (or forms) by "
          "the reaction as written. An amount gives a total (default kJ); a flow (per s, min, h, d) gives a rate "

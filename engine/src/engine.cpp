@@ -191,6 +191,36 @@ double Engine::du(std::string_view reaction, const Conditions& at, std::string_v
     return per_extent_in_unit(*p, dU, unit, per, at.table, T);
 }
 
+double Engine::ds(std::string_view reaction, const Conditions& at, std::string_view unit) {
+    check_temperature(at.temperature_K);
+    const auto p = impl_->prepare(reaction, at.table);
+    return detail::from_J_per_molK(p->dS(at.temperature_K), unit);
+}
+
+namespace {
+/// ΔrG° in J/mol of extent at T.
+double gibbs_J_per_mol(const Prepared& p, double T) { return p.dH(T) - T * p.dS(T); }
+}  // namespace
+
+double Engine::dg(std::string_view reaction, const Conditions& at, std::string_view unit) {
+    check_temperature(at.temperature_K);
+    const auto p = impl_->prepare(reaction, at.table);
+    // A per-mass unit is told why it cannot be, rather than told to give a `per` species that
+    // RXNDG does not take.
+    if (detail::is_per_mass_unit(unit))
+        throw Error(ErrorKind::unit, "unit '" + std::string(trim(unit)) +
+                                         "' is per mass; ΔrG° is given per mole of reaction as written: use J/mol, "
+                                         "kJ/mol, MJ/kmol, kcal/mol, cal/mol or BTU/lbmol");
+    return detail::from_J_per_mol(gibbs_J_per_mol(*p, at.temperature_K), unit);
+}
+
+double Engine::logk(std::string_view reaction, const Conditions& at) {
+    const double T = at.temperature_K;
+    check_temperature(T);
+    const auto p = impl_->prepare(reaction, at.table);
+    return -gibbs_J_per_mol(*p, T) / (detail::R * T * std::log(10.0));
+}
+
 double Engine::load(std::string_view reaction, double quantity, std::string_view quantity_unit,
                     std::string_view key, std::string_view result_unit, const Conditions& at) {
     check_temperature(at.temperature_K);

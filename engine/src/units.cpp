@@ -141,6 +141,21 @@ constexpr std::array<Named, 6> mass_units{{
     {"BTU/lb", btu_J / (lb_kg * 1e3)},
     {"Btu/lb", btu_J / (lb_kg * 1e3)},
 }};
+// Entropy per mole: J/(mol·K) per unit. The '·' form first: it is the one messages list.
+constexpr std::array<Named, 12> entropy_units{{
+    {"J/(mol\xC2\xB7K)", 1.0},
+    {"kJ/(mol\xC2\xB7K)", 1e3},
+    {"cal/(mol\xC2\xB7K)", cal_J},
+    {"J/(mol*K)", 1.0},
+    {"kJ/(mol*K)", 1e3},
+    {"cal/(mol*K)", cal_J},
+    {"J/(mol.K)", 1.0},
+    {"kJ/(mol.K)", 1e3},
+    {"cal/(mol.K)", cal_J},
+    {"J/mol/K", 1.0},
+    {"kJ/mol/K", 1e3},
+    {"cal/mol/K", cal_J},
+}};
 // Load totals: J per unit. (Gcal is on the IT calorie, kcal thermochemical: see units.hpp.)
 constexpr std::array<Named, 13> total_units{{
     {"J", 1.0},
@@ -304,6 +319,37 @@ double to_J_per_mol(double value, std::string_view unit, std::optional<double> m
     const double f = energy_to_J_per_mol_factor(unit, molar_mass);
     require_finite(value, "the value");
     return value * f;
+}
+
+double from_J_per_molK(double J_per_molK, std::string_view unit_text) {
+    const std::string unit = normalise(unit_text);
+    const std::string_view name = unit.empty() ? std::string_view("J/(mol\xC2\xB7K)") : std::string_view(unit);
+    const Named* u = find(entropy_units, name);
+    if (!u) {
+        std::string hint;
+        add_case_hint(hint, entropy_units, name);
+        // "J/mol·K" read as written is J·K/mol; the trade means J/(mol·K), but a guess is not ours to make.
+        for (std::string_view dot : {"\xC2\xB7K", "*K", ".K"}) {
+            const std::size_t at = name.find('/');
+            if (hint.empty() && at != std::string_view::npos && name.size() > dot.size() &&
+                name.substr(name.size() - dot.size()) == dot && name.find('(') == std::string_view::npos)
+                hint = " (write the per-kelvin part in parentheses, e.g. J/(mol\xC2\xB7K))";
+        }
+        bool per_mass = false;
+        if (hint.empty()) {
+            try {
+                energy_factor(name, per_mass);
+                hint = " (that is an energy per amount; an entropy is per kelvin, e.g. J/(mol\xC2\xB7K))";
+            } catch (const Error&) {
+            }
+        }
+        throw Error(ErrorKind::unit, "unknown entropy unit " + quote(unit_text) + hint +
+                                         "; known units: J/(mol\xC2\xB7K) (default), kJ/(mol\xC2\xB7K), "
+                                         "cal/(mol\xC2\xB7K) (thermochemical calorie, 4.184 J), each also "
+                                         "written with * or . for \xC2\xB7 or as J/mol/K");
+    }
+    require_finite(J_per_molK, "the value");
+    return J_per_molK / u->factor;
 }
 
 bool is_per_mass_unit(std::string_view unit) noexcept {

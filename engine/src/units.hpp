@@ -102,6 +102,15 @@ double to_J_per_mol(double value, std::string_view unit,
 /// Unknown units give false (from_J_per_mol() then reports them).
 bool is_per_mass_unit(std::string_view unit) noexcept;
 
+// ---- entropy per amount: RXNDS ------------------------------------------------------------------
+
+/// A value in J/(mol·K) per mole of reaction extent, returned in `unit`: J/(mol·K) (the default
+/// when empty), kJ/(mol·K), cal/(mol·K) (thermochemical calorie, 4.184 J); each also written with
+/// '*' or '.' for '·' (J/(mol*K)) or as J/mol/K. "J/mol·K" is refused: read left to right it is
+/// J·K/mol. Throws Error(unit) for any other unit (the message lists the known ones),
+/// Error(argument) for a non-finite value.
+double from_J_per_molK(double J_per_molK, std::string_view unit);
+
 // ---- quantities and flows: RXNLOAD ------------------------------------------------------------
 
 enum class QuantityKind { amount, mass, volume };

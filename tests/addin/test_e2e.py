@@ -40,6 +40,9 @@ CH4_COMBUSTION_GAS_UNICODE = "CH\u2084(g) + 2O\u2082(g) \u2192 CO\u2082(g) + 2H\
 DOCUMENTED_FUNCTIONS = {
     "RXNDH": ["reaction", "temperature", "unit", "per", "table"],
     "RXNDU": ["reaction", "temperature", "unit", "per", "table"],
+    "RXNDS": ["reaction", "temperature", "unit", "table"],
+    "RXNDG": ["reaction", "temperature", "unit", "table"],
+    "RXNLOGK": ["reaction", "temperature", "table"],
     "RXNLOAD": ["reaction", "quantity", "quantity_unit", "key", "result_unit", "temperature",
                 "table"],
     "RXNKIND": ["reaction", "temperature", "tolerance", "table"],
@@ -451,6 +454,38 @@ def check_temperatures(checks, sh):
         # H(1000) − H(400) = [H(1000) − H(298.15)] − [H(400) − H(298.15)]
         checks.close("SPECIESH with a reference temperature", cells[11].number,
                      cells[8].number - cells[12].number, 1e-9)
+
+
+def check_equilibrium(checks, sh, cli):
+    """RXNDS, RXNDG, RXNLOGK in a real office: values, a row of temperatures, an error cell."""
+    nh3 = "N2(g) + 3 H2(g) -> 2 NH3(g)"
+    cells = sh.evaluate(["=RXNLOGK(%s;700)" % q(nh3),                        # 0
+                         "=RXNDG(%s)" % q(nh3),                              # 1
+                         "=RXNDS(%s)" % q(nh3),                              # 2
+                         "=RXNDS(%s;;%s)" % (q(nh3), q("kJ/(mol*K)")),       # 3
+                         "=RXNDG(%s;700;%s)" % (q(nh3), q("kJ/kg")),         # 4
+                         "=RXNLOGK(%s;%s)" % (q(nh3), q("426.85 C")),        # 5
+                         "=RXNDH(%s)-298.15*RXNDS(%s)/1000" % (q(nh3), q(nh3))])  # 6
+    # NIST-JANAF 4th ed. (1998), from memory: log Kf(NH3, 700 K) = −2.029, ΔfG°(NH3, 298.15 K)
+    # = −16.367 kJ/mol; S° N2 191.609, H2 130.680, NH3 192.774 J/(mol·K).
+    checks.close("RXNLOGK ammonia at 700 K (JANAF, from memory)", cells[0].number, -4.058, 0.03)
+    checks.close("RXNDG ammonia at 298.15 K (JANAF, from memory)", cells[1].number, -32.73, 0.15)
+    checks.close("RXNDS ammonia at 298.15 K (JANAF, from memory)", cells[2].number, -198.10, 0.2)
+    if cells[2].number is not None:
+        checks.close("RXNDS kJ/(mol*K) = J/(mol·K) / 1000", cells[3].number, cells[2].number / 1000, 1e-12)
+    checks.ok("RXNDG per-mass unit is Err:502", cells[4].error == ERR_ILLEGAL_ARGUMENT, repr(cells[4]))
+    checks.close("RXNLOGK at \"426.85 C\" = at 700 K", cells[5].number, cells[0].number, 1e-9)
+    checks.close("RXNDG = RXNDH − T·RXNDS", cells[1].number, cells[6].number, 1e-9)
+    sh.put("D40", 500)
+    sh.put("E40", 700)
+    sh.put("F40", 900)
+    rows = sh.array("G40:I40", "=RXNLOGK(%s;D40:F40)" % q(nh3))
+    checks.close("RXNLOGK over a row of temperatures: 700 K", rows[0][1].number, cells[0].number, 1e-9)
+    checks.ok("RXNLOGK over a row falls with temperature (exothermic)",
+              None not in (rows[0][0].number, rows[0][2].number) and rows[0][0].number > rows[0][2].number,
+              repr(rows))
+    if cli is not None:
+        checks.close("RXNLOGK = CLI logk", cells[0].number, cli.value("logk", nh3, "-T", "700"), 1e-9)
 
 
 def check_optional_arguments(checks, sh):
@@ -875,6 +910,7 @@ def main():
         sh = Sheet(doc)
         sections = [("typical values", lambda: check_typical_values(checks, sh, cli, args.version)),
                     ("temperatures", lambda: check_temperatures(checks, sh)),
+                    ("equilibrium", lambda: check_equilibrium(checks, sh, cli)),
                     ("optional arguments", lambda: check_optional_arguments(checks, sh)),
                     ("ranges", lambda: check_ranges(checks, sh)),
                     ("unicode", lambda: check_unicode(checks, sh, svc)),

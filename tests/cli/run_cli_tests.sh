@@ -371,7 +371,7 @@ run dh "$METHANE" -- --json
 expect_rc "-- ends options (then --json is an extra argument)" 2
 
 # The commands cli/CLI.md names as not in this version, whose functions the catalogue does not have yet.
-for cmd in dg logk tad hv duty streamh steam hess; do
+for cmd in tad hv duty streamh steam hess; do
     run "$cmd" "$METHANE"
     expect_rc "$cmd not in this version: exit 2" 2
     expect_err_re "$cmd not in this version: words" 'not available in this version'
@@ -526,7 +526,7 @@ cp "$TMP/out" "$TMP/functions.json"
 pycheck "functions --json: every known cell name, nothing unknown" "$TMP/functions.json" <<'PYEOF'
 import json, sys
 j = json.load(open(sys.argv[1], encoding="utf-8"))
-known = "RXNDH RXNDU RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNSOURCE RXNVERSION".split()
+known = "RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNSOURCE RXNVERSION".split()
 names = [f["calc_name"] for f in j["functions"]]
 assert sorted(names) == sorted(known), sorted(set(names) ^ set(known))
 for f in j["functions"]:
@@ -877,6 +877,59 @@ expect_err_re "eqx feed amount not a number: words" "amount of 'H2' must be a nu
 run eqx --help
 expect_out_re "eqx --help: feed as words or --feed" '--feed SPECIES=MOL'
 # ---- end of the eqx block ----------------------------------------------------------------------------
+# ==== ds, dg, logk: reaction entropy, Gibbs energy and equilibrium constant =========================
+AMMONIA="N2(g) + 3 H2(g) -> 2 NH3(g)"
+# log10 K at 700 K = 2 × log Kf(NH3) = 2 × (−2.029): NIST-JANAF 4th ed. (1998), from memory.
+run logk "$AMMONIA" -T 700 --json
+expect_rc "logk ammonia 700 K" 0
+jcheck "logk ammonia 700 K (JANAF, from memory)" 'abs(j["value"] - (-4.058)) <= 0.03 and j["unit"] == "" and j["function"] == "RXNLOGK" and j["temperature_K"] == 700'
+LOGK_700=$(jval value)
+run logk "$AMMONIA" -T "426.85 C" --json
+expect_close "logk -T 426.85 C = 700 K" "$(jval value)" "$LOGK_700" 1e-9
+run logk "$(timeout 10 "$BIN" reverse "$AMMONIA")" -T 700 --json
+expect_close "logk of the reverse = −logk" "$(jval value)" "$("$PY" -c "print(-($LOGK_700))")" 1e-9
+# ΔrG°(298.15 K) = 2 × ΔfG°(NH3) = 2 × (−16.367) kJ/mol: NIST-JANAF 4th ed., from memory.
+run dg "$AMMONIA" --json
+expect_rc "dg ammonia" 0
+jcheck "dg ammonia 298.15 K (JANAF, from memory)" 'abs(j["value"] - (-32.73)) <= 0.15 and j["unit"] == "kJ/mol"'
+DG_298=$(jval value)
+# log K = −ΔrG°/(R·T·ln 10), R from GNU units (R = k N_A).
+R_UNITS=$(units -d 15 -t R 'J/mol/K')
+run logk "$AMMONIA" --json
+expect_close "logk = -dg/(R T ln 10) (GNU units R)" "$(jval value)" \
+    "$("$PY" -c "import math; print(-$DG_298*1000/($R_UNITS*298.15*math.log(10)))")" 1e-6
+run dg "$AMMONIA" -u kcal/mol --json
+expect_close "dg kcal/mol (GNU units kJ/kcal)" "$(jval value)" \
+    "$("$PY" -c "print($DG_298*$(units -d 15 -t kJ kcal))")" 1e-9
+run dg "$AMMONIA" -u MJ/kg
+expect_rc "dg per-mass unit refused" 2
+expect_err_re "dg per-mass unit: words" 'per mole of reaction'
+# ΔrS°(298.15 K) = 2·192.774 − 191.609 − 3·130.680 J/(mol·K): JANAF S°, from memory.
+run ds "$AMMONIA" --json
+expect_rc "ds ammonia" 0
+jcheck "ds ammonia 298.15 K (JANAF, from memory)" 'abs(j["value"] - (-198.10)) <= 0.2 and j["unit"] == "J/(mol·K)"'
+DS_298=$(jval value)
+run ds "$AMMONIA" -u "cal/(mol*K)" --json
+expect_close "ds cal/(mol*K) (GNU units cal)" "$(jval value)" "$("$PY" -c "print($DS_298/$(units -d 15 -t cal J))")" 1e-9
+run ds "$AMMONIA" -u "kJ/mol/K"
+expect_out_re "ds kJ/mol/K plain" '^-0\.198[0-9]* kJ/mol/K$'
+run ds "$AMMONIA" -u "J/mol·K"
+expect_rc "ds J/mol·K refused (J·K/mol as written)" 2
+expect_err_re "ds J/mol·K: words and the known units" 'parentheses.*known units: J/\(mol·K\)'
+run ds "$AMMONIA" -u kJ/mol
+expect_rc "ds energy unit refused" 2
+expect_err_re "ds energy unit: words" 'energy per amount'
+run logk "$AMMONIA" -u kJ/mol
+expect_rc "logk takes no unit" 2
+run logk "N2(g) + H2(g) -> NH3(g)" -T 700
+expect_rc "logk unbalanced" 2
+expect_err_re "logk unbalanced: words" 'not balanced'
+# Exothermic, yet log K < 0 at 700 K (the README's point).
+run kind "$AMMONIA" -T 700
+expect_out "kind ammonia 700 K" "exothermic"
+run why RXNLOGK "$AMMONIA" "9000 K"
+expect_rc "why RXNLOGK out of range" 2
+# ---- end of the ds, dg, logk block ------------------------------------------------------------------
 
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

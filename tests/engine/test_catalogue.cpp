@@ -384,7 +384,7 @@ TEST_CASE("the Engine's own cache: sized, observable, clearable", "[catalogue][c
 TEST_CASE("every catalogue row is well-formed", "[catalogue][rows]") {
     const auto& all = rxnheat::catalogue();
     // engine/FUNCTIONS.md: the cell functions that exist today, written out by hand.
-    const std::set<std::string> spec = {"RXNDH",     "RXNDU",     "RXNLOAD",   "RXNKIND",   "RXNCHECK",
+    const std::set<std::string> spec = {"RXNDH",     "RXNDU",     "RXNDS",     "RXNDG",     "RXNLOGK",   "RXNLOAD",   "RXNKIND",   "RXNCHECK",
                                         "RXNBALANCE", "RXNREVERSE", "RXNSCALE", "RXNWHY",    "SPECIESHF",
                                         "SPECIESCP", "SPECIESH",  "MOLARMASS", "RXNEQX",    "RXNSOURCE", "RXNVERSION"};
     std::set<std::string> calc_names, idl, commands;
@@ -431,6 +431,17 @@ TEST_CASE("every catalogue row's call works on a sample input", "[catalogue][row
              CHECK(o.number == Approx(-890.57).margin(0.01));  // CODATA Key Values via NASA Glenn
          }}},
         {"RXNDU", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.number == eng().du(CH4)); }}},
+        {"RXNDS", {{text("N2(g) + 3 H2(g) -> 2 NH3(g)")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-198.10).margin(0.2));  // NIST-JANAF 4th ed. S° at 298.15 K, from memory
+             CHECK(o.unit == "J/(mol·K)");
+         }}},
+        {"RXNDG", {{text("N2(g) + 3 H2(g) -> 2 NH3(g)")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-32.73).margin(0.15));  // NIST-JANAF 4th ed. 2·ΔfG°(NH3), from memory
+         }}},
+        {"RXNLOGK", {{text("N2(g) + 3 H2(g) -> 2 NH3(g)"), num(700)}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-4.058).margin(0.03));  // NIST-JANAF 4th ed. 2·log Kf(NH3, 700 K), from memory
+             CHECK(o.unit.empty());
+         }}},
         {"RXNLOAD", {{text(CH4), num(36), text("kmol/h"), text("CH4(g)")}, [&](const rxnheat::Outcome& o) {
              CHECK(o.number == Approx(10 * dh).epsilon(1e-12));  // 36 kmol/h = 10 mol/s (arithmetic)
              CHECK(o.unit == "kW");

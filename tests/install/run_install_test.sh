@@ -35,8 +35,8 @@ check "rxnheat_call RXNLOAD without the table: unknown species (status 3)" "$out
 check "rxnheat_call unknown unit: RXNHEAT_E_UNIT (8), no result" "$out" "^call unit error: status 8, result kind 0: .*kg/hr"
 check "rxnheat_why names the unit" "$out" "^why: .*'kg/hr'"
 check "rxnheat_why of a good call" "$out" "^why good: ok$"
-check "function list: 15" "$out" "^functions 15:"
-for f in RXNDH RXNDU RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP \
+check "function list: 18" "$out" "^functions 18:"
+for f in RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP \
          SPECIESH MOLARMASS RXNSOURCE RXNVERSION; do
   check "function list has $f" "$(grep '^functions' <<<"$out")" " $f\b"
 done

@@ -188,6 +188,16 @@ public:
     /// ΔrU° = ΔrH° − Δn(gas)·R·T, same arguments as dh().
     double du(std::string_view reaction, const Conditions& at = {}, std::string_view unit = {},
               std::string_view per = {});
+    /// ΔrS° of the reaction as written, from the species' standard entropies S°(T) (built-in
+    /// data or the table's S column). `unit` (empty: J/(mol·K)): J/(mol·K), kJ/(mol·K),
+    /// cal/(mol·K) (thermochemical); also written J/(mol*K), J/mol/K.
+    double ds(std::string_view reaction, const Conditions& at = {}, std::string_view unit = {});
+    /// ΔrG° = ΔrH° − T·ΔrS° of the reaction as written. `unit` the per-mole units of dh()
+    /// (empty: kJ/mol); per-mass units are refused (ΔrG° here is per mole of reaction).
+    double dg(std::string_view reaction, const Conditions& at = {}, std::string_view unit = {});
+    /// log10 K = −ΔrG°/(R·T·ln 10), R = 8.31446261815324 J/(mol·K) (exact SI), standard state
+    /// 1 bar for gases (Conditions::pressure_bar is not used: K does not depend on pressure).
+    double logk(std::string_view reaction, const Conditions& at = {});
     /// Enthalpy change when `quantity` (in `quantity_unit`) of species `key` reacts or forms.
     /// Amount/mass/normal-volume units give a total (default kJ); "…/s|min|h|d" give a rate
     /// (default kW). Empty result_unit picks the default.
