@@ -342,7 +342,8 @@ Arg feed_argument(const CommandDef& cmd, const Parsed& p, std::size_t first) {
     std::vector<std::string> words(p.positionals.begin() + static_cast<std::ptrdiff_t>(std::min(first, p.positionals.size())),
                                    p.positionals.end());
     for (const auto& o : cmd.options)
-        if (o.repeatable && p.repeated.count(o.long_name))
+        if (o.repeatable && cmd.function->args[o.arg_index].kind == ArgKind::feed &&
+            p.repeated.count(o.long_name))
             for (const auto& w : p.repeated.at(o.long_name)) words.push_back(w);
     std::vector<Cell> cells;
     for (const auto& w : words) {
@@ -377,6 +378,13 @@ int run_function(const CommandDef& cmd, const Parsed& p, Output& out, Engine& en
             if (!p.has(o.long_name)) continue;
             if (f.args[o.arg_index].kind == ArgKind::feed) {
                 if (c.args[o.arg_index].kind == Arg::Kind::omitted) c.args[o.arg_index] = feed_argument(cmd, p, p.positionals.size());
+                continue;
+            }
+            if (is_list(f.args[o.arg_index].kind)) {  // a column of the values, in the order given
+                std::vector<Cell> cells;
+                for (const auto& w : p.repeated.at(o.long_name)) cells.push_back(Cell::of(w));
+                const std::size_t n = cells.size();
+                c.args[o.arg_index] = Arg::range(n, 1, std::move(cells));
                 continue;
             }
             const std::string value = p.value_or(o.long_name, "");

@@ -105,7 +105,7 @@ std::string usage_line(const CommandDef& cmd) {
     std::string out = "usage: rxnheat " + cmd.name;
     for (const auto& p : cmd.positionals)
         out += p.variadic ? " " + p.placeholder + "..." : p.required ? " " + p.placeholder : " [" + p.placeholder + "]";
-    for (const auto& o : cmd.options) out += " [" + o.usage() + "]";
+    for (const auto& o : cmd.options) out += o.required ? " " + o.usage() + "..." : " [" + o.usage() + "]";
     return out;
 }
 

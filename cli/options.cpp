@@ -66,6 +66,14 @@ CommandDef command_from(const FunctionSpec& f) {
             c.options.push_back(o);
             continue;
         }
+        if (is_list(a.kind)) {
+            // A list is its option given once per item (--step R1 --step R2), required or not.
+            OptionDef o = option_from(a, i);
+            o.repeatable = true;
+            o.required = a.required;
+            c.options.push_back(o);
+            continue;
+        }
         // Required arguments are positionals, in cell order; optional ones are options.
         if (a.cli_option && !a.required) {
             c.options.push_back(option_from(a, i));

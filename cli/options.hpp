@@ -38,6 +38,7 @@ struct OptionDef {
     std::string default_text;  ///< "" when there is none
     std::size_t arg_index = 0;  ///< index into FunctionSpec::args (catalogue commands)
     bool repeatable = false;    ///< given once per item (--feed N2=1 --feed H2=3)
+    bool required = false;      ///< a required list: its items come only as this option (--step R1 --step R2)
 
     /// "-T/--temperature" or "--per", as messages name it.
     std::string display() const;

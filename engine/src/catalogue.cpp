@@ -26,6 +26,7 @@ struct Bound {
         bool is_text = false;  ///< factor: given as text (kept exact)
         double number = 0;     ///< numbers; temperatures in K
         std::string text;      ///< trimmed text
+        std::vector<Value> items;  ///< list kinds: one per cell of the range, blanks kept (given false)
     };
     std::vector<Value> values;  ///< one per ArgSpec
     Conditions at;              ///< temperature and pressure (the arguments of those names) and table
@@ -136,6 +137,38 @@ Outcome eqx_call(Engine& e, const Bound& b) {
     const std::string key(b.text(4));
     return Outcome::of(e.eq_conversion(b.text(0), b.feed, key, b.at));
 }
+/// RXNHESS's steps and their values, paired by position; a position blank in both is skipped.
+std::vector<HessStep> hess_steps(const Bound& b, bool with_values) {
+    const auto& steps = b.values[1].items;
+    std::vector<HessStep> out;
+    if (with_values) {
+        const auto& dh = b.values[2].items;
+        if (steps.size() != dh.size())
+            throw Error(ErrorKind::argument, "'steps' has " + std::to_string(steps.size()) +
+                                                 " cells and 'step_dh' " + std::to_string(dh.size()) +
+                                                 "; give one ΔH beside each step");
+        for (std::size_t i = 0; i < steps.size(); ++i) {
+            const std::string n = std::to_string(i + 1);
+            if (!steps[i].given && !dh[i].given) continue;
+            if (!dh[i].given) throw Error(ErrorKind::argument, "step " + n + " has no ΔH in 'step_dh'");
+            if (!steps[i].given)
+                throw Error(ErrorKind::argument,
+                            "'step_dh' gives a ΔH for step " + n + ", but that cell of 'steps' is blank");
+            out.push_back({i + 1, steps[i].text, dh[i].number});
+        }
+    } else {
+        for (std::size_t i = 0; i < steps.size(); ++i)
+            if (steps[i].given) out.push_back({i + 1, steps[i].text, 0});
+    }
+    if (out.empty()) throw Error(ErrorKind::argument, "'steps' is required, and every cell of it is blank");
+    return out;
+}
+Outcome hess_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.hess(b.text(0), hess_steps(b, true), b.text(3)), unit_or(b.text(3), "kJ/mol"));
+}
+Outcome hess_plan_call(Engine& e, const Bound& b) {
+    return Outcome::of_text(e.hess_plan(b.text(0), hess_steps(b, false)));
+}
 Outcome source_call(Engine& e, const Bound& b) { return Outcome::of_text(e.source(b.text(0), b.at)); }
 Outcome version_call(Engine&, const Bound& b) {
     return Outcome::of_text(std::string("rxnheat ") + b.rules->host_name + " " + RXNHEAT_VERSION + "; engine " +
@@ -146,52 +179,102 @@ Outcome why_call(Engine& e, const Bound& b);
 std::vector<FunctionSpec> make_catalogue() {
     const char* none = "";
     return {
-        {"RXNDH", "rxnDH", "dh", "standard reaction enthalpy ΔrH° of the reaction as written",
+        {"RXNDH",
+         "rxnDH",
+         "dh",
+         "standard reaction enthalpy ΔrH° of the reaction as written",
          "Standard reaction enthalpy ΔrH° of the reaction as written (per mole of reaction extent), at "
          "298.15 K or the temperature given, from the built-in data (NASA Glenn, NASA/TP-2002-211556) or "
          "your table. Negative means heat is released (exothermic). Default unit kJ/mol.",
-         {reaction_arg(), temperature_arg(),
+         {reaction_arg(),
+          temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol", energy_unit_help, false, "-u,--unit", "UNIT"},
-          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"}, table_arg()},
-         Returns::number, layer_all, none, false, dh_call},
-        {"RXNDU", "rxnDU", "du", "standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T",
+          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"},
+          table_arg()},
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         dh_call},
+        {"RXNDU",
+         "rxnDU",
+         "du",
+         "standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T",
          "Standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T of the reaction as written, for "
          "constant-volume (bomb calorimeter) work. Default unit kJ/mol. Same arguments as RXNDH.",
-         {reaction_arg(), temperature_arg(),
+         {reaction_arg(),
+          temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol", energy_unit_help, false, "-u,--unit", "UNIT"},
-          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"}, table_arg()},
-         Returns::number, layer_all, none, false, du_call},
-        {"RXNDS", "rxnDS", "ds", "standard reaction entropy ΔrS° of the reaction as written",
+          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"},
+          table_arg()},
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         du_call},
+        {"RXNDS",
+         "rxnDS",
+         "ds",
+         "standard reaction entropy ΔrS° of the reaction as written",
          "Standard reaction entropy ΔrS° = Σ ν·S° of the reaction as written (per mole of reaction extent, "
-         "standard pressure 1 bar), at 298.15 K or the temperature given, from the built-in data (NASA Glenn, "
+         "standard pressure 1 bar), at 298.15 K or the temperature given, from the built-in data (NASA "
+         "Glenn, "
          "NASA/TP-2002-211556) or your table's S column. Default unit J/(mol·K).",
-         {reaction_arg(), temperature_arg(),
+         {reaction_arg(),
+          temperature_arg(),
           {"unit", ArgKind::unit, false, "J/(mol·K)",
            "Result unit: J/(mol·K) (default), kJ/(mol·K), cal/(mol·K) (thermochemical calorie, 4.184 J); "
            "also written J/(mol*K) or J/mol/K.",
            false, "-u,--unit", "UNIT"},
           table_arg()},
-         Returns::number, layer_all, none, false, ds_call},
-        {"RXNDG", "rxnDG", "dg", "standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS°",
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         ds_call},
+        {"RXNDG",
+         "rxnDG",
+         "dg",
+         "standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS°",
          "Standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS° of the reaction as written (per mole of "
-         "reaction extent, standard pressure 1 bar). Negative means the products are favoured at the standard "
+         "reaction extent, standard pressure 1 bar). Negative means the products are favoured at the "
+         "standard "
          "state (K > 1); an exothermic reaction can still have ΔrG° > 0 at a high temperature. Default unit "
          "kJ/mol.",
-         {reaction_arg(), temperature_arg(),
+         {reaction_arg(),
+          temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol",
-           "Result unit: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of reaction "
+           "Result unit: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of "
+           "reaction "
            "as written).",
            false, "-u,--unit", "UNIT"},
           table_arg()},
-         Returns::number, layer_all, none, false, dg_call},
-        {"RXNLOGK", "rxnLogK", "logk", "equilibrium constant log10 K = −ΔrG°/(R·T·ln 10)",
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         dg_call},
+        {"RXNLOGK",
+         "rxnLogK",
+         "logk",
+         "equilibrium constant log10 K = −ΔrG°/(R·T·ln 10)",
          "Decimal logarithm of the equilibrium constant K of the reaction as written, log10 K = "
          "−ΔrG°/(R·T·ln 10), with gases referred to the standard pressure of 1 bar and condensed species "
          "pure. Above 0: products favoured; below 0: reactants favoured.",
-         {reaction_arg(), temperature_arg(), table_arg()}, Returns::number, layer_all, none, false, logk_call},
-        {"RXNLOAD", "rxnLoad", "load", "heat load when an amount or flow of a key species reacts",
-         "Heat load: the enthalpy change when the given amount or flow of the key species reacts (or forms) by "
-         "the reaction as written. An amount gives a total (default kJ); a flow (per s, min, h, d) gives a rate "
+         {reaction_arg(), temperature_arg(), table_arg()},
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         logk_call},
+        {"RXNLOAD",
+         "rxnLoad",
+         "load",
+         "heat load when an amount or flow of a key species reacts",
+         "Heat load: the enthalpy change when the given amount or flow of the key species reacts (or forms) "
+         "by "
+         "the reaction as written. An amount gives a total (default kJ); a flow (per s, min, h, d) gives a "
+         "rate "
          "(default kW). Negative means heat is released." RXNHEAT_CAUTION,
          {reaction_arg(),
           {"quantity", ArgKind::number, true, "",
@@ -201,45 +284,99 @@ std::vector<FunctionSpec> make_catalogue() {
            "Amount: mol, kmol, lbmol; mass: g, kg, t, lb; normal gas volume: Nm3 (0 °C, 101.325 kPa) or scf "
            "(60 °F, 14.696 psia); or any of these per s, min, h or d for a flow, e.g. \"kg/h\".",
            false, nullptr, "QUANTITY_UNIT"},
-          {"key", ArgKind::species, true, "", "The species of the reaction that the quantity refers to, e.g. \"CH4\".",
-           false, nullptr, "KEY"},
+          {"key", ArgKind::species, true, "",
+           "The species of the reaction that the quantity refers to, e.g. \"CH4\".", false, nullptr, "KEY"},
           {"result_unit", ArgKind::unit, false, "kJ or kW",
-           "For a total: kJ (default), J, MJ, GJ, kWh, MWh, kcal, BTU, MMBTU, therm. For a flow: kW (default), "
+           "For a total: kJ (default), J, MJ, GJ, kWh, MWh, kcal, BTU, MMBTU, therm. For a flow: kW "
+           "(default), "
            "W, MW, kcal/h, BTU/h, MMBTU/h, TR (12,000 BTU/h).",
            false, "-u,--unit", "UNIT"},
-          temperature_arg(), table_arg()},
-         Returns::number, layer_all, none, false, load_call},
-        {"RXNKIND", "rxnKind", "kind", "exothermic, endothermic or thermoneutral",
+          temperature_arg(),
+          table_arg()},
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         load_call},
+        {"RXNKIND",
+         "rxnKind",
+         "kind",
+         "exothermic, endothermic or thermoneutral",
          "Classifies the reaction as text: exothermic (ΔrH° < 0), endothermic (ΔrH° > 0) or thermoneutral "
          "(|ΔrH°| within the tolerance).",
-         {reaction_arg(), temperature_arg(),
+         {reaction_arg(),
+          temperature_arg(),
           {"tolerance", ArgKind::number, false, "0.1 kJ/mol",
-           "Band in kJ/mol (per mole of reaction) counted as thermoneutral. Omitted, empty or blank: 0.1 kJ/mol.",
+           "Band in kJ/mol (per mole of reaction) counted as thermoneutral. Omitted, empty or blank: 0.1 "
+           "kJ/mol.",
            false, "--tolerance", "KJ"},
           table_arg()},
-         Returns::text, layer_all, none, false, kind_call},
-        {"RXNCHECK", "rxnCheck", "check", "ok, or the first problem with a reaction in words",
+         Returns::text,
+         layer_all,
+         none,
+         false,
+         kind_call},
+        {"RXNCHECK",
+         "rxnCheck",
+         "check",
+         "ok, or the first problem with a reaction in words",
          "Checks a reaction and returns ok, or the first problem in plain words: where the text does not "
-         "parse, which element or charge does not balance, an unknown or ambiguous species, a missing phase, a "
+         "parse, which element or charge does not balance, an unknown or ambiguous species, a missing phase, "
+         "a "
          "temperature outside the data. It is the same diagnosis with which RXNDH and the other numeric "
          "functions fail (Err:502).",
-         {reaction_arg(), temperature_arg(), table_arg()}, Returns::text, layer_all, none, true, check_call},
-        {"RXNBALANCE", "rxnBalance", "balance", "the reaction with the smallest whole-number coefficients",
-         "Balances a reaction: returns its text with the smallest whole-number coefficients that balance every "
-         "element and the charge. An error if no balance exists or if more than one independent balance does.",
-         {reaction_arg(), table_arg()}, Returns::text, layer_all, none, false, balance_call},
-        {"RXNREVERSE", "rxnReverse", "reverse", "products and reactants exchanged",
+         {reaction_arg(), temperature_arg(), table_arg()},
+         Returns::text,
+         layer_all,
+         none,
+         true,
+         check_call},
+        {"RXNBALANCE",
+         "rxnBalance",
+         "balance",
+         "the reaction with the smallest whole-number coefficients",
+         "Balances a reaction: returns its text with the smallest whole-number coefficients that balance "
+         "every "
+         "element and the charge. An error if no balance exists or if more than one independent balance "
+         "does.",
+         {reaction_arg(), table_arg()},
+         Returns::text,
+         layer_all,
+         none,
+         false,
+         balance_call},
+        {"RXNREVERSE",
+         "rxnReverse",
+         "reverse",
+         "products and reactants exchanged",
          "Returns the reaction text with products and reactants exchanged (ΔrH° changes sign).",
-         {reaction_arg()}, Returns::text, layer_all, none, false, reverse_call},
-        {"RXNSCALE", "rxnScale", "scale", "every coefficient times a factor, fractions kept",
-         "Returns the reaction text with every coefficient multiplied by the factor; exact fractions are kept "
+         {reaction_arg()},
+         Returns::text,
+         layer_all,
+         none,
+         false,
+         reverse_call},
+        {"RXNSCALE",
+         "rxnScale",
+         "scale",
+         "every coefficient times a factor, fractions kept",
+         "Returns the reaction text with every coefficient multiplied by the factor; exact fractions are "
+         "kept "
          "(1/2 O2). ΔrH° scales by the same factor.",
          {reaction_arg(),
           {"factor", ArgKind::factor, true, "", "A number, or text such as \"1/2\", \"0.5\" or \"½\".", false,
            nullptr, "FACTOR"}},
-         Returns::text, layer_all, none, false, scale_call},
-        {"RXNWHY", "rxnWhy", "why", "ok, or in words why a call of another rxnheat function fails",
-         "Diagnoses a call of any rxnheat function: give the function's name (e.g. \"RXNLOAD\") and then that "
+         Returns::text,
+         layer_all,
+         none,
+         false,
+         scale_call},
+        {"RXNWHY",
+         "rxnWhy",
+         "why",
+         "ok, or in words why a call of another rxnheat function fails",
+         "Diagnoses a call of any rxnheat function: give the function's name (e.g. \"RXNLOAD\") and then "
+         "that "
          "function's arguments in order. Returns ok, or in words exactly what is wrong: the unit, the key "
          "species, the quantity, the table, the temperature or the reaction.",
          {{"function", ArgKind::text, true, "", "The name of an rxnheat function, e.g. \"RXNLOAD\".", false,
@@ -247,76 +384,190 @@ std::vector<FunctionSpec> make_catalogue() {
           {"arguments", ArgKind::rest, false, "",
            "That function's arguments, in its order, exactly as in the call being diagnosed.", false, nullptr,
            "ARGS"}},
-         Returns::text, layer_all, none, true, why_call},
-        {"SPECIESHF", "speciesHf", "hf", "standard enthalpy of formation ΔfH° of one species",
+         Returns::text,
+         layer_all,
+         none,
+         true,
+         why_call},
+        {"SPECIESHF",
+         "speciesHf",
+         "hf",
+         "standard enthalpy of formation ΔfH° of one species",
          "Standard enthalpy of formation ΔfH° of one species, default kJ/mol at 298.15 K. At another "
          "temperature: the enthalpy of formation from the elements in their reference states at that "
          "temperature.",
-         {species_arg(), temperature_arg(),
+         {species_arg(),
+          temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol",
            "J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of the species).", false,
            "-u,--unit", "UNIT"},
           table_arg()},
-         Returns::number, layer_all, none, false, hf_call},
-        {"SPECIESCP", "speciesCp", "cp", "standard molar heat capacity Cp° of one species",
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         hf_call},
+        {"SPECIESCP",
+         "speciesCp",
+         "cp",
+         "standard molar heat capacity Cp° of one species",
          "Standard molar heat capacity Cp° of one species at the temperature, in J/(mol·K).",
-         {species_arg(), temperature_required_arg(), table_arg()}, Returns::number, layer_all, none, false,
+         {species_arg(), temperature_required_arg(), table_arg()},
+         Returns::number,
+         layer_all,
+         none,
+         false,
          cp_call},
-        {"SPECIESH", "speciesH", "sensible", "sensible heat H°(T) − H°(Tref) of one species",
+        {"SPECIESH",
+         "speciesH",
+         "sensible",
+         "sensible heat H°(T) − H°(Tref) of one species",
          "Sensible heat H°(T) − H°(Tref) of one species in kJ/mol, including phase changes covered by the "
          "data (no extrapolation outside the data's range).",
-         {species_arg(), temperature_required_arg(),
+         {species_arg(),
+          temperature_required_arg(),
           {"reference_temperature", ArgKind::temperature, false, "298.15 K",
-           "The reference temperature Tref, as a number in kelvin or text with a unit. Omitted, empty or blank: "
+           "The reference temperature Tref, as a number in kelvin or text with a unit. Omitted, empty or "
+           "blank: "
            "298.15 K.",
            false, "--tref", "TEMP"},
           table_arg()},
-         Returns::number, layer_all, none, false, h_call},
-        {"MOLARMASS", "molarMass", "molarmass", "molar mass from standard atomic weights",
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         h_call},
+        {"MOLARMASS",
+         "molarMass",
+         "molarmass",
+         "molar mass from standard atomic weights",
          "Molar mass in g/mol from the IUPAC standard atomic weights.",
          {{"formula", ArgKind::formula, true, "",
-           "Chemical formula, e.g. CH4, Ca(OH)2, CuSO4·5H2O (a phase is allowed and ignored), or a cell holding "
+           "Chemical formula, e.g. CH4, Ca(OH)2, CuSO4·5H2O (a phase is allowed and ignored), or a cell "
+           "holding "
            "it. A range gives an array of the same shape.",
            true, nullptr, "FORMULA"}},
-         Returns::number, layer_all, none, false, molar_mass_call},
-        {"RXNEQX", "rxnEqX", "eqx", "equilibrium conversion of a key reactant for one reaction from a feed",
+         Returns::number,
+         layer_all,
+         none,
+         false,
+         molar_mass_call},
+        {"RXNEQX",
+         "rxnEqX",
+         "eqx",
+         "equilibrium conversion of a key reactant for one reaction from a feed",
          "Equilibrium conversion (0 to 1) of the key reactant for this one reaction from the feed, at the "
          "temperature and pressure: one reaction, ideal gas, no kinetics. K from ΔrG° = ΔrH° − T·ΔrS° of the "
-         "built-in data (NASA Glenn) or your table at 1 bar; gases as an ideal mixture, condensed species pure. "
+         "built-in data (NASA Glenn) or your table at 1 bar; gases as an ideal mixture, condensed species "
+         "pure. "
          "Feed species not in the reaction are inerts. Negative when products in the feed react back.",
-         {reaction_arg(), temperature_required_arg(),
+         {reaction_arg(),
+          temperature_required_arg(),
           {"pressure", ArgKind::pressure, true, "",
-           "Pressure: a number in bar (absolute), or text with a unit such as \"20 bar\", \"2 MPa\", \"300 kPa\", "
+           "Pressure: a number in bar (absolute), or text with a unit such as \"20 bar\", \"2 MPa\", \"300 "
+           "kPa\", "
            "\"1 atm\", \"150 psia\", or gauge \"19 barg\", \"150 psig\" (over 101.325 kPa).",
            false, "-P,--pressure", "PRESSURE"},
           {"feed", ArgKind::feed, true, "",
-           "A two-column range: species, amount in mol (or any one amount or flow unit for every row: only the "
+           "A two-column range: species, amount in mol (or any one amount or flow unit for every row: only "
+           "the "
            "ratios matter). Blank rows are skipped; species not in the reaction are inerts.",
            false, "--feed", "SPECIES=MOL"},
           {"key", ArgKind::species, false, "the first reactant",
-           "The reactant whose conversion is given, e.g. \"N2\". Omitted: the first reactant.", false, "--key",
-           "SPECIES"},
+           "The reactant whose conversion is given, e.g. \"N2\". Omitted: the first reactant.", false,
+           "--key", "SPECIES"},
           table_arg()},
-         Returns::number, layer_calc | layer_cli,
+         Returns::number,
+         layer_calc | layer_cli,
          "C: the feed is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
          "Engine::eq_conversion.",
-         false, eqx_call},
-        {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
-         "Text naming where every number used for the reaction or species came from: the data set, its record "
+         false,
+         eqx_call},
+        {"RXNHESS",
+         "rxnHess",
+         "hess",
+         "ΔH of a reaction combined by Hess's law from step reactions of known ΔH",
+         "ΔH of the target reaction as an exact combination of your step reactions, from the ΔH you give for "
+         "each "
+         "step (not from the built-in data): Hess's law. An error (RXNWHY says why in words) when the "
+         "target is no combination of the steps, when dependent steps give two different answers, or when "
+         "one "
+         "substance is spelled two ways. RXNHESSPLAN shows the combination used.",
+         {{"target", ArgKind::reaction, true, "",
+           "The reaction whose ΔH is wanted, as text or a cell, e.g. C(s) + 1/2 O2(g) -> CO(g).", false,
+           nullptr, "TARGET"},
+          {"steps", ArgKind::reactions, true, "",
+           "The step reactions whose ΔH are known, in order: a column (or row) of cells, blank cells skipped "
+           "(on the command line, --step once per step). Species are matched as written, phases included.",
+           false, "--step", "REACTION"},
+          {"step_dh", ArgKind::numbers, true, "",
+           "The steps' ΔH in the same order, per mole of each step as written, in 'unit': a column (or row) "
+           "beside the steps (on the command line, --dh once per step).",
+           false, "--dh", "DH"},
+          {"unit", ArgKind::unit, false, "kJ/mol",
+           "The unit of the step values and of the result: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, "
+           "cal/mol, "
+           "BTU/lbmol.",
+           false, "-u,--unit", "UNIT"}},
+         Returns::number,
+         layer_calc | layer_cli,
+         "C: the steps are ranges, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
+         "Engine::hess.",
+         false,
+         hess_call},
+        {"RXNHESSPLAN",
+         "rxnHessPlan",
+         "hess-plan",
+         "the combination of step reactions that gives a target reaction",
+         "Text: the target reaction as a combination of the step reactions by their numbers (their positions "
+         "in "
+         "the range), e.g. 1×(1) − 2×(3) + 1/2×(4); the combination RXNHESS uses.",
+         {{"target", ArgKind::reaction, true, "", "The reaction to combine, as text or a cell.", false,
+           nullptr, "TARGET"},
+          {"steps", ArgKind::reactions, true, "",
+           "The step reactions, in order: a column (or row) of cells, blank cells skipped but keeping their "
+           "numbers (on the command line, --step once per step).",
+           false, "--step", "REACTION"}},
+         Returns::text,
+         layer_calc | layer_cli,
+         "C: the steps are a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
+         "Engine::hess_plan.",
+         false,
+         hess_plan_call},
+        {"RXNSOURCE",
+         "rxnSource",
+         "source",
+         "where every number used came from",
+         "Text naming where every number used for the reaction or species came from: the data set, its "
+         "record "
          "and its publication, and the phase used at the temperature.",
          {{"reaction_or_species", ArgKind::reaction, true, "",
-           "A reaction or a species, as text or a cell. A range gives an array of the same shape.", true, nullptr,
-           "REACTION_OR_SPECIES"},
+           "A reaction or a species, as text or a cell. A range gives an array of the same shape.", true,
+           nullptr, "REACTION_OR_SPECIES"},
           table_arg(),
           // After the table: saved documents call rxnSource(reaction_or_species; table).
           {"temperature", ArgKind::temperature, false, "298.15 K",
-           "The temperature whose data are cited: a species written without a phase is cited in the phase stable "
-           "there, and a written liquid above its 1-bar boiling point is noted. Omitted, empty or blank: 298.15 K.",
+           "The temperature whose data are cited: a species written without a phase is cited in the phase "
+           "stable "
+           "there, and a written liquid above its 1-bar boiling point is noted. Omitted, empty or blank: "
+           "298.15 K.",
            true, "-T,--temperature", "TEMP"}},
-         Returns::text, layer_all, none, false, source_call},
-        {"RXNVERSION", "rxnVersion", "version", "version and data-set identity, for template audits",
-         "Version of rxnheat and identity of its data set, for template audits.", {}, Returns::text, layer_all,
-         none, false, version_call},
+         Returns::text,
+         layer_all,
+         none,
+         false,
+         source_call},
+        {"RXNVERSION",
+         "rxnVersion",
+         "version",
+         "version and data-set identity, for template audits",
+         "Version of rxnheat and identity of its data set, for template audits.",
+         {},
+         Returns::text,
+         layer_all,
+         none,
+         false,
+         version_call},
     };
 }
 
@@ -407,6 +658,8 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
         return;
     case ArgKind::table:
     case ArgKind::feed:
+    case ArgKind::reactions:
+    case ArgKind::numbers:
     case ArgKind::rest:
         return;  // read elsewhere
     }
@@ -487,6 +740,41 @@ void read_feed(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound& 
     if (b.feed.empty()) bad(a, "is required, and every row of it is blank");
 }
 
+/// A list: a column or row of cells (or one cell), read one by one by the list's element kind,
+/// blanks kept in place so that two lists pair by position.
+void read_list(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound::Value& out) {
+    const ArgKind element = a.kind == ArgKind::reactions ? ArgKind::reaction : ArgKind::number;
+    const ArgSpec item{a.name, element, true, "", "", false, nullptr, nullptr};  // required: a 0 stays 0
+    std::vector<const Cell*> cells;
+    if (arg.kind == Arg::Kind::cell) {
+        cells.push_back(&arg.cell);
+    } else if (arg.kind == Arg::Kind::range) {
+        if (arg.rows != 1 && arg.cols != 1)
+            bad(a,
+                "must be one column or one row of cells, not " + shape_text(arg.rows, arg.cols) + " cells");
+        for (const auto& c : arg.cells) cells.push_back(&c);
+    } else if (arg.kind == Arg::Kind::table) {
+        bad(a, "must be a column or row of cells, not a species table");
+    }
+    if (cells.empty() && a.required) bad(a, "is required");
+    for (std::size_t i = 0; i < cells.size(); ++i) {
+        Bound::Value v;
+        if (!blank_cell(*cells[i], item, rules)) {
+            try {
+                read_cell(*cells[i], item, rules, v);
+            } catch (const Error& e) {
+                // "'steps' must be text, not a number" -> "'steps' cell 2: must be text, ..."
+                bad(a, "cell " + std::to_string(i + 1) + ":" +
+                           std::string(e.what()).substr(quoted(a.name).size()));
+            }
+        }
+        out.items.push_back(std::move(v));
+    }
+    out.given = false;
+    for (const auto& v : out.items) out.given = out.given || v.given;
+    if (!out.given && a.required) bad(a, "is required, and every cell of it is blank");
+}
+
 /// Reads a whole (non-spreading, or spreading but given as one value) argument.
 void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound& b,
                 std::shared_ptr<const SpeciesTable>& table_holder, std::size_t i) {
@@ -506,6 +794,10 @@ void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound&
     if (a.kind == ArgKind::feed) {
         read_feed(arg, a, rules, b);
         out.given = !b.feed.empty();
+        return;
+    }
+    if (is_list(a.kind)) {
+        read_list(arg, a, rules, out);
         return;
     }
     const Cell* cell = nullptr;
@@ -695,6 +987,8 @@ const char* to_string(ArgKind kind) noexcept {
     case ArgKind::text: return "text";
     case ArgKind::table: return "range (species table)";
     case ArgKind::feed: return "range (species, amount)";
+    case ArgKind::reactions: return "range (reactions)";
+    case ArgKind::numbers: return "range (numbers)";
     case ArgKind::rest: return "arguments";
     }
     return "value";

@@ -3,6 +3,7 @@
 
 #include "chem.hpp"
 #include "database.hpp"
+#include "hess.hpp"
 #include "reaction.hpp"
 #include "units.hpp"
 #include "usertable.hpp"
@@ -460,6 +461,51 @@ std::string Engine::scale(std::string_view reaction, double factor) {
     if (!std::isfinite(factor) || factor <= 0)
         throw Error(ErrorKind::argument, "the factor must be a number above zero (to exchange the sides, reverse the reaction)");
     return scaled(*impl_->prepare(reaction, nullptr), rational_from_double(factor));
+}
+
+namespace {
+/// The target and the steps prepared, each error naming the reaction it is in.
+struct HessInput {
+    std::shared_ptr<const Prepared> target;
+    std::vector<std::shared_ptr<const Prepared>> steps;
+};
+HessInput prepare_hess(Engine::Impl& impl, std::string_view target, const std::vector<HessStep>& steps) {
+    auto one = [&](std::string_view text, const std::string& where) {
+        try {
+            if (trim(text).empty()) throw Error(ErrorKind::argument, "is empty");
+            return impl.prepare(text, nullptr);
+        } catch (const Error& e) {
+            throw Error(e.kind(), where + ": " + e.what());
+        }
+    };
+    HessInput in;
+    in.target = one(target, "the target");
+    for (const auto& s : steps) in.steps.push_back(one(s.reaction, "step " + std::to_string(s.number)));
+    return in;
+}
+}  // namespace
+
+double Engine::hess(std::string_view target, const std::vector<HessStep>& steps, std::string_view unit) {
+    if (detail::is_per_mass_unit(unit))
+        throw Error(ErrorKind::unit,
+                    "unit '" + std::string(trim(unit)) +
+                        "' is per mass; RXNHESS combines values per mole of reaction as written: use "
+                        "J/mol, kJ/mol, MJ/kmol, kcal/mol, cal/mol or BTU/lbmol");
+    std::vector<double> dh_J;
+    for (const auto& s : steps) {
+        if (!std::isfinite(s.dh))
+            throw Error(ErrorKind::argument,
+                        "the ΔH of step " + std::to_string(s.number) + " is not a finite number");
+        dh_J.push_back(detail::to_J_per_mol(s.dh, unit));
+    }
+    const HessInput in = prepare_hess(*impl_, target, steps);
+    const auto c = detail::combine(*in.target, in.steps, steps);
+    return detail::from_J_per_mol(detail::combined_dh_J_per_mol(c, steps, dh_J), unit);
+}
+
+std::string Engine::hess_plan(std::string_view target, const std::vector<HessStep>& steps) {
+    const HessInput in = prepare_hess(*impl_, target, steps);
+    return detail::combine(*in.target, in.steps, steps).plan;
 }
 
 ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {

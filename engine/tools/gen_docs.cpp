@@ -47,15 +47,18 @@ std::string cli_arguments(const FunctionSpec& f) {
     std::string out;
     // A required argument is a positional even where it has an option name (SPECIESCP's TEMP).
     for (const auto& a : f.args)
-        if (!a.cli_option || a.required)
+        if (!a.cli_option || (a.required && !is_list(a.kind)))
             out += std::string(out.empty() ? "" : " ") + a.cli_value +
                    (a.kind == ArgKind::rest || a.kind == ArgKind::feed ? "..." : "");
     for (const auto& a : f.args)
-        if (a.cli_option && (!a.required || a.kind == ArgKind::feed)) {  // a feed is also --feed, repeated
+        if (a.cli_option && (!a.required || a.kind == ArgKind::feed || is_list(a.kind))) {  // given repeated
             std::string opt = a.cli_option;
             const auto comma = opt.find(',');
-            out += std::string(out.empty() ? "" : " ") + "[" + (comma == std::string::npos ? opt : opt.substr(0, comma)) +
-                   " " + a.cli_value + "]";
+            const std::string shown =
+                (comma == std::string::npos ? opt : opt.substr(0, comma)) + " " + a.cli_value;
+            // A required list is its option repeated (--step R1 --step R2); the rest are optional.
+            out += std::string(out.empty() ? "" : " ") +
+                   (a.required && is_list(a.kind) ? shown + "..." : "[" + shown + "]");
         }
     return out;
 }

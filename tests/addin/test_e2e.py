@@ -55,6 +55,8 @@ DOCUMENTED_FUNCTIONS = {
     "SPECIESH": ["species", "temperature", "reference_temperature", "table"],
     "MOLARMASS": ["formula"],
     "RXNEQX": ["reaction", "temperature", "pressure", "feed", "key", "table"],
+    "RXNHESS": ["target", "steps", "step_dh", "unit"],
+    "RXNHESSPLAN": ["target", "steps"],
     "RXNSOURCE": ["reaction_or_species", "table", "temperature"],
     "RXNVERSION": [],
 }
@@ -266,6 +268,23 @@ def check_why_and_tables(checks, sh):
     checks.ok("RXNEQX: 0.1 MPa is 1 bar", eqx[1].number is not None and eqx[0].number is not None and
               abs(eqx[1].number - eqx[0].number) < 1e-12, repr(eqx[1]))
     checks.ok("RXNEQX: a pressure of 0 is Err:502", eqx[2].error == ERR_ILLEGAL_ARGUMENT, repr(eqx[2]))
+    # RXNHESS and RXNHESSPLAN with the steps and their ΔH in two columns, a blank row between:
+    # CODATA Key Values (Cox et al. 1989) ΔfH°(CO2, g) −393.51 and ΔfH°(CO, g) −110.53 kJ/mol, so
+    # CO + ½ O2 → CO2 is −282.98 and C + ½ O2 → CO is (1) − (3).
+    sh.put("BA1", "C(s) + O2(g) -> CO2(g)")
+    sh.put("BB1", -393.51)
+    sh.put("BA3", "CO(g) + 1/2 O2(g) -> CO2(g)")
+    sh.put("BB3", -282.98)
+    hess = sh.evaluate(['=RXNHESS("C(s) + 1/2 O2(g) -> CO(g)";BA1:BA3;BB1:BB3)',
+                        '=RXNHESSPLAN("C(s) + 1/2 O2(g) -> CO(g)";BA1:BA3)',
+                        '=RXNHESS("C(s) + 1/2 O2(g) -> CO(g)";BA1:BA3;BB1:BB2)',
+                        '=RXNWHY("RXNHESS";"C(s) + O2(g) -> CO(g)";BA1:BA3;BB1:BB3)'])
+    checks.ok("RXNHESS: CODATA ΔfH°(CO, g) from the two combustions",
+              hess[0].number is not None and abs(hess[0].number - (-110.53)) < 1e-9, repr(hess[0]))
+    checks.ok("RXNHESSPLAN: step numbers are the range's rows", hess[1].text == "1×(1) − 1×(3)", repr(hess[1]))
+    checks.ok("RXNHESS: ranges of different lengths are Err:502", hess[2].error == ERR_ILLEGAL_ARGUMENT,
+              repr(hess[2]))
+    checks.ok("RXNWHY of an unbalanced RXNHESS target says so", "not balanced" in hess[3].text, repr(hess[3]))
     # A column of 3 reactions with a row of 5 temperatures: the whole 3×5 table in one call.
     reactions = [CH4_COMBUSTION_GAS, "2 H2(g) + O2(g) -> 2 H2O(g)", "1/2 N2(g) + 3/2 H2(g) -> NH3(g)"]
     temperatures = [298.15, 400, "176.85 C", 500, "990 R"]  # 450 K = 176.85 °C, 550 K = 990 °R

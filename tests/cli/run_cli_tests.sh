@@ -371,7 +371,7 @@ run dh "$METHANE" -- --json
 expect_rc "-- ends options (then --json is an extra argument)" 2
 
 # The commands cli/CLI.md names as not in this version, whose functions the catalogue does not have yet.
-for cmd in tad hv duty streamh steam hess; do
+for cmd in tad hv duty streamh steam; do
     run "$cmd" "$METHANE"
     expect_rc "$cmd not in this version: exit 2" 2
     expect_err_re "$cmd not in this version: words" 'not available in this version'
@@ -526,7 +526,7 @@ cp "$TMP/out" "$TMP/functions.json"
 pycheck "functions --json: every known cell name, nothing unknown" "$TMP/functions.json" <<'PYEOF'
 import json, sys
 j = json.load(open(sys.argv[1], encoding="utf-8"))
-known = "RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNSOURCE RXNVERSION".split()
+known = "RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNHESS RXNHESSPLAN RXNSOURCE RXNVERSION".split()
 names = [f["calc_name"] for f in j["functions"]]
 assert sorted(names) == sorted(known), sorted(set(names) ^ set(known))
 for f in j["functions"]:
@@ -877,6 +877,40 @@ expect_err_re "eqx feed amount not a number: words" "amount of 'H2' must be a nu
 run eqx --help
 expect_out_re "eqx --help: feed as words or --feed" '--feed SPECIES=MOL'
 # ---- end of the eqx block ----------------------------------------------------------------------------
+# ==== hess, hess-plan: Hess's law from the user's own steps ============================================
+# CODATA Key Values (Cox et al. 1989): ΔfH°(CO2, g) = −393.51, ΔfH°(CO, g) = −110.53 kJ/mol, so
+# CO + ½ O2 → CO2 is −282.98; the target C + ½ O2 → CO is (1) − (2).
+CO_T="C(s) + 1/2 O2(g) -> CO(g)"
+S1="C(s) + O2(g) -> CO2(g)"
+S2="CO(g) + 1/2 O2(g) -> CO2(g)"
+run hess "$CO_T" --step "$S1" --dh -393.51 --step "$S2" --dh -282.98
+expect_rc "hess: exit 0" 0
+expect_close "hess: CODATA ΔfH°(CO, g)" "$(out | cut -d' ' -f1)" -110.53 1e-9
+expect_out_re "hess text: unit" '^-110\.53[0-9]* kJ/mol'
+run hess "$CO_T" --step "$S1" --dh -94.0511 --step "$S2" --dh -67.6338 -u kcal/mol --json
+expect_rc "hess kcal/mol --json" 0
+jcheck "hess --json: value, unit, steps in order" "j['function'] == 'RXNHESS' and abs(j['value'] - (-94.0511 + 67.6338)) < 1e-9 and j['unit'] == 'kcal/mol' and j['input']['steps_options'] == ['$S1', '$S2']"
+run hess-plan "$CO_T" --step "$S1" --step "$S2"
+expect_rc "hess-plan: exit 0" 0
+expect_out "hess-plan: the combination" "1×(1) − 1×(2)"
+run hess "$CO_T" --step "$S1" --dh -393.51
+expect_rc "hess, CO in no step: exit 2" 2
+expect_err_re "hess, CO in no step: words" "no combination.*'CO\(g\)'"
+run hess "$CO_T" --step "$S1" --dh -393.51 --step "$S2"
+expect_rc "hess, a step without ΔH: exit 2" 2
+expect_err_re "hess, a step without ΔH: words" "2 cells and 'step_dh' 1"
+run hess "$CO_T" --step "$S1" --dh about --step "$S2" --dh -282.98
+expect_rc "hess, ΔH not a number: exit 2" 2
+expect_err_re "hess, ΔH not a number: words" "--dh cell 1: must be a number, not 'about'"
+run hess "$CO_T" --step "$S1" --dh -393.51 --step "$S2" --dh -282.98 --step "2 CO(g) + O2(g) -> 2 CO2(g)" --dh -566
+expect_rc "hess, dependent steps that disagree: exit 2" 2
+expect_err_re "hess, dependent steps that disagree: words" 'dependent.*do not cancel'
+run hess "$CO_T"
+expect_rc "hess without steps: exit 2" 2
+expect_err_re "hess without steps: words" "^rxnheat hess: --step is required$"
+run hess --help
+expect_out_re "hess --help: --step and --dh, repeated and required" '^usage: rxnheat hess TARGET --step REACTION\.\.\. --dh DH\.\.\. \[-u UNIT\]$'
+# ---- end of the hess block ---------------------------------------------------------------------------
 # ==== ds, dg, logk: reaction entropy, Gibbs energy and equilibrium constant =========================
 AMMONIA="N2(g) + 3 H2(g) -> 2 NH3(g)"
 # log10 K at 700 K = 2 × log Kf(NH3) = 2 × (−2.029): NIST-JANAF 4th ed. (1998), from memory.

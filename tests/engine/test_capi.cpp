@@ -226,8 +226,10 @@ TEST_CASE("rxnheat_why and the function list", "[capi][why]") {
     for (const auto& f : rxnheat::catalogue())
         if (f.in(rxnheat::layer_c)) in_c.insert(f.calc_name);
     CHECK(listed == in_c);
-    // engine/FUNCTIONS.md: the 19 cell functions of today (see test_catalogue.cpp) but RXNEQX, whose
-    // feed is a range (a recorded gap of the C layer).
+    // engine/FUNCTIONS.md: the 21 cell functions of today (see test_catalogue.cpp) but RXNEQX, whose
+    // feed is a range, and RXNHESS and RXNHESSPLAN, whose steps are (recorded gaps of the C layer).
     CHECK(listed.size() == 18);
     CHECK(listed.count("RXNEQX") == 0);
+    CHECK(listed.count("RXNHESS") == 0);
+    CHECK(listed.count("RXNHESSPLAN") == 0);
 }

@@ -91,8 +91,15 @@ enum class ArgKind : unsigned char {
     text,         ///< other text (a function name)
     table,        ///< a user species table: a range whose first row names the columns
     feed,         ///< a two-column range: species, amount (mol); blank rows skipped
+    reactions,    ///< a column or row of reaction texts, kept by position (RXNHESS's steps)
+    numbers,      ///< a column or row of numbers, kept by position (RXNHESS's step values)
     rest,         ///< every argument from here on, unread (RXNWHY's "arguments…")
 };
+/// True for the kinds that read a whole one-dimensional range as a list (given on the command line
+/// as a repeated option, one value each time).
+constexpr bool is_list(ArgKind kind) noexcept {
+    return kind == ArgKind::reactions || kind == ArgKind::numbers;
+}
 /// The word used for a kind in help and docs ("reaction", "temperature", ...).
 RXNHEAT_API const char* to_string(ArgKind kind) noexcept;
 

@@ -118,6 +118,15 @@ struct FeedItem {
     double amount_mol = 0;
 };
 
+/// One known step of a Hess's-law combination (RXNHESS): its number as the user counts it (its
+/// position in the range, 1-based), the reaction, and its ΔH per mole of reaction as written in
+/// the unit given to Engine::hess().
+struct HessStep {
+    std::size_t number = 0;
+    std::string reaction;
+    double dh = 0;
+};
+
 /// The sign of ΔrH°, as RXNKIND words it.
 enum class HeatKind { exothermic, endothermic, thermoneutral };
 /// "exothermic", "endothermic", "thermoneutral".
@@ -225,6 +234,14 @@ public:
     /// for a feed without every reactant, a pressure <= 0, a K outside what a double holds.
     double eq_conversion(std::string_view reaction, const std::vector<FeedItem>& feed,
                          std::string_view key = {}, const Conditions& at = {});
+    /// Hess's law: ΔH of `target` as an exact rational combination of the steps, from the steps'
+    /// own ΔH (in `unit`, the per-mole units of dh(); empty: kJ/mol), not from the data. Species
+    /// are matched as written (formula or name, charge, phase). Throws Error(argument) when the
+    /// target is no combination of the steps, when dependent steps give two different answers,
+    /// and for one substance spelled two ways; Error(unbalanced) for an unbalanced reaction.
+    double hess(std::string_view target, const std::vector<HessStep>& steps, std::string_view unit = {});
+    /// The combination hess() uses, by step number: "1×(1) − 2×(3) + 1/2×(4)" (step values unused).
+    std::string hess_plan(std::string_view target, const std::vector<HessStep>& steps);
     /// Everything at once, for reports.
     ReactionReport report(std::string_view reaction, const Conditions& at = {});
 
