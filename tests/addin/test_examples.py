@@ -16,7 +16,12 @@ Installs the built rxnheat.oxt into a private profile, opens each workbook, reca
   and `rxnheat dh` (in K), the phases written and the note on them, the chart (XY scatter, one
   series per reaction over the temperature row, °C axis), an edited temperature followed, an
   out-of-range temperature giving an error in its column only;
-- all three: the stored numbers are the ones the engine computes now (else: run
+- Hess's-law worksheet: each target's RXNHESS and RXNHESSPLAN against `rxnheat hess` and
+  `rxnheat hess-plan` on the sheet's own steps, the plans against the algebra done by hand,
+  the step values against CODATA Key Values, RXNDH beside them against `rxnheat dh`, the two
+  within 0.05 kJ/mol (NASA Glenn takes these species from CODATA), an edited step followed and
+  an inconsistent redundant step refused with words in the status cell;
+- all of them: the stored numbers are the ones the engine computes now (else: run
   scripts/make-examples), the add-in calls are stored the way LibreOffice stores them, the
   invented plant and the cautions are on the sheet.
 
@@ -43,6 +48,7 @@ TOP = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))
 COSTING = "heat-load-costing.fods"
 OPERATOR = "operator-template.fods"
 DESIGN = "design-dh-vs-temperature.fods"
+HESS = "hess-law-worksheet.fods"
 
 # Molar gas constant, CODATA 2018 (exact in the 2019 SI): 8.31446261815324 J/(mol K).
 R = 8.31446261815324
@@ -545,6 +551,86 @@ def check_design(checks, office, path, cli):
         doc.close(True)
 
 
+# ------------------------------------------------------------------------------------------
+def check_hess(checks, office, path, cli):
+    name = "hess"
+    doc = office.load(path)
+    try:
+        sheet = doc.Sheets.getByName("Hess")
+        steps = rng(doc, "HessSteps")
+        values = rng(doc, "HessStepValues")
+        targets = rng(doc, "HessTargets")
+        results = rng(doc, "HessResults")
+        doc.calculateAll()
+        step_rows = [(steps.getCellByPosition(0, i).getString(),
+                      values.getCellByPosition(0, i)) for i in range(steps.Rows.Count)]
+        given = [(r, v.getValue()) for r, v in step_rows if r.strip()]
+        # The step values: CODATA Key Values (Cox et al. 1989), ΔfH° at 298.15 K of CO2(g)
+        # −393.51, CO(g) −110.53, H2O(g) −241.826, H2O(l) −285.830 kJ/mol, combined by hand.
+        codata = {"C(s) + O2(g) -> CO2(g)": -393.51,
+                  "CO(g) + 1/2 O2(g) -> CO2(g)": -393.51 + 110.53,
+                  "H2(g) + 1/2 O2(g) -> H2O(g)": -241.826,
+                  "H2O(l) -> H2O(g)": -241.826 + 285.830}
+        checks.ok("hess: the four steps carry the CODATA values",
+                  len(given) == 4 and all(abs(codata.get(r, 1e9) - v) < 1e-9 for r, v in given),
+                  repr(given))
+        # Plans by hand (Hess's law, common practice) and the values they give.
+        by_hand = {
+            "C(s) + 1/2 O2(g) -> CO(g)": ("1×(1) − 1×(2)", -110.53),
+            "CO(g) + H2O(g) -> CO2(g) + H2(g)": ("1×(2) − 1×(3)", -282.98 + 241.826),
+            "C(s) + H2O(g) -> CO(g) + H2(g)": ("1×(1) − 1×(2) − 1×(3)", -393.51 + 282.98 + 241.826),
+            "CO(g) + H2O(l) -> CO2(g) + H2(g)": ("1×(2) − 1×(3) + 1×(4)", -282.98 + 241.826 + 44.004),
+        }
+        formula_cells = []
+        for i in range(targets.Rows.Count):
+            target = targets.getCellByPosition(0, i).getString()
+            dh, plan, data, diff, status = (results.getCellByPosition(c, i) for c in range(5))
+            formula_cells += [dh, plan, data, diff, status]
+            want_plan, want = by_hand[target]
+            checks.ok("hess %s: RXNHESSPLAN by hand" % target, plan.getString() == want_plan,
+                      plan.getString())
+            checks.ok("hess %s: RXNHESS by hand" % target,
+                      cell_number(dh) is not None and abs(dh.getValue() - want) < 1e-9,
+                      dh.getString())
+            checks.ok("hess %s: status ok" % target, status.getString() == "ok", status.getString())
+            if cli:
+                argv = [target]
+                for r, v in given:
+                    argv += ["--step", r, "--dh", repr(v)]
+                checks.ok("hess %s: the CLI's hess" % target,
+                          abs(cli.value("hess", *argv) - dh.getValue()) < 1e-9)
+                plan_argv = [target] + [w for r, _ in given for w in ("--step", r)]
+                checks.ok("hess %s: the CLI's hess-plan" % target,
+                          cli.text("hess-plan", *plan_argv) == plan.getString())
+                checks.ok("hess %s: RXNDH is the CLI's dh" % target,
+                          abs(cli.value("dh", target) - data.getValue()) < 1e-9)
+            # NASA Glenn's records of these species carry the CODATA values (NASA/TP-2002-211556
+            # cites them), so the two routes agree closely.
+            checks.ok("hess %s: steps and data within 0.05 kJ/mol" % target,
+                      cell_number(diff) is not None and abs(diff.getValue()) < 0.05, diff.getString())
+        check_common(checks, name, path, doc, sheet, formula_cells)
+
+        # An edited step value is followed; a redundant step that disagrees is refused in words.
+        co_step = values.getCellByPosition(0, 1)
+        first_dh = results.getCellByPosition(0, 0)
+        co_step.setValue(-283.0)
+        doc.calculateAll()
+        checks.ok("hess: an edited step value is followed",
+                  cell_number(first_dh) is not None and abs(first_dh.getValue() - (-393.51 + 283.0)) < 1e-9,
+                  first_dh.getString())
+        co_step.setValue(-282.98)
+        steps.getCellByPosition(0, 4).setString("2 CO(g) + O2(g) -> 2 CO2(g)")
+        values.getCellByPosition(0, 4).setValue(-566.0)
+        doc.calculateAll()
+        first_status = results.getCellByPosition(4, 0)
+        checks.ok("hess: inconsistent dependent steps give Err:502", first_dh.getError() == ERR_ILLEGAL_ARGUMENT,
+                  first_dh.getString())
+        checks.ok("hess: the status says why", "do not cancel" in first_status.getString(),
+                  first_status.getString())
+    finally:
+        doc.close(True)
+
+
 def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--oxt", required=True)
@@ -572,7 +658,8 @@ def main():
         off = officelib.Office(workdir, "examples").start()
         for name, fn, check in ((COSTING, "costing", check_costing),
                                 (OPERATOR, "operator", check_operator),
-                                (DESIGN, "design", check_design)):
+                                (DESIGN, "design", check_design),
+                                (HESS, "hess", check_hess)):
             path = os.path.join(args.examples, name)
             if not checks.ok("%s exists" % name, os.path.exists(path)):
                 continue
