@@ -3,6 +3,7 @@
 #include "rxnheat/catalogue.hpp"
 
 #include "reaction.hpp"
+#include "steam.hpp"
 #include "units.hpp"
 
 #include <cerrno>
@@ -77,6 +78,17 @@ constexpr const char* species_help =
     "Thermal runaway and relief sizing need calorimetry and a process hazard analysis; defer to "  \
     "local codes and licensed engineers."
 
+// The steam functions (IAPWS-IF97): what is implemented, said once for their descriptions.
+#define RXNHEAT_STEAM_SCOPE                                                                        \
+    " IAPWS-IF97 (the IAPWS R7-97(2012) release): regions 1 (compressed liquid), 2 (vapour) and 4 " \
+    "(saturation) are implemented; a state in region 3 (near the critical point), in region 5 (above " \
+    "1073.15 K) or outside IF97 (below 273.15 K, above 1000 bar) is an error that names it, never an "  \
+    "extrapolation. These are properties of real water and steam, not ideal-gas data."
+constexpr const char* steam_pressure_help =
+    "Pressure: a number in bar (absolute), or text with a unit such as \"10 bar\", \"1 MPa\", \"1000 kPa\", "
+    "\"1 atm\", \"150 psia\", or gauge \"9 barg\", \"135 psig\" (over 101.325 kPa). A range gives an array "
+    "of the same shape.";
+
 // Argument rows used by several functions.
 ArgSpec reaction_arg() { return {"reaction", ArgKind::reaction, true, "", reaction_help, true, nullptr, "REACTION"}; }
 ArgSpec temperature_arg() {
@@ -136,6 +148,17 @@ Outcome eqx_call(Engine& e, const Bound& b) {
     const std::string key(b.text(4));
     return Outcome::of(e.eq_conversion(b.text(0), b.feed, key, b.at));
 }
+Outcome steam_tsat_call(Engine&, const Bound& b) { return Outcome::of(Engine::steam_tsat(b.number(0)), "K"); }
+Outcome steam_psat_call(Engine&, const Bound& b) { return Outcome::of(Engine::steam_psat(b.number(0)), "bar"); }
+Outcome steam_h_call(Engine&, const Bound& b) {
+    // With a state the temperature is not used (the saturated state is fixed by the pressure).
+    if (b.given(2)) return Outcome::of(Engine::steam_h(b.number(0), steam::parse_saturated_state(b.text(2))), "kJ/kg");
+    if (!b.given(1))
+        throw Error(ErrorKind::argument, "give a temperature, or the state \"liquid\" or \"vapour\" for the saturated "
+                                         "liquid or vapour at the pressure");
+    return Outcome::of(Engine::steam_h(b.number(0), b.number(1)), "kJ/kg");
+}
+Outcome steam_latent_call(Engine&, const Bound& b) { return Outcome::of(Engine::steam_latent(b.number(0)), "kJ/kg"); }
 Outcome source_call(Engine& e, const Bound& b) { return Outcome::of_text(e.source(b.text(0), b.at)); }
 Outcome version_call(Engine&, const Bound& b) {
     return Outcome::of_text(std::string("rxnheat ") + b.rules->host_name + " " + RXNHEAT_VERSION + "; engine " +
@@ -301,6 +324,41 @@ std::vector<FunctionSpec> make_catalogue() {
          "C: the feed is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
          "Engine::eq_conversion.",
          false, eqx_call},
+        {"STEAMTSAT", "steamTsat", "steam tsat", "saturation temperature of water at a pressure, IAPWS-IF97",
+         "Saturation (boiling) temperature of water in K at the pressure, from the saturation-temperature "
+         "equation of IAPWS-IF97 region 4, from 611.213 Pa (saturation at 273.15 K) to the critical point "
+         "(220.64 bar, 647.096 K)." RXNHEAT_STEAM_SCOPE,
+         {{"pressure", ArgKind::pressure, true, "", steam_pressure_help, true, nullptr, "PRESSURE"}}, Returns::number,
+         layer_all, none, false, steam_tsat_call},
+        {"STEAMPSAT", "steamPsat", "steam psat", "saturation pressure of water at a temperature, IAPWS-IF97",
+         "Saturation (vapour) pressure of water in bar absolute at the temperature, from the saturation-pressure "
+         "equation of IAPWS-IF97 region 4, from 273.15 K to the critical point (647.096 K, 220.64 bar)."
+         RXNHEAT_STEAM_SCOPE,
+         {temperature_required_arg()}, Returns::number, layer_all, none, false, steam_psat_call},
+        {"STEAMH", "steamH", "steam h", "specific enthalpy of water or steam, IAPWS-IF97",
+         "Specific enthalpy of water or steam in kJ/kg: compressed liquid (IAPWS-IF97 region 1) or superheated "
+         "vapour (region 2) at the pressure and temperature; with state \"liquid\" or \"vapour\", the saturated "
+         "liquid or vapour at the pressure (region 4; the temperature is then not used). Reference state of "
+         "IAPWS-IF97 and of steam tables: internal energy and entropy zero for the saturated liquid at the triple "
+         "point (273.16 K, 611.657 Pa); not the formation basis of STREAMH and SPECIESH. A state on the "
+         "saturation line needs the state." RXNHEAT_STEAM_SCOPE,
+         {{"pressure", ArgKind::pressure, true, "", steam_pressure_help, true, nullptr, "PRESSURE"},
+          {"temperature", ArgKind::temperature, false, "",
+           "Temperature: a number in kelvin, or text with a unit such as \"250 C\", \"482 F\", \"523.15 K\". "
+           "Required unless the state is given. A range gives an array of the same shape.",
+           true, "-T,--temperature", "TEMP"},
+          {"state", ArgKind::text, false, "",
+           "\"liquid\" or \"vapour\": the saturated liquid or vapour at the pressure (the temperature is then not "
+           "used). Omitted, empty or blank: the compressed liquid or superheated vapour at the temperature.",
+           false, "--state", "STATE"}},
+         Returns::number, layer_all, none, false, steam_h_call},
+        {"STEAMLATENT", "steamLatent", "steam latent", "latent heat of vaporisation of water at a pressure, IAPWS-IF97",
+         "Latent heat of vaporisation of water in kJ/kg at the pressure: the enthalpy of the saturated vapour "
+         "(IAPWS-IF97 region 2) minus that of the saturated liquid (region 1) at the saturation temperature "
+         "(region 4), from 611.213 Pa to 165.29 bar (saturation at 623.15 K; above it the saturated states lie in "
+         "region 3). The heat given up by 1 kg of steam condensing at that pressure." RXNHEAT_STEAM_SCOPE,
+         {{"pressure", ArgKind::pressure, true, "", steam_pressure_help, true, nullptr, "PRESSURE"}}, Returns::number,
+         layer_all, none, false, steam_latent_call},
         {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
          "Text naming where every number used for the reaction or species came from: the data set, its record "
          "and its publication, and the phase used at the temperature.",
