@@ -21,22 +21,23 @@ inline constexpr double R_kJ_per_kgK = 0.461526;
 inline constexpr double T_critical_K = 647.096;
 inline constexpr double p_critical_MPa = 22.064;
 /// Limits of regions 1, 2 and 4 (release, section 4 and figure 1).
-inline constexpr double T_min_K = 273.15;        ///< lower limit of IF97
-inline constexpr double T_13_K = 623.15;         ///< regions 1 and 3 meet here; region 4 beside region 1 and 2 ends here
-inline constexpr double T_B23_max_K = 863.15;    ///< above it region 2 reaches 100 MPa
+inline constexpr double T_min_K = 273.15;  ///< lower limit of IF97
+inline constexpr double T_13_K =
+    623.15;  ///< regions 1 and 3 meet here; region 4 beside region 1 and 2 ends here
+inline constexpr double T_B23_max_K = 863.15;       ///< above it region 2 reaches 100 MPa
 inline constexpr double T_region2_max_K = 1073.15;  ///< above it: region 5
 inline constexpr double T_region5_max_K = 2273.15;
-inline constexpr double p_max_MPa = 100.0;       ///< regions 1, 2, 3
+inline constexpr double p_max_MPa = 100.0;  ///< regions 1, 2, 3
 inline constexpr double p_region5_max_MPa = 50.0;
 
 /// Properties of one state from a fundamental equation (region 1 or 2), the release's units.
 struct State {
-    double v_m3_per_kg = 0;   ///< specific volume
-    double h_kJ_per_kg = 0;   ///< specific enthalpy
-    double u_kJ_per_kg = 0;   ///< specific internal energy
-    double s_kJ_per_kgK = 0;  ///< specific entropy
-    double cp_kJ_per_kgK = 0; ///< specific isobaric heat capacity
-    double w_m_per_s = 0;     ///< speed of sound
+    double v_m3_per_kg = 0;    ///< specific volume
+    double h_kJ_per_kg = 0;    ///< specific enthalpy
+    double u_kJ_per_kg = 0;    ///< specific internal energy
+    double s_kJ_per_kgK = 0;   ///< specific entropy
+    double cp_kJ_per_kgK = 0;  ///< specific isobaric heat capacity
+    double w_m_per_s = 0;      ///< speed of sound
 };
 
 /// Region 1, the Gibbs equation (release, eq. 7, table 2), at any (p, T): no range check.

@@ -47,7 +47,8 @@ struct TableRow {
 };
 
 void check_row(const steam::State& st, const TableRow& r, const std::string& table) {
-    const std::string at = table + " T = " + std::to_string(r.T_K) + " K, p = " + std::to_string(r.p_MPa) + " MPa: ";
+    const std::string at =
+        table + " T = " + std::to_string(r.T_K) + " K, p = " + std::to_string(r.p_MPa) + " MPa: ";
     check_printed(st.v_m3_per_kg, r.v, (at + "v").c_str());
     check_printed(st.h_kJ_per_kg, r.h, (at + "h").c_str());
     check_printed(st.u_kJ_per_kg, r.u, (at + "u").c_str());
@@ -58,7 +59,8 @@ void check_row(const steam::State& st, const TableRow& r, const std::string& tab
 
 const rxnheat::HostRules calc{true, false, "Calc add-in"};
 
-rxnheat::Outcome call(const char* name, const std::vector<Arg>& args, const rxnheat::HostRules& rules = calc) {
+rxnheat::Outcome call(const char* name, const std::vector<Arg>& args,
+                      const rxnheat::HostRules& rules = calc) {
     const rxnheat::FunctionSpec* f = rxnheat::find_function(name);
     REQUIRE(f != nullptr);
     const rxnheat::Result r = rxnheat::evaluate(*f, args, rules);
@@ -81,9 +83,12 @@ void check_error(const rxnheat::Outcome& o, ErrorKind kind, const std::string& p
 TEST_CASE("IAPWS-IF97 Table 5: region 1 verification values", "[steam][if97]") {
     // IAPWS R7-97(2012), Table 5: v (m³/kg), h, u (kJ/kg), s, cp (kJ/(kg·K)), w (m/s).
     const TableRow rows[] = {
-        {300, 3, "0.100215168e-2", "0.115331273e3", "0.112324818e3", "0.392294792", "0.417301218e1", "0.150773921e4"},
-        {300, 80, "0.971180894e-3", "0.184142828e3", "0.106448356e3", "0.368563852", "0.401008987e1", "0.163469054e4"},
-        {500, 3, "0.120241800e-2", "0.975542239e3", "0.971934985e3", "0.258041912e1", "0.465580682e1", "0.124071337e4"},
+        {300, 3, "0.100215168e-2", "0.115331273e3", "0.112324818e3", "0.392294792", "0.417301218e1",
+         "0.150773921e4"},
+        {300, 80, "0.971180894e-3", "0.184142828e3", "0.106448356e3", "0.368563852", "0.401008987e1",
+         "0.163469054e4"},
+        {500, 3, "0.120241800e-2", "0.975542239e3", "0.971934985e3", "0.258041912e1", "0.465580682e1",
+         "0.124071337e4"},
     };
     for (const auto& r : rows) check_row(steam::region1(r.p_MPa, r.T_K), r, "IF97 Table 5");
 }
@@ -91,9 +96,12 @@ TEST_CASE("IAPWS-IF97 Table 5: region 1 verification values", "[steam][if97]") {
 TEST_CASE("IAPWS-IF97 Table 15: region 2 verification values", "[steam][if97]") {
     // IAPWS R7-97(2012), Table 15.
     const TableRow rows[] = {
-        {300, 0.0035, "0.394913866e2", "0.254991145e4", "0.241169160e4", "0.852238967e1", "0.191300162e1", "0.427920172e3"},
-        {700, 0.0035, "0.923015898e2", "0.333568375e4", "0.301262819e4", "0.101749996e2", "0.208141274e1", "0.644289068e3"},
-        {700, 30, "0.542946619e-2", "0.263149474e4", "0.246861076e4", "0.517540298e1", "0.103505092e2", "0.480386523e3"},
+        {300, 0.0035, "0.394913866e2", "0.254991145e4", "0.241169160e4", "0.852238967e1", "0.191300162e1",
+         "0.427920172e3"},
+        {700, 0.0035, "0.923015898e2", "0.333568375e4", "0.301262819e4", "0.101749996e2", "0.208141274e1",
+         "0.644289068e3"},
+        {700, 30, "0.542946619e-2", "0.263149474e4", "0.246861076e4", "0.517540298e1", "0.103505092e2",
+         "0.480386523e3"},
     };
     for (const auto& r : rows) check_row(steam::region2(r.p_MPa, r.T_K), r, "IF97 Table 15");
 }
@@ -112,7 +120,8 @@ TEST_CASE("IAPWS-IF97 Tables 35 and 36: region 4 verification values", "[steam][
     check_printed(Engine::steam_tsat(10), "0.453035632e3", "IF97 Table 36 via Engine::steam_tsat");
     // Section 4, the B23 check point: T = 623.15 K <-> p = 16.5291643 MPa (eqs. 5 and 6).
     check_printed(steam::b23_pressure_MPa(623.15), "0.165291643e2", "IF97 section 4 B23 p(623.15 K)");
-    check_printed(steam::b23_temperature_K(16.5291643), "0.623150000e3", "IF97 section 4 B23 T(16.5291643 MPa)");
+    check_printed(steam::b23_temperature_K(16.5291643), "0.623150000e3",
+                  "IF97 section 4 B23 T(16.5291643 MPa)");
 }
 
 TEST_CASE("IAPWS-IF97 reference state: u and s zero for the triple-point liquid", "[steam][if97]") {
@@ -191,7 +200,8 @@ TEST_CASE("steam functions through the catalogue: units and spot values", "[stea
 TEST_CASE("steam: a column of pressures with a row of temperatures gives the table", "[steam][catalogue]") {
     const Arg pressures = Arg::range(2, 1, {rxnheat::Cell::of(30.0), rxnheat::Cell::of(0.035)});
     const Arg temperatures = Arg::range(1, 2, {rxnheat::Cell::of(300.0), rxnheat::Cell::of(700.0)});
-    const rxnheat::Result r = rxnheat::evaluate(*rxnheat::find_function("STEAMH"), {pressures, temperatures}, calc);
+    const rxnheat::Result r =
+        rxnheat::evaluate(*rxnheat::find_function("STEAMH"), {pressures, temperatures}, calc);
     REQUIRE(r.is_array());
     REQUIRE(r.rows == 2);
     REQUIRE(r.cols == 2);
@@ -217,7 +227,8 @@ TEST_CASE("steam: errors in words outside regions 1, 2 and 4", "[steam][errors]"
                 "saturation line");
     // Saturated states in region 3 (above 623.15 K, 165.29 bar).
     check_error(call("STEAMLATENT", {text("200 bar")}), ErrorKind::out_of_range, "region 3");
-    check_error(call("STEAMH", {text("200 bar"), Arg::omitted(), text("liquid")}), ErrorKind::out_of_range, "region 3");
+    check_error(call("STEAMH", {text("200 bar"), Arg::omitted(), text("liquid")}), ErrorKind::out_of_range,
+                "region 3");
     CHECK(call("STEAMLATENT", {text("165 bar")}).ok());
     // No saturation above the critical point, none below 273.15 K.
     check_error(call("STEAMTSAT", {text("250 bar")}), ErrorKind::out_of_range, "critical");
@@ -240,9 +251,12 @@ TEST_CASE("steam: errors in words outside regions 1, 2 and 4", "[steam][errors]"
     const auto nan = attempt([] { return Engine::steam_h(10, std::nan("")); });
     CHECK(nan.engine_error);
     // State texts other than liquid and vapour.
-    check_error(call("STEAMH", {text("10 bar"), Arg::omitted(), text("gas")}), ErrorKind::argument, "'state'");
-    check_error(call("STEAMH", {text("10 bar"), Arg::omitted(), text("vapor")}), ErrorKind::argument, "vapour");
-    check_error(call("STEAMH", {text("10 bar"), Arg::omitted(), text("saturated")}), ErrorKind::argument, "liquid");
+    check_error(call("STEAMH", {text("10 bar"), Arg::omitted(), text("gas")}), ErrorKind::argument,
+                "'state'");
+    check_error(call("STEAMH", {text("10 bar"), Arg::omitted(), text("vapor")}), ErrorKind::argument,
+                "vapour");
+    check_error(call("STEAMH", {text("10 bar"), Arg::omitted(), text("saturated")}), ErrorKind::argument,
+                "liquid");
     check_error(call("STEAMH", {text("10 bar"), Arg::omitted(), num(1)}), ErrorKind::argument, "text");
     // Neither a temperature nor a state.
     check_error(call("STEAMH", {text("10 bar")}), ErrorKind::argument, "give a temperature");
