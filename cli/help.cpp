@@ -205,7 +205,9 @@ std::string global_help() {
         "\n"
         "Results are standard-state, ideal-gas, complete-conversion estimates for screening.\n"
         "Thermal runaway and relief sizing need calorimetry and a process hazard analysis;\n"
-        "follow local codes and the judgement of licensed engineers.\n";
+        "follow local codes and the judgement of licensed engineers.\n"
+        "The steam commands are the exception to ideal gas: IAPWS-IF97 properties of real water\n"
+        "and steam (regions 1, 2 and 4; an error, never an extrapolation, elsewhere).\n";
     return out;
 }
 
