@@ -190,9 +190,11 @@ std::string input_json(const Call& c) {
     return j.text();
 }
 
-bool takes_temperature(const FunctionSpec& f) {
-    for (const auto& a : f.args)
-        if (std::string_view(a.name) == "temperature") return true;
+/// Whether the function takes a temperature and this call has one: given, or its default (an
+/// optional temperature without a default, STEAMH's, is not reported when not given).
+bool has_temperature(const Call& c) {
+    for (const auto& a : c.f.args)
+        if (std::string_view(a.name) == "temperature") return *a.default_text || !c.given("temperature").empty();
     return false;
 }
 
@@ -215,7 +217,7 @@ int present_generic(Call& c) {
         j.str("result", plain);
     }
     j.str("function", c.f.calc_name);
-    if (takes_temperature(c.f)) j.num("temperature_K", c.temperature_K());
+    if (has_temperature(c)) j.num("temperature_K", c.temperature_K());
     j.raw("input", input_json(c));
     c.out.result(plain, j);
     return status;
@@ -281,6 +283,13 @@ const CommandEntry entries[] = {
     {"molarmass", nullptr, {"", nullptr, "rxnheat molarmass \"CuSO4·5H2O\"\n"}},
     {"cp", nullptr, {"", nullptr, "rxnheat cp \"CO2(g)\" \"500 C\"\n"}},
     {"sensible", nullptr, {"", nullptr, "rxnheat sensible \"N2(g)\" 1000 --tref \"25 C\"\n"}},
+    {"steam tsat", nullptr, {"", nullptr, "rxnheat steam tsat \"10 bar\"\nrxnheat steam tsat \"150 psig\"\n"}},
+    {"steam psat", nullptr, {"", nullptr, "rxnheat steam psat \"250 C\"\n"}},
+    {"steam h", nullptr,
+     {"", nullptr,
+      "rxnheat steam h \"40 bar\" -T \"400 C\"\nrxnheat steam h \"10 bar\" --state vapour\n"
+      "rxnheat steam h \"10 bar\" --state liquid --json\n"}},
+    {"steam latent", nullptr, {"", nullptr, "rxnheat steam latent \"10 bar\"\n"}},
     {"species", nullptr,
      {"Prints a card for one species (a formula with its phase, or a name such as ethanol), under four "
       "headings: Species (as resolved, and its molar mass); At 298.15 K (ΔfH°); At T (Cp°, the sensible heat "
@@ -516,13 +525,13 @@ int run_functions(Output& out) {
     if (!out.json()) {
         std::string text;
         char buf[96];
-        std::snprintf(buf, sizeof buf, "%-12s %-10s %-11s %s\n", "function", "command", "layers", "summary");
+        std::snprintf(buf, sizeof buf, "%-12s %-12s %-11s %s\n", "function", "command", "layers", "summary");
         text += buf;
         for (const auto& f : catalogue()) {
             std::string layers;
             for (const auto& l : layer_names(f)) layers += (layers.empty() ? "" : ",") + l;
             const bool has_command = f.in(layer_cli) && f.cli_command && *f.cli_command;
-            std::snprintf(buf, sizeof buf, "%-12s %-10s %-11s ", f.calc_name, has_command ? f.cli_command : "-",
+            std::snprintf(buf, sizeof buf, "%-12s %-12s %-11s ", f.calc_name, has_command ? f.cli_command : "-",
                           layers.c_str());
             text += buf + std::string(f.summary) + "\n";
         }

@@ -4,6 +4,7 @@
 
 #include "commands.hpp"
 
+#include <algorithm>
 #include <cstdio>
 #include <string_view>
 
@@ -150,6 +151,12 @@ std::string command_help(const CommandDef& cmd) {
     return out;
 }
 
+std::string group_help(const std::string& group) {
+    std::string out = "usage: rxnheat " + group + " COMMAND ARGUMENTS [OPTIONS]\n\nCommands:\n";
+    for (const CommandDef* c : group_members(group)) out += item(c->name, c->summary);
+    return out + "\nrun 'rxnheat " + group + " COMMAND --help' for each command's arguments\n";
+}
+
 std::string global_help() {
     std::string out =
         "rxnheat: standard reaction enthalpies from reaction text, on the rxnheat engine.\n"
@@ -158,16 +165,18 @@ std::string global_help() {
         "       rxnheat help [COMMAND]    rxnheat COMMAND --help    rxnheat --version\n"
         "\n"
         "Commands:\n";
+    int name_width = 11;  // the longest name and a space ("steam latent" is longer than most)
+    for (const auto& c : commands()) name_width = std::max(name_width, static_cast<int>(c.name.size()) + 1);
     for (const auto& c : commands()) {
         char buf[64];
-        std::snprintf(buf, sizeof buf, "  %-11s", c.name.c_str());
+        std::snprintf(buf, sizeof buf, "  %-*s", name_width, c.name.c_str());
         out += buf + c.summary + "\n";
     }
     if (!planned_commands().empty()) {
         out += "\nNot in this version (planned for a later one; naming one is an error, exit status 2):\n";
         for (const auto& m : planned_commands()) {
             char buf[64];
-            std::snprintf(buf, sizeof buf, "  %-11s", m.name);
+            std::snprintf(buf, sizeof buf, "  %-*s", name_width, m.name);
             out += buf + std::string(m.what) + "\n";
         }
     }
@@ -196,7 +205,9 @@ std::string global_help() {
         "\n"
         "Results are standard-state, ideal-gas, complete-conversion estimates for screening.\n"
         "Thermal runaway and relief sizing need calorimetry and a process hazard analysis;\n"
-        "follow local codes and the judgement of licensed engineers.\n";
+        "follow local codes and the judgement of licensed engineers.\n"
+        "The steam commands are the exception to ideal gas: IAPWS-IF97 properties of real water\n"
+        "and steam (regions 1, 2 and 4; an error, never an extrapolation, elsewhere).\n";
     return out;
 }
 

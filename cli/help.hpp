@@ -13,5 +13,7 @@ std::string usage_line(const CommandDef& cmd);
 std::string command_help(const CommandDef& cmd);
 /// `rxnheat --help`.
 std::string global_help();
+/// `rxnheat steam --help`: the commands of a group (options.hpp, group_members), one line each.
+std::string group_help(const std::string& group);
 
 }  // namespace rxnheat::cli

@@ -8,6 +8,7 @@
 
 #include "rxnheat/rxnheat.hpp"
 
+#include <cstddef>
 #include <cstdio>
 #include <exception>
 #include <new>
@@ -27,16 +28,33 @@ void write_help(const Output& out, const std::string& text) {
     out.write(out.json() ? JsonObject().str("help", text).text() + "\n" : text);
 }
 
+/// A group named without a command of it ("rxnheat steam", "rxnheat steam frobnicate").
+[[noreturn]] void group_error(const std::vector<std::string>& words) {
+    std::string names;
+    for (const CommandDef* c : group_members(words[0])) names += (names.empty() ? "" : ", ") + c->name;
+    throw UsageError((words.size() > 1 ? "unknown command '" + words[0] + " " + words[1] + "'"
+                                       : "'" + words[0] + "' needs one of its commands") +
+                     "; the '" + words[0] + "' commands are " + names);
+}
+
 /// Runs the command line `words` (--json already taken out); `cmd` is set once the command is known.
 int run(const std::vector<std::string>& words, Output& out, const CommandDef*& cmd) {
     if (words.empty()) throw UsageError("no command given");
     const std::string& name = words[0];
     if (name == "--help" || name == "-h" || name == "help") {
         if (name == "help" && words.size() > 1) {
-            const std::string& topic = words[1];
-            if (const PlannedCommand* m = find_planned(topic)) planned_error(*m);
-            cmd = find_command(topic);
-            if (!cmd) throw UsageError("unknown command '" + topic + "'");
+            const std::vector<std::string> topic(words.begin() + 1, words.end());
+            if (const PlannedCommand* m = find_planned(topic[0])) planned_error(*m);
+            std::size_t name_words = 1;
+            cmd = command_named_by(topic, name_words);
+            if (!cmd && !group_members(topic[0]).empty()) {
+                if (topic.size() == 1) {
+                    write_help(out, group_help(topic[0]));
+                    return exit_ok;
+                }
+                group_error(topic);
+            }
+            if (!cmd) throw UsageError("unknown command '" + topic[0] + "'");
             write_help(out, command_help(*cmd));
             return exit_ok;
         }
@@ -49,12 +67,20 @@ int run(const std::vector<std::string>& words, Output& out, const CommandDef*& c
         return exit_ok;
     }
     if (const PlannedCommand* m = find_planned(name)) planned_error(*m);
-    cmd = find_command(name);
+    std::size_t name_words = 1;
+    cmd = command_named_by(words, name_words);
+    if (!cmd && !group_members(name).empty()) {
+        if (words.size() > 1 && (words[1] == "--help" || words[1] == "-h")) {
+            write_help(out, group_help(name));
+            return exit_ok;
+        }
+        group_error(words);
+    }
     if (!cmd) {
         if (!name.empty() && name[0] == '-') throw UsageError("unknown option '" + name + "' (give the command first)");
         throw UsageError("unknown command '" + name + "'");
     }
-    const Parsed p = parse(*cmd, std::vector<std::string>(words.begin() + 1, words.end()));
+    const Parsed p = parse(*cmd, std::vector<std::string>(words.begin() + static_cast<std::ptrdiff_t>(name_words), words.end()));
     if (p.help) {
         write_help(out, command_help(*cmd));
         return exit_ok;

@@ -59,6 +59,13 @@ struct CommandDef {
 /// Every command: the catalogue's (layer_cli), in catalogue order, then species, batch, functions.
 const std::vector<CommandDef>& commands();
 const CommandDef* find_command(std::string_view name);
+/// A command name of two words ("steam tsat": a catalogue row's cli_command) puts the command in
+/// the group named by its first word; `rxnheat steam tsat 10bar` runs it. The members of a group,
+/// in catalogue order; empty when `group` names no group.
+std::vector<const CommandDef*> group_members(std::string_view group);
+/// The command named by the first words of a command line ("dh ..." or "steam tsat ..."), and
+/// how many words its name takes (1 or 2); nullptr when they name no command.
+const CommandDef* command_named_by(const std::vector<std::string>& words, std::size_t& name_words);
 
 /// A command the specification plans but this version (its catalogue) does not have.
 struct PlannedCommand {

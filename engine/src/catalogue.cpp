@@ -3,6 +3,7 @@
 #include "rxnheat/catalogue.hpp"
 
 #include "reaction.hpp"
+#include "steam.hpp"
 #include "units.hpp"
 
 #include <cerrno>
@@ -78,6 +79,17 @@ constexpr const char* species_help =
     "Thermal runaway and relief sizing need calorimetry and a process hazard analysis; defer to "  \
     "local codes and licensed engineers."
 
+// The steam functions (IAPWS-IF97): what is implemented, said once for their descriptions.
+#define RXNHEAT_STEAM_SCOPE                                                                        \
+    " IAPWS-IF97 (the IAPWS R7-97(2012) release): regions 1 (compressed liquid), 2 (vapour) and 4 " \
+    "(saturation) are implemented; a state in region 3 (near the critical point), in region 5 (above " \
+    "1073.15 K) or outside IF97 (below 273.15 K, above 1000 bar) is an error that names it, never an "  \
+    "extrapolation. These are properties of real water and steam, not ideal-gas data."
+constexpr const char* steam_pressure_help =
+    "Pressure: a number in bar (absolute), or text with a unit such as \"10 bar\", \"1 MPa\", \"1000 kPa\", "
+    "\"1 atm\", \"150 psia\", or gauge \"9 barg\", \"135 psig\" (over 101.325 kPa). A range gives an array "
+    "of the same shape.";
+
 // Argument rows used by several functions.
 ArgSpec reaction_arg() { return {"reaction", ArgKind::reaction, true, "", reaction_help, true, nullptr, "REACTION"}; }
 ArgSpec temperature_arg() {
@@ -137,6 +149,17 @@ Outcome eqx_call(Engine& e, const Bound& b) {
     const std::string key(b.text(4));
     return Outcome::of(e.eq_conversion(b.text(0), b.feed, key, b.at));
 }
+Outcome steam_tsat_call(Engine&, const Bound& b) { return Outcome::of(Engine::steam_tsat(b.number(0)), "K"); }
+Outcome steam_psat_call(Engine&, const Bound& b) { return Outcome::of(Engine::steam_psat(b.number(0)), "bar"); }
+Outcome steam_h_call(Engine&, const Bound& b) {
+    // With a state the temperature is not used (the saturated state is fixed by the pressure).
+    if (b.given(2)) return Outcome::of(Engine::steam_h(b.number(0), steam::parse_saturated_state(b.text(2))), "kJ/kg");
+    if (!b.given(1))
+        throw Error(ErrorKind::argument, "give a temperature, or the state \"liquid\" or \"vapour\" for the saturated "
+                                         "liquid or vapour at the pressure");
+    return Outcome::of(Engine::steam_h(b.number(0), b.number(1)), "kJ/kg");
+}
+Outcome steam_latent_call(Engine&, const Bound& b) { return Outcome::of(Engine::steam_latent(b.number(0)), "kJ/kg"); }
 /// RXNHESS's steps and their values, paired by position; a position blank in both is skipped.
 std::vector<HessStep> hess_steps(const Bound& b, bool with_values) {
     const auto& steps = b.values[1].items;
@@ -179,102 +202,52 @@ Outcome why_call(Engine& e, const Bound& b);
 std::vector<FunctionSpec> make_catalogue() {
     const char* none = "";
     return {
-        {"RXNDH",
-         "rxnDH",
-         "dh",
-         "standard reaction enthalpy ΔrH° of the reaction as written",
+        {"RXNDH", "rxnDH", "dh", "standard reaction enthalpy ΔrH° of the reaction as written",
          "Standard reaction enthalpy ΔrH° of the reaction as written (per mole of reaction extent), at "
          "298.15 K or the temperature given, from the built-in data (NASA Glenn, NASA/TP-2002-211556) or "
          "your table. Negative means heat is released (exothermic). Default unit kJ/mol.",
-         {reaction_arg(),
-          temperature_arg(),
+         {reaction_arg(), temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol", energy_unit_help, false, "-u,--unit", "UNIT"},
-          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"},
-          table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         dh_call},
-        {"RXNDU",
-         "rxnDU",
-         "du",
-         "standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T",
+          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"}, table_arg()},
+         Returns::number, layer_all, none, false, dh_call},
+        {"RXNDU", "rxnDU", "du", "standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T",
          "Standard reaction internal energy ΔrU° = ΔrH° − Δn(gas)·R·T of the reaction as written, for "
          "constant-volume (bomb calorimeter) work. Default unit kJ/mol. Same arguments as RXNDH.",
-         {reaction_arg(),
-          temperature_arg(),
+         {reaction_arg(), temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol", energy_unit_help, false, "-u,--unit", "UNIT"},
-          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"},
-          table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         du_call},
-        {"RXNDS",
-         "rxnDS",
-         "ds",
-         "standard reaction entropy ΔrS° of the reaction as written",
+          {"per", ArgKind::species, false, "", per_help, false, "--per", "SPECIES"}, table_arg()},
+         Returns::number, layer_all, none, false, du_call},
+        {"RXNDS", "rxnDS", "ds", "standard reaction entropy ΔrS° of the reaction as written",
          "Standard reaction entropy ΔrS° = Σ ν·S° of the reaction as written (per mole of reaction extent, "
-         "standard pressure 1 bar), at 298.15 K or the temperature given, from the built-in data (NASA "
-         "Glenn, "
+         "standard pressure 1 bar), at 298.15 K or the temperature given, from the built-in data (NASA Glenn, "
          "NASA/TP-2002-211556) or your table's S column. Default unit J/(mol·K).",
-         {reaction_arg(),
-          temperature_arg(),
+         {reaction_arg(), temperature_arg(),
           {"unit", ArgKind::unit, false, "J/(mol·K)",
            "Result unit: J/(mol·K) (default), kJ/(mol·K), cal/(mol·K) (thermochemical calorie, 4.184 J); "
            "also written J/(mol*K) or J/mol/K.",
            false, "-u,--unit", "UNIT"},
           table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         ds_call},
-        {"RXNDG",
-         "rxnDG",
-         "dg",
-         "standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS°",
+         Returns::number, layer_all, none, false, ds_call},
+        {"RXNDG", "rxnDG", "dg", "standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS°",
          "Standard reaction Gibbs energy ΔrG° = ΔrH° − T·ΔrS° of the reaction as written (per mole of "
-         "reaction extent, standard pressure 1 bar). Negative means the products are favoured at the "
-         "standard "
+         "reaction extent, standard pressure 1 bar). Negative means the products are favoured at the standard "
          "state (K > 1); an exothermic reaction can still have ΔrG° > 0 at a high temperature. Default unit "
          "kJ/mol.",
-         {reaction_arg(),
-          temperature_arg(),
+         {reaction_arg(), temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol",
-           "Result unit: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of "
-           "reaction "
+           "Result unit: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of reaction "
            "as written).",
            false, "-u,--unit", "UNIT"},
           table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         dg_call},
-        {"RXNLOGK",
-         "rxnLogK",
-         "logk",
-         "equilibrium constant log10 K = −ΔrG°/(R·T·ln 10)",
+         Returns::number, layer_all, none, false, dg_call},
+        {"RXNLOGK", "rxnLogK", "logk", "equilibrium constant log10 K = −ΔrG°/(R·T·ln 10)",
          "Decimal logarithm of the equilibrium constant K of the reaction as written, log10 K = "
          "−ΔrG°/(R·T·ln 10), with gases referred to the standard pressure of 1 bar and condensed species "
          "pure. Above 0: products favoured; below 0: reactants favoured.",
-         {reaction_arg(), temperature_arg(), table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         logk_call},
-        {"RXNLOAD",
-         "rxnLoad",
-         "load",
-         "heat load when an amount or flow of a key species reacts",
-         "Heat load: the enthalpy change when the given amount or flow of the key species reacts (or forms) "
-         "by "
-         "the reaction as written. An amount gives a total (default kJ); a flow (per s, min, h, d) gives a "
-         "rate "
+         {reaction_arg(), temperature_arg(), table_arg()}, Returns::number, layer_all, none, false, logk_call},
+        {"RXNLOAD", "rxnLoad", "load", "heat load when an amount or flow of a key species reacts",
+         "Heat load: the enthalpy change when the given amount or flow of the key species reacts (or forms) by "
+         "the reaction as written. An amount gives a total (default kJ); a flow (per s, min, h, d) gives a rate "
          "(default kW). Negative means heat is released." RXNHEAT_CAUTION,
          {reaction_arg(),
           {"quantity", ArgKind::number, true, "",
@@ -284,99 +257,45 @@ std::vector<FunctionSpec> make_catalogue() {
            "Amount: mol, kmol, lbmol; mass: g, kg, t, lb; normal gas volume: Nm3 (0 °C, 101.325 kPa) or scf "
            "(60 °F, 14.696 psia); or any of these per s, min, h or d for a flow, e.g. \"kg/h\".",
            false, nullptr, "QUANTITY_UNIT"},
-          {"key", ArgKind::species, true, "",
-           "The species of the reaction that the quantity refers to, e.g. \"CH4\".", false, nullptr, "KEY"},
+          {"key", ArgKind::species, true, "", "The species of the reaction that the quantity refers to, e.g. \"CH4\".",
+           false, nullptr, "KEY"},
           {"result_unit", ArgKind::unit, false, "kJ or kW",
-           "For a total: kJ (default), J, MJ, GJ, kWh, MWh, kcal, BTU, MMBTU, therm. For a flow: kW "
-           "(default), "
+           "For a total: kJ (default), J, MJ, GJ, kWh, MWh, kcal, BTU, MMBTU, therm. For a flow: kW (default), "
            "W, MW, kcal/h, BTU/h, MMBTU/h, TR (12,000 BTU/h).",
            false, "-u,--unit", "UNIT"},
-          temperature_arg(),
-          table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         load_call},
-        {"RXNKIND",
-         "rxnKind",
-         "kind",
-         "exothermic, endothermic or thermoneutral",
+          temperature_arg(), table_arg()},
+         Returns::number, layer_all, none, false, load_call},
+        {"RXNKIND", "rxnKind", "kind", "exothermic, endothermic or thermoneutral",
          "Classifies the reaction as text: exothermic (ΔrH° < 0), endothermic (ΔrH° > 0) or thermoneutral "
          "(|ΔrH°| within the tolerance).",
-         {reaction_arg(),
-          temperature_arg(),
+         {reaction_arg(), temperature_arg(),
           {"tolerance", ArgKind::number, false, "0.1 kJ/mol",
-           "Band in kJ/mol (per mole of reaction) counted as thermoneutral. Omitted, empty or blank: 0.1 "
-           "kJ/mol.",
+           "Band in kJ/mol (per mole of reaction) counted as thermoneutral. Omitted, empty or blank: 0.1 kJ/mol.",
            false, "--tolerance", "KJ"},
           table_arg()},
-         Returns::text,
-         layer_all,
-         none,
-         false,
-         kind_call},
-        {"RXNCHECK",
-         "rxnCheck",
-         "check",
-         "ok, or the first problem with a reaction in words",
+         Returns::text, layer_all, none, false, kind_call},
+        {"RXNCHECK", "rxnCheck", "check", "ok, or the first problem with a reaction in words",
          "Checks a reaction and returns ok, or the first problem in plain words: where the text does not "
-         "parse, which element or charge does not balance, an unknown or ambiguous species, a missing phase, "
-         "a "
+         "parse, which element or charge does not balance, an unknown or ambiguous species, a missing phase, a "
          "temperature outside the data. It is the same diagnosis with which RXNDH and the other numeric "
          "functions fail (Err:502).",
-         {reaction_arg(), temperature_arg(), table_arg()},
-         Returns::text,
-         layer_all,
-         none,
-         true,
-         check_call},
-        {"RXNBALANCE",
-         "rxnBalance",
-         "balance",
-         "the reaction with the smallest whole-number coefficients",
-         "Balances a reaction: returns its text with the smallest whole-number coefficients that balance "
-         "every "
-         "element and the charge. An error if no balance exists or if more than one independent balance "
-         "does.",
-         {reaction_arg(), table_arg()},
-         Returns::text,
-         layer_all,
-         none,
-         false,
-         balance_call},
-        {"RXNREVERSE",
-         "rxnReverse",
-         "reverse",
-         "products and reactants exchanged",
+         {reaction_arg(), temperature_arg(), table_arg()}, Returns::text, layer_all, none, true, check_call},
+        {"RXNBALANCE", "rxnBalance", "balance", "the reaction with the smallest whole-number coefficients",
+         "Balances a reaction: returns its text with the smallest whole-number coefficients that balance every "
+         "element and the charge. An error if no balance exists or if more than one independent balance does.",
+         {reaction_arg(), table_arg()}, Returns::text, layer_all, none, false, balance_call},
+        {"RXNREVERSE", "rxnReverse", "reverse", "products and reactants exchanged",
          "Returns the reaction text with products and reactants exchanged (ΔrH° changes sign).",
-         {reaction_arg()},
-         Returns::text,
-         layer_all,
-         none,
-         false,
-         reverse_call},
-        {"RXNSCALE",
-         "rxnScale",
-         "scale",
-         "every coefficient times a factor, fractions kept",
-         "Returns the reaction text with every coefficient multiplied by the factor; exact fractions are "
-         "kept "
+         {reaction_arg()}, Returns::text, layer_all, none, false, reverse_call},
+        {"RXNSCALE", "rxnScale", "scale", "every coefficient times a factor, fractions kept",
+         "Returns the reaction text with every coefficient multiplied by the factor; exact fractions are kept "
          "(1/2 O2). ΔrH° scales by the same factor.",
          {reaction_arg(),
           {"factor", ArgKind::factor, true, "", "A number, or text such as \"1/2\", \"0.5\" or \"½\".", false,
            nullptr, "FACTOR"}},
-         Returns::text,
-         layer_all,
-         none,
-         false,
-         scale_call},
-        {"RXNWHY",
-         "rxnWhy",
-         "why",
-         "ok, or in words why a call of another rxnheat function fails",
-         "Diagnoses a call of any rxnheat function: give the function's name (e.g. \"RXNLOAD\") and then "
-         "that "
+         Returns::text, layer_all, none, false, scale_call},
+        {"RXNWHY", "rxnWhy", "why", "ok, or in words why a call of another rxnheat function fails",
+         "Diagnoses a call of any rxnheat function: give the function's name (e.g. \"RXNLOAD\") and then that "
          "function's arguments in order. Returns ok, or in words exactly what is wrong: the unit, the key "
          "species, the quantity, the table, the temperature or the reaction.",
          {{"function", ArgKind::text, true, "", "The name of an rxnheat function, e.g. \"RXNLOAD\".", false,
@@ -384,118 +303,68 @@ std::vector<FunctionSpec> make_catalogue() {
           {"arguments", ArgKind::rest, false, "",
            "That function's arguments, in its order, exactly as in the call being diagnosed.", false, nullptr,
            "ARGS"}},
-         Returns::text,
-         layer_all,
-         none,
-         true,
-         why_call},
-        {"SPECIESHF",
-         "speciesHf",
-         "hf",
-         "standard enthalpy of formation ΔfH° of one species",
+         Returns::text, layer_all, none, true, why_call},
+        {"SPECIESHF", "speciesHf", "hf", "standard enthalpy of formation ΔfH° of one species",
          "Standard enthalpy of formation ΔfH° of one species, default kJ/mol at 298.15 K. At another "
          "temperature: the enthalpy of formation from the elements in their reference states at that "
          "temperature.",
-         {species_arg(),
-          temperature_arg(),
+         {species_arg(), temperature_arg(),
           {"unit", ArgKind::unit, false, "kJ/mol",
            "J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, BTU/lbmol (per mole of the species).", false,
            "-u,--unit", "UNIT"},
           table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         hf_call},
-        {"SPECIESCP",
-         "speciesCp",
-         "cp",
-         "standard molar heat capacity Cp° of one species",
+         Returns::number, layer_all, none, false, hf_call},
+        {"SPECIESCP", "speciesCp", "cp", "standard molar heat capacity Cp° of one species",
          "Standard molar heat capacity Cp° of one species at the temperature, in J/(mol·K).",
-         {species_arg(), temperature_required_arg(), table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
+         {species_arg(), temperature_required_arg(), table_arg()}, Returns::number, layer_all, none, false,
          cp_call},
-        {"SPECIESH",
-         "speciesH",
-         "sensible",
-         "sensible heat H°(T) − H°(Tref) of one species",
+        {"SPECIESH", "speciesH", "sensible", "sensible heat H°(T) − H°(Tref) of one species",
          "Sensible heat H°(T) − H°(Tref) of one species in kJ/mol, including phase changes covered by the "
          "data (no extrapolation outside the data's range).",
-         {species_arg(),
-          temperature_required_arg(),
+         {species_arg(), temperature_required_arg(),
           {"reference_temperature", ArgKind::temperature, false, "298.15 K",
-           "The reference temperature Tref, as a number in kelvin or text with a unit. Omitted, empty or "
-           "blank: "
+           "The reference temperature Tref, as a number in kelvin or text with a unit. Omitted, empty or blank: "
            "298.15 K.",
            false, "--tref", "TEMP"},
           table_arg()},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         h_call},
-        {"MOLARMASS",
-         "molarMass",
-         "molarmass",
-         "molar mass from standard atomic weights",
+         Returns::number, layer_all, none, false, h_call},
+        {"MOLARMASS", "molarMass", "molarmass", "molar mass from standard atomic weights",
          "Molar mass in g/mol from the IUPAC standard atomic weights.",
          {{"formula", ArgKind::formula, true, "",
-           "Chemical formula, e.g. CH4, Ca(OH)2, CuSO4·5H2O (a phase is allowed and ignored), or a cell "
-           "holding "
+           "Chemical formula, e.g. CH4, Ca(OH)2, CuSO4·5H2O (a phase is allowed and ignored), or a cell holding "
            "it. A range gives an array of the same shape.",
            true, nullptr, "FORMULA"}},
-         Returns::number,
-         layer_all,
-         none,
-         false,
-         molar_mass_call},
-        {"RXNEQX",
-         "rxnEqX",
-         "eqx",
-         "equilibrium conversion of a key reactant for one reaction from a feed",
+         Returns::number, layer_all, none, false, molar_mass_call},
+        {"RXNEQX", "rxnEqX", "eqx", "equilibrium conversion of a key reactant for one reaction from a feed",
          "Equilibrium conversion (0 to 1) of the key reactant for this one reaction from the feed, at the "
          "temperature and pressure: one reaction, ideal gas, no kinetics. K from ΔrG° = ΔrH° − T·ΔrS° of the "
-         "built-in data (NASA Glenn) or your table at 1 bar; gases as an ideal mixture, condensed species "
-         "pure. "
+         "built-in data (NASA Glenn) or your table at 1 bar; gases as an ideal mixture, condensed species pure. "
          "Feed species not in the reaction are inerts. Negative when products in the feed react back.",
-         {reaction_arg(),
-          temperature_required_arg(),
+         {reaction_arg(), temperature_required_arg(),
           {"pressure", ArgKind::pressure, true, "",
-           "Pressure: a number in bar (absolute), or text with a unit such as \"20 bar\", \"2 MPa\", \"300 "
-           "kPa\", "
+           "Pressure: a number in bar (absolute), or text with a unit such as \"20 bar\", \"2 MPa\", \"300 kPa\", "
            "\"1 atm\", \"150 psia\", or gauge \"19 barg\", \"150 psig\" (over 101.325 kPa).",
            false, "-P,--pressure", "PRESSURE"},
           {"feed", ArgKind::feed, true, "",
-           "A two-column range: species, amount in mol (or any one amount or flow unit for every row: only "
-           "the "
+           "A two-column range: species, amount in mol (or any one amount or flow unit for every row: only the "
            "ratios matter). Blank rows are skipped; species not in the reaction are inerts.",
            false, "--feed", "SPECIES=MOL"},
           {"key", ArgKind::species, false, "the first reactant",
-           "The reactant whose conversion is given, e.g. \"N2\". Omitted: the first reactant.", false,
-           "--key", "SPECIES"},
+           "The reactant whose conversion is given, e.g. \"N2\". Omitted: the first reactant.", false, "--key",
+           "SPECIES"},
           table_arg()},
-         Returns::number,
-         layer_calc | layer_cli,
+         Returns::number, layer_calc | layer_cli,
          "C: the feed is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
          "Engine::eq_conversion.",
-         false,
-         eqx_call},
-        {"RXNHESS",
-         "rxnHess",
-         "hess",
-         "ΔH of a reaction combined by Hess's law from step reactions of known ΔH",
-         "ΔH of the target reaction as an exact combination of your step reactions, from the ΔH you give for "
-         "each "
-         "step (not from the built-in data): Hess's law. An error (RXNWHY says why in words) when the "
-         "target is no combination of the steps, when dependent steps give two different answers, or when "
-         "one "
-         "substance is spelled two ways. RXNHESSPLAN shows the combination used.",
+         false, eqx_call},
+        {"RXNHESS", "rxnHess", "hess", "ΔH of a reaction combined by Hess's law from step reactions of known ΔH",
+         "ΔH of the target reaction as an exact combination of your step reactions, from the ΔH you give for each "
+         "step (not from the built-in data): Hess's law. An error (RXNWHY says why in words) when the target is no "
+         "combination of the steps, when dependent steps give two different answers, or when one substance is "
+         "spelled two ways. RXNHESSPLAN shows the combination used.",
          {{"target", ArgKind::reaction, true, "",
-           "The reaction whose ΔH is wanted, as text or a cell, e.g. C(s) + 1/2 O2(g) -> CO(g).", false,
-           nullptr, "TARGET"},
+           "The reaction whose ΔH is wanted, as text or a cell, e.g. C(s) + 1/2 O2(g) -> CO(g).", false, nullptr,
+           "TARGET"},
           {"steps", ArgKind::reactions, true, "",
            "The step reactions whose ΔH are known, in order: a column (or row) of cells, blank cells skipped "
            "(on the command line, --step once per step). Species are matched as written, phases included.",
@@ -505,69 +374,77 @@ std::vector<FunctionSpec> make_catalogue() {
            "beside the steps (on the command line, --dh once per step).",
            false, "--dh", "DH"},
           {"unit", ArgKind::unit, false, "kJ/mol",
-           "The unit of the step values and of the result: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, "
-           "cal/mol, "
+           "The unit of the step values and of the result: J/mol, kJ/mol (default), MJ/kmol, kcal/mol, cal/mol, "
            "BTU/lbmol.",
            false, "-u,--unit", "UNIT"}},
-         Returns::number,
-         layer_calc | layer_cli,
+         Returns::number, layer_calc | layer_cli,
          "C: the steps are ranges, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
          "Engine::hess.",
-         false,
-         hess_call},
-        {"RXNHESSPLAN",
-         "rxnHessPlan",
-         "hess-plan",
-         "the combination of step reactions that gives a target reaction",
-         "Text: the target reaction as a combination of the step reactions by their numbers (their positions "
-         "in "
+         false, hess_call},
+        {"RXNHESSPLAN", "rxnHessPlan", "hess-plan", "the combination of step reactions that gives a target reaction",
+         "Text: the target reaction as a combination of the step reactions by their numbers (their positions in "
          "the range), e.g. 1×(1) − 2×(3) + 1/2×(4); the combination RXNHESS uses.",
-         {{"target", ArgKind::reaction, true, "", "The reaction to combine, as text or a cell.", false,
-           nullptr, "TARGET"},
+         {{"target", ArgKind::reaction, true, "", "The reaction to combine, as text or a cell.", false, nullptr,
+           "TARGET"},
           {"steps", ArgKind::reactions, true, "",
            "The step reactions, in order: a column (or row) of cells, blank cells skipped but keeping their "
            "numbers (on the command line, --step once per step).",
            false, "--step", "REACTION"}},
-         Returns::text,
-         layer_calc | layer_cli,
+         Returns::text, layer_calc | layer_cli,
          "C: the steps are a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
          "Engine::hess_plan.",
-         false,
-         hess_plan_call},
-        {"RXNSOURCE",
-         "rxnSource",
-         "source",
-         "where every number used came from",
-         "Text naming where every number used for the reaction or species came from: the data set, its "
-         "record "
+         false, hess_plan_call},
+        {"STEAMTSAT", "steamTsat", "steam tsat", "saturation temperature of water at a pressure, IAPWS-IF97",
+         "Saturation (boiling) temperature of water in K at the pressure, from the saturation-temperature "
+         "equation of IAPWS-IF97 region 4, from 611.213 Pa (saturation at 273.15 K) to the critical point "
+         "(220.64 bar, 647.096 K)." RXNHEAT_STEAM_SCOPE,
+         {{"pressure", ArgKind::pressure, true, "", steam_pressure_help, true, nullptr, "PRESSURE"}}, Returns::number,
+         layer_all, none, false, steam_tsat_call},
+        {"STEAMPSAT", "steamPsat", "steam psat", "saturation pressure of water at a temperature, IAPWS-IF97",
+         "Saturation (vapour) pressure of water in bar absolute at the temperature, from the saturation-pressure "
+         "equation of IAPWS-IF97 region 4, from 273.15 K to the critical point (647.096 K, 220.64 bar)."
+         RXNHEAT_STEAM_SCOPE,
+         {temperature_required_arg()}, Returns::number, layer_all, none, false, steam_psat_call},
+        {"STEAMH", "steamH", "steam h", "specific enthalpy of water or steam, IAPWS-IF97",
+         "Specific enthalpy of water or steam in kJ/kg: compressed liquid (IAPWS-IF97 region 1) or superheated "
+         "vapour (region 2) at the pressure and temperature; with state \"liquid\" or \"vapour\", the saturated "
+         "liquid or vapour at the pressure (region 4; the temperature is then not used). Reference state of "
+         "IAPWS-IF97 and of steam tables: internal energy and entropy zero for the saturated liquid at the triple "
+         "point (273.16 K, 611.657 Pa); not the formation basis of STREAMH and SPECIESH. A state on the "
+         "saturation line needs the state." RXNHEAT_STEAM_SCOPE,
+         {{"pressure", ArgKind::pressure, true, "", steam_pressure_help, true, nullptr, "PRESSURE"},
+          {"temperature", ArgKind::temperature, false, "",
+           "Temperature: a number in kelvin, or text with a unit such as \"250 C\", \"482 F\", \"523.15 K\". "
+           "Required unless the state is given. A range gives an array of the same shape.",
+           true, "-T,--temperature", "TEMP"},
+          {"state", ArgKind::text, false, "",
+           "\"liquid\" or \"vapour\": the saturated liquid or vapour at the pressure (the temperature is then not "
+           "used). Omitted, empty or blank: the compressed liquid or superheated vapour at the temperature.",
+           false, "--state", "STATE"}},
+         Returns::number, layer_all, none, false, steam_h_call},
+        {"STEAMLATENT", "steamLatent", "steam latent", "latent heat of vaporisation of water at a pressure, IAPWS-IF97",
+         "Latent heat of vaporisation of water in kJ/kg at the pressure: the enthalpy of the saturated vapour "
+         "(IAPWS-IF97 region 2) minus that of the saturated liquid (region 1) at the saturation temperature "
+         "(region 4), from 611.213 Pa to 165.29 bar (saturation at 623.15 K; above it the saturated states lie in "
+         "region 3). The heat given up by 1 kg of steam condensing at that pressure." RXNHEAT_STEAM_SCOPE,
+         {{"pressure", ArgKind::pressure, true, "", steam_pressure_help, true, nullptr, "PRESSURE"}}, Returns::number,
+         layer_all, none, false, steam_latent_call},
+        {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
+         "Text naming where every number used for the reaction or species came from: the data set, its record "
          "and its publication, and the phase used at the temperature.",
          {{"reaction_or_species", ArgKind::reaction, true, "",
-           "A reaction or a species, as text or a cell. A range gives an array of the same shape.", true,
-           nullptr, "REACTION_OR_SPECIES"},
+           "A reaction or a species, as text or a cell. A range gives an array of the same shape.", true, nullptr,
+           "REACTION_OR_SPECIES"},
           table_arg(),
           // After the table: saved documents call rxnSource(reaction_or_species; table).
           {"temperature", ArgKind::temperature, false, "298.15 K",
-           "The temperature whose data are cited: a species written without a phase is cited in the phase "
-           "stable "
-           "there, and a written liquid above its 1-bar boiling point is noted. Omitted, empty or blank: "
-           "298.15 K.",
+           "The temperature whose data are cited: a species written without a phase is cited in the phase stable "
+           "there, and a written liquid above its 1-bar boiling point is noted. Omitted, empty or blank: 298.15 K.",
            true, "-T,--temperature", "TEMP"}},
-         Returns::text,
-         layer_all,
-         none,
-         false,
-         source_call},
-        {"RXNVERSION",
-         "rxnVersion",
-         "version",
-         "version and data-set identity, for template audits",
-         "Version of rxnheat and identity of its data set, for template audits.",
-         {},
-         Returns::text,
-         layer_all,
-         none,
-         false,
-         version_call},
+         Returns::text, layer_all, none, false, source_call},
+        {"RXNVERSION", "rxnVersion", "version", "version and data-set identity, for template audits",
+         "Version of rxnheat and identity of its data set, for template audits.", {}, Returns::text, layer_all,
+         none, false, version_call},
     };
 }
 

@@ -80,6 +80,8 @@ std::string functions_markdown() {
         "Results are standard-state, ideal-gas, complete-conversion screening estimates; thermal\n"
         "runaway and relief sizing need calorimetry and a process hazard analysis, and local codes\n"
         "and licensed engineers decide.\n\n"
+        "The STEAM functions are the exception to ideal gas: IAPWS-IF97 properties of real water and\n"
+        "steam (regions 1, 2 and 4; an error, never an extrapolation, elsewhere).\n\n"
         "| function | arguments | returns | command |\n|---|---|---|---|\n";
     for (const auto& f : catalogue())
         out += "| [" + std::string(f.calc_name) + "](#" + std::string(f.calc_name) + ") | " + cell(signature(f)) +

@@ -57,6 +57,10 @@ DOCUMENTED_FUNCTIONS = {
     "RXNEQX": ["reaction", "temperature", "pressure", "feed", "key", "table"],
     "RXNHESS": ["target", "steps", "step_dh", "unit"],
     "RXNHESSPLAN": ["target", "steps"],
+    "STEAMTSAT": ["pressure"],
+    "STEAMPSAT": ["temperature"],
+    "STEAMH": ["pressure", "temperature", "state"],
+    "STEAMLATENT": ["pressure"],
     "RXNSOURCE": ["reaction_or_species", "table", "temperature"],
     "RXNVERSION": [],
 }
@@ -306,6 +310,52 @@ def check_why_and_tables(checks, sh):
     # CODATA Key Values (Cox et al. 1989): ΔfH° H2O(g) −241.826 kJ/mol at 298.15 K.
     checks.close("table (2,1): 2 H2 + O2 -> 2 H2O(g) at 298.15 K (CODATA)", grid[1][0].number,
                  -483.65, 0.1)
+
+
+def check_steam(checks, sh):
+    """IAPWS-IF97 water and steam in a real office: release verification values (Tables 5, 15,
+    35, 36), steam-table values (from memory), a blank temperature with a state, and Err:502 in
+    region 3 and for a state that is neither liquid nor vapour."""
+    sh.put("BA1", "10 bar")
+    sh.put("BA2", 30)      # bar
+    sh.put("BA3", 0.035)   # bar
+    sh.put("BB1", 300)     # K
+    sh.put("BC1", 700)     # K
+    cells = sh.evaluate(['=STEAMTSAT("1 MPa")',                 # 0 IF97 Table 36: 453.035632 K
+                         '=STEAMPSAT(500)',                     # 1 IF97 Table 35: 2.63889776 MPa
+                         '=STEAMH("3 MPa";300)',                # 2 IF97 Table 5: 115.331273 kJ/kg
+                         '=STEAMH(0.035;"426.85 C")',           # 3 IF97 Table 15: 3335.68375 kJ/kg
+                         '=STEAMLATENT(BA1)',                   # 4 steam tables, from memory: about 2015
+                         '=STEAMLATENT(STEAMPSAT("250 C"))',    # 5 steam tables, from memory: about 1715
+                         '=STEAMH(BA1;;"vapour")',              # 6 steam tables, from memory: 2777.1
+                         '=STEAMH(BA1;0;"liquid")',             # 7 a blank temperature (0): 762.7
+                         '=STEAMH("250 bar";650)',              # 8 region 3: Err:502
+                         '=STEAMH(BA1;;"gas")',                 # 9 not a state: Err:502
+                         '=STEAMTSAT(0)',                       # 10 a pressure of 0: Err:502
+                         '=STEAMH(BA1;;"vapour")-STEAMH(BA1;;"liquid")-STEAMLATENT(BA1)'])  # 11 exactly 0
+
+    def near(i, want, tol):
+        return cells[i].number is not None and abs(cells[i].number - want) <= tol
+
+    checks.ok("STEAMTSAT 1 MPa (IF97 Table 36)", near(0, 453.035632, 5e-7), repr(cells[0]))
+    checks.ok("STEAMPSAT 500 K in bar (IF97 Table 35)", near(1, 26.3889776, 5e-7), repr(cells[1]))
+    checks.ok("STEAMH 3 MPa, 300 K (IF97 Table 5)", near(2, 115.331273, 5e-7), repr(cells[2]))
+    checks.ok("STEAMH 0.035 bar, 700 K (IF97 Table 15)", near(3, 3335.68375, 5e-6), repr(cells[3]))
+    checks.ok("STEAMLATENT 10 bar about 2015 kJ/kg (steam tables, from memory)", near(4, 2015, 2), repr(cells[4]))
+    checks.ok("latent heat at 250 C about 1715 kJ/kg (steam tables, from memory)", near(5, 1715, 2), repr(cells[5]))
+    checks.ok("STEAMH saturated vapour at 10 bar (steam tables, from memory)", near(6, 2777.1, 0.3), repr(cells[6]))
+    checks.ok("STEAMH saturated liquid at 10 bar, temperature 0 = blank", near(7, 762.7, 0.3), repr(cells[7]))
+    for i, what in [(8, "region 3"), (9, "state gas"), (10, "pressure 0")]:
+        checks.ok("STEAMH/STEAMTSAT %s is Err:502" % what, cells[i].error == ERR_ILLEGAL_ARGUMENT, repr(cells[i]))
+    checks.ok("saturated vapour − liquid = STEAMLATENT", near(11, 0, 0), repr(cells[11]))
+    why = sh.one('=RXNWHY("STEAMH";"250 bar";650)')
+    checks.ok("RXNWHY names region 3", "region 3" in why.text, repr(why))
+    # A column of pressures with a row of temperatures: the whole table (IF97 Tables 5 and 15).
+    grid = sh.array("BE1:BF2", "=STEAMH(BA2:BA3;BB1:BC1)")
+    checks.ok("STEAMH table: 30 bar, 300 K (IF97 Table 5)",
+              grid[0][0].number is not None and abs(grid[0][0].number - 115.331273) <= 5e-7, repr(grid))
+    checks.ok("STEAMH table: 0.035 bar, 700 K (IF97 Table 15)",
+              grid[1][1].number is not None and abs(grid[1][1].number - 3335.68375) <= 5e-6, repr(grid))
 
 
 def check_typical_values(checks, sh, cli, version):
@@ -936,6 +986,7 @@ def main():
                     ("errors", lambda: check_errors(checks, sh, svc)),
                     ("species table", lambda: check_table(checks, sh)),
                     ("RXNWHY and tables", lambda: check_why_and_tables(checks, sh)),
+                    ("steam", lambda: check_steam(checks, sh)),
                     ("alive", lambda: check_alive(checks, off, sh))]
         for name, run in sections:
             t0 = time.monotonic()

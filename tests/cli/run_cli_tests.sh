@@ -371,7 +371,7 @@ run dh "$METHANE" -- --json
 expect_rc "-- ends options (then --json is an extra argument)" 2
 
 # The commands cli/CLI.md names as not in this version, whose functions the catalogue does not have yet.
-for cmd in tad hv duty streamh steam; do
+for cmd in tad hv duty streamh; do
     run "$cmd" "$METHANE"
     expect_rc "$cmd not in this version: exit 2" 2
     expect_err_re "$cmd not in this version: words" 'not available in this version'
@@ -526,7 +526,7 @@ cp "$TMP/out" "$TMP/functions.json"
 pycheck "functions --json: every known cell name, nothing unknown" "$TMP/functions.json" <<'PYEOF'
 import json, sys
 j = json.load(open(sys.argv[1], encoding="utf-8"))
-known = "RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNHESS RXNHESSPLAN RXNSOURCE RXNVERSION".split()
+known = "RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNHESS RXNHESSPLAN STEAMTSAT STEAMPSAT STEAMH STEAMLATENT RXNSOURCE RXNVERSION".split()
 names = [f["calc_name"] for f in j["functions"]]
 assert sorted(names) == sorted(known), sorted(set(names) ^ set(known))
 for f in j["functions"]:
@@ -539,12 +539,14 @@ assert dh["cli_command"] == "dh" and dh["idl_method"] == "rxnDH", dh
 assert [a["name"] for a in dh["arguments"]] == ["reaction", "temperature", "unit", "per", "table"], dh["arguments"]
 assert dh["arguments"][1]["default"] == "298.15 K" and dh["arguments"][0]["default"] is None
 PYEOF
-for cmd in $("$PY" -c 'import json,sys; print(" ".join(f["cli_command"] for f in json.load(open(sys.argv[1]))["functions"] if f["cli_command"]))' "$TMP/functions.json") species batch functions; do
-    run "$cmd" --help
+# One command per line: a command of a group is two words ("steam tsat"), split on purpose below.
+while IFS= read -r cmd; do
+    # shellcheck disable=SC2086
+    run $cmd --help
     expect_rc "$cmd --help" 0
     expect_out_re "$cmd --help: usage line" "^usage: rxnheat $cmd( |\$)"
     expect_out_re "$cmd --help: exit status" '^Exit status: 0 success'
-done
+done < <("$PY" -c 'import json,sys; print("\n".join([f["cli_command"] for f in json.load(open(sys.argv[1]))["functions"] if f["cli_command"]] + ["species", "batch", "functions"]))' "$TMP/functions.json")
 run load --help
 expect_out_re "load --help has the caution" 'CAUTION'
 expect_out_re "load --help lists QUANTITY_UNIT" '^  QUANTITY_UNIT '
@@ -802,7 +804,8 @@ expect_err_re "trade units: unknown unit lists Sm3 and MMscfd" "Sm3.*MMscfd"
 # ---- the generated command table of cli/CLI.md matches each command's own usage line ------------
 CLI_MD="$(dirname "$0")/../../cli/CLI.md"
 while IFS=$'\t' read -r cmd args; do
-    run "$cmd" --help
+    # shellcheck disable=SC2086
+    run $cmd --help  # a command of a group is two words ("steam tsat")
     usage=$(head -n 1 "$TMP/out")
     want="usage: rxnheat $cmd${args:+ $args}"
     if [ "$usage" == "$want" ]; then pass; else fail "CLI.md row for $cmd: '$want' vs --help '$usage'"; fi
@@ -811,7 +814,7 @@ import re, sys
 text = open(sys.argv[1], encoding="utf-8").read()
 body = text.split("<!-- commands: generated from the catalogue, do not edit -->")[1].split("<!-- end of commands -->")[0]
 for line in body.splitlines():
-    m = re.match(r"\| `([a-z]+)` \| (?:`(.*?)`)? \|", line)
+    m = re.match(r"\| `([a-z]+(?: [a-z]+)?)` \| (?:`(.*?)`)? \|", line)
     if m:
         print("%s\t%s" % (m.group(1), (m.group(2) or "").replace("\\|", "|")))
 EOF
@@ -964,6 +967,60 @@ expect_out "kind ammonia 700 K" "exothermic"
 run why RXNLOGK "$AMMONIA" "9000 K"
 expect_rc "why RXNLOGK out of range" 2
 # ---- end of the ds, dg, logk block ------------------------------------------------------------------
+
+# ---- steam: IAPWS-IF97, the commands of the group `steam` -------------------------------------------
+run steam tsat "10 bar" --json
+expect_rc "steam tsat 10 bar" 0
+# IAPWS-IF97 release, Table 36: Ts = 453.035632 K at 1 MPa.
+jcheck "steam tsat 10 bar (IF97 Table 36)" 'abs(j["value"] - 453.035632) <= 5e-7 and j["unit"] == "K" and j["function"] == "STEAMTSAT"'
+run steam tsat 1MPa
+expect_out "steam tsat 1MPa plain" "453.036 K"
+run steam psat 500 --json
+# IAPWS-IF97 release, Table 35: ps = 2.63889776 MPa at 500 K.
+jcheck "steam psat 500 K (IF97 Table 35)" 'abs(j["value"] - 26.3889776) <= 5e-7 and j["unit"] == "bar" and j["temperature_K"] == 500'
+run steam h "3 MPa" -T 300 --json
+# IAPWS-IF97 release, Table 5: h = 115.331273 kJ/kg at 3 MPa, 300 K.
+jcheck "steam h 3 MPa 300 K (IF97 Table 5)" 'abs(j["value"] - 115.331273) <= 5e-7 and j["unit"] == "kJ/kg"'
+run steam h "0.035 bar" -T "426.85 C" --json
+# IAPWS-IF97 release, Table 15: h = 3335.68375 kJ/kg at 0.0035 MPa, 700 K.
+jcheck "steam h 0.035 bar 700 K (IF97 Table 15)" 'abs(j["value"] - 3335.68375) <= 5e-6'
+run steam latent "10 bar"
+expect_rc "steam latent 10 bar" 0
+# Steam tables, from memory: hfg about 2015 kJ/kg at 10 bar.
+expect_out_re "steam latent 10 bar about 2015 kJ/kg (steam tables, from memory)" '^201[4-6](\.[0-9]+)? kJ/kg$'
+run steam h "10 bar" --state vapour --json
+jcheck "steam h saturated vapour at 10 bar: no temperature reported" '"temperature_K" not in j and j["input"]["state"] == "vapour" and abs(j["value"] - 2777.1) <= 0.3'
+run steam h "250 bar" -T 650
+expect_rc "steam h in region 3: exit 2" 2
+expect_err_re "steam h in region 3: words" 'region 3 of IAPWS-IF97'
+run steam h "250 bar" -T 650 --json
+jcheck "steam h in region 3 --json" '"region 3" in j["error"] and j["error_kind"] == "out_of_range"'
+run steam h "10 bar" --state gas
+expect_rc "steam h --state gas: exit 2" 2
+expect_err_re "steam h --state gas: words" 'liquid.*vapour'
+run steam h "10 bar"
+expect_rc "steam h without temperature or state: exit 2" 2
+run steam tsat "-5 bar"
+expect_rc "steam tsat of a negative pressure: exit 2" 2
+expect_err_re "steam tsat of a negative pressure: words" 'above zero'
+run steam
+expect_rc "steam without its command: exit 2" 2
+expect_err_re "steam without its command lists them" 'steam tsat, steam psat, steam h, steam latent'
+run steam frobnicate 10
+expect_rc "steam frobnicate: exit 2" 2
+expect_err_re "steam frobnicate: words" "unknown command 'steam frobnicate'"
+run steam --help
+expect_rc "steam --help" 0
+expect_out_re "steam --help lists steam latent" '^  steam latent '
+run help steam h
+expect_out_re "help steam h" '^usage: rxnheat steam h PRESSURE \[-T TEMP\] \[--state STATE\]$'
+run --help
+expect_out_re "--help lists steam h" '^  steam h +specific enthalpy'
+run why "steam h" "250 bar" 650
+expect_rc "why steam h in region 3" 2
+expect_out_re "why steam h in region 3: words" 'region 3'
+if grep -q '^| `steam tsat` |' "$CLI_MD"; then pass; else fail "CLI.md has the row of steam tsat"; fi
+# ---- end of the steam block -------------------------------------------------------------------------
 
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -226,10 +226,35 @@ TEST_CASE("rxnheat_why and the function list", "[capi][why]") {
     for (const auto& f : rxnheat::catalogue())
         if (f.in(rxnheat::layer_c)) in_c.insert(f.calc_name);
     CHECK(listed == in_c);
-    // engine/FUNCTIONS.md: the 21 cell functions of today (see test_catalogue.cpp) but RXNEQX, whose
+    // engine/FUNCTIONS.md: the 25 cell functions of today (see test_catalogue.cpp) but RXNEQX, whose
     // feed is a range, and RXNHESS and RXNHESSPLAN, whose steps are (recorded gaps of the C layer).
-    CHECK(listed.size() == 18);
+    CHECK(listed.size() == 22);
     CHECK(listed.count("RXNEQX") == 0);
     CHECK(listed.count("RXNHESS") == 0);
     CHECK(listed.count("RXNHESSPLAN") == 0);
+}
+
+TEST_CASE("rxnheat_call reaches the steam functions (IAPWS-IF97)", "[capi][steam]") {
+    Handle h;
+    // IAPWS-IF97 release, Table 5: h = 975.542239 kJ/kg at 3 MPa, 500 K; by Calc name and by command.
+    const Call st = call(h.e, "STEAMH", {rxnheat_text("3 MPa"), rxnheat_number(500)});
+    INFO(st.err);
+    REQUIRE(st.status == RXNHEAT_OK);
+    CHECK(std::fabs(st.result.number - 975.542239) <= 5e-7);
+    CHECK(std::string(st.result.unit) == "kJ/kg");
+    CHECK(call(h.e, "steam h", {rxnheat_number(30), rxnheat_number(500)}).result.number == st.result.number);
+    // The saturated vapour: temperature omitted, state given.
+    const Call sat = call(h.e, "STEAMH", {rxnheat_number(10), rxnheat_omitted(), rxnheat_text("vapour")});
+    REQUIRE(sat.status == RXNHEAT_OK);
+    CHECK(sat.result.number == rxnheat::Engine::steam_h(10, rxnheat::SaturatedState::vapour));
+    // Region 3 is RXNHEAT_E_OUT_OF_RANGE, with no number.
+    const Call r3 = call(h.e, "STEAMH", {rxnheat_text("250 bar"), rxnheat_number(650)});
+    CHECK(r3.status == RXNHEAT_E_OUT_OF_RANGE);
+    CHECK(r3.result.kind == RXNHEAT_RESULT_NONE);
+    CHECK(std::isnan(r3.result.number));
+    CHECK(has(r3.err, "region 3"));
+    // IAPWS-IF97 release, Table 36: Ts = 453.035632 K at 1 MPa.
+    const Call ts = call(h.e, "STEAMTSAT", {rxnheat_text("1 MPa")});
+    REQUIRE(ts.status == RXNHEAT_OK);
+    CHECK(std::fabs(ts.result.number - 453.035632) <= 5e-7);
 }

@@ -384,10 +384,10 @@ TEST_CASE("the Engine's own cache: sized, observable, clearable", "[catalogue][c
 TEST_CASE("every catalogue row is well-formed", "[catalogue][rows]") {
     const auto& all = rxnheat::catalogue();
     // engine/FUNCTIONS.md: the cell functions that exist today, written out by hand.
-    const std::set<std::string> spec = {
-        "RXNDH",    "RXNDU",      "RXNDS",      "RXNDG",    "RXNLOGK",     "RXNLOAD",   "RXNKIND",
-        "RXNCHECK", "RXNBALANCE", "RXNREVERSE", "RXNSCALE", "RXNWHY",      "SPECIESHF", "SPECIESCP",
-        "SPECIESH", "MOLARMASS",  "RXNEQX",     "RXNHESS",  "RXNHESSPLAN", "RXNSOURCE", "RXNVERSION"};
+    const std::set<std::string> spec = {"RXNDH",     "RXNDU",     "RXNDS",     "RXNDG",     "RXNLOGK",   "RXNLOAD",   "RXNKIND",   "RXNCHECK",
+                                        "RXNBALANCE", "RXNREVERSE", "RXNSCALE", "RXNWHY",    "SPECIESHF",
+                                        "SPECIESCP", "SPECIESH",  "MOLARMASS", "RXNEQX",    "RXNHESS", "RXNHESSPLAN", "STEAMTSAT", "STEAMPSAT",
+                                        "STEAMH",    "STEAMLATENT", "RXNSOURCE", "RXNVERSION"};
     std::set<std::string> calc_names, idl, commands;
     for (const auto& f : all) {
         INFO("function " << (f.calc_name ? f.calc_name : "(null)"));
@@ -428,106 +428,85 @@ TEST_CASE("every catalogue row's call works on a sample input", "[catalogue][row
         std::function<void(const rxnheat::Outcome&)> check;
     };
     const std::map<std::string, Sample> samples = {
-        {"RXNDH",
-         {{text(CH4)},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number == Approx(-890.57).margin(0.01));  // CODATA Key Values via NASA Glenn
-          }}},
+        {"RXNDH", {{text(CH4)}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-890.57).margin(0.01));  // CODATA Key Values via NASA Glenn
+         }}},
         {"RXNDU", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.number == eng().du(CH4)); }}},
-        {"RXNDS",
-         {{text("N2(g) + 3 H2(g) -> 2 NH3(g)")},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number ==
-                    Approx(-198.10).margin(0.2));  // NIST-JANAF 4th ed. S° at 298.15 K, from memory
-              CHECK(o.unit == "J/(mol·K)");
-          }}},
-        {"RXNDG",
-         {{text("N2(g) + 3 H2(g) -> 2 NH3(g)")},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number == Approx(-32.73).margin(0.15));  // NIST-JANAF 4th ed. 2·ΔfG°(NH3), from memory
-          }}},
-        {"RXNLOGK",
-         {{text("N2(g) + 3 H2(g) -> 2 NH3(g)"), num(700)},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number ==
-                    Approx(-4.058).margin(0.03));  // NIST-JANAF 4th ed. 2·log Kf(NH3, 700 K), from memory
-              CHECK(o.unit.empty());
-          }}},
-        {"RXNLOAD",
-         {{text(CH4), num(36), text("kmol/h"), text("CH4(g)")},
-          [&](const rxnheat::Outcome& o) {
-              CHECK(o.number == Approx(10 * dh).epsilon(1e-12));  // 36 kmol/h = 10 mol/s (arithmetic)
-              CHECK(o.unit == "kW");
-          }}},
-        {"RXNKIND",
-         {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == "exothermic"); }}},  // ΔH < 0
+        {"RXNDS", {{text("N2(g) + 3 H2(g) -> 2 NH3(g)")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-198.10).margin(0.2));  // NIST-JANAF 4th ed. S° at 298.15 K, from memory
+             CHECK(o.unit == "J/(mol·K)");
+         }}},
+        {"RXNDG", {{text("N2(g) + 3 H2(g) -> 2 NH3(g)")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-32.73).margin(0.15));  // NIST-JANAF 4th ed. 2·ΔfG°(NH3), from memory
+         }}},
+        {"RXNLOGK", {{text("N2(g) + 3 H2(g) -> 2 NH3(g)"), num(700)}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-4.058).margin(0.03));  // NIST-JANAF 4th ed. 2·log Kf(NH3, 700 K), from memory
+             CHECK(o.unit.empty());
+         }}},
+        {"RXNLOAD", {{text(CH4), num(36), text("kmol/h"), text("CH4(g)")}, [&](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(10 * dh).epsilon(1e-12));  // 36 kmol/h = 10 mol/s (arithmetic)
+             CHECK(o.unit == "kW");
+         }}},
+        {"RXNKIND", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == "exothermic"); }}},  // ΔH < 0
         {"RXNCHECK", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == "ok"); }}},
-        {"RXNBALANCE",
-         {{text("H2 + O2 -> H2O")},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.text == "2 H2 + O2 -> 2 H2O");  // balanced by hand (atom counting)
-          }}},
+        {"RXNBALANCE", {{text("H2 + O2 -> H2O")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.text == "2 H2 + O2 -> 2 H2O");  // balanced by hand (atom counting)
+         }}},
         {"RXNREVERSE", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == eng().reverse(CH4)); }}},
-        {"RXNSCALE",
-         {{text("2 H2(g) + O2(g) -> 2 H2O(l)"), text("1/2")},
-          [](const rxnheat::Outcome& o) {
-              CHECK(has(o.text, "1/2 O2(g)"));  // engine/FUNCTIONS.md, RXNSCALE: exact fractions kept
-          }}},
+        {"RXNSCALE", {{text("2 H2(g) + O2(g) -> 2 H2O(l)"), text("1/2")}, [](const rxnheat::Outcome& o) {
+             CHECK(has(o.text, "1/2 O2(g)"));  // engine/FUNCTIONS.md, RXNSCALE: exact fractions kept
+         }}},
         {"RXNWHY", {{text("RXNDH"), text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == "ok"); }}},
-        {"SPECIESHF",
-         {{text("CO2(g)")},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number ==
-                    Approx(-393.51).margin(0.01));  // CODATA Key Values (Cox et al. 1989), from memory
-          }}},
-        {"SPECIESCP",
-         {{text("N2(g)"), num(500)},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number == Approx(29.58).margin(0.05));  // NIST-JANAF 4th ed. N2 at 500 K, from memory
-          }}},
-        {"SPECIESH",
-         {{text("N2(g)"), num(500)},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number == Approx(5.912).margin(0.01));  // NIST-JANAF 4th ed., from memory
-          }}},
-        {"MOLARMASS",
-         {{text("CH4")},
-          [&](const rxnheat::Outcome& o) {
-              CHECK(o.number == Approx(pt[0]).margin(0.01));  // python3-periodictable
-              CHECK(o.unit == "g/mol");
-          }}},
-        {"RXNEQX",
-         {{text("N2O4(g) <=> 2 NO2(g)"), num(298.15), num(1),
-           Arg::range(1, 2, {rxnheat::Cell::of("N2O4"), rxnheat::Cell::of(1.0)})},
-          [](const rxnheat::Outcome& o) {
-              // ΔrG° 4.73 kJ/mol (NBS tables, Wagman et al. 1982, from memory): K 0.148, ξ = sqrt(K/(K+4)) =
-              // 0.19
-              CHECK(o.number == Approx(0.19).margin(0.02));
-              CHECK(o.unit.empty());
-          }}},
-        {"RXNHESS",
-         {{text("C(s) + 1/2 O2(g) -> CO(g)"),
-           Arg::range(2, 1,
-                      {rxnheat::Cell::of("C(s) + O2(g) -> CO2(g)"),
-                       rxnheat::Cell::of("CO(g) + 1/2 O2(g) -> CO2(g)")}),
-           Arg::range(2, 1, {rxnheat::Cell::of(-393.51), rxnheat::Cell::of(-282.98)})},
-          [](const rxnheat::Outcome& o) {
-              CHECK(o.number ==
-                    Approx(-110.53).margin(1e-9));  // CODATA Key Values (Cox et al. 1989): ΔfH°(CO, g)
-              CHECK(o.unit == "kJ/mol");
-          }}},
-        {"RXNHESSPLAN",
-         {{text("C(s) + 1/2 O2(g) -> CO(g)"), Arg::range(2, 1,
-                                                         {rxnheat::Cell::of("C(s) + O2(g) -> CO2(g)"),
-                                                          rxnheat::Cell::of("CO(g) + 1/2 O2(g) -> CO2(g)")})},
-          [](const rxnheat::Outcome& o) { CHECK(o.text == "1×(1) − 1×(2)"); }}},
+        {"SPECIESHF", {{text("CO2(g)")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-393.51).margin(0.01));  // CODATA Key Values (Cox et al. 1989), from memory
+         }}},
+        {"SPECIESCP", {{text("N2(g)"), num(500)}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(29.58).margin(0.05));  // NIST-JANAF 4th ed. N2 at 500 K, from memory
+         }}},
+        {"SPECIESH", {{text("N2(g)"), num(500)}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(5.912).margin(0.01));  // NIST-JANAF 4th ed., from memory
+         }}},
+        {"MOLARMASS", {{text("CH4")}, [&](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(pt[0]).margin(0.01));  // python3-periodictable
+             CHECK(o.unit == "g/mol");
+         }}},
+        {"RXNEQX", {{text("N2O4(g) <=> 2 NO2(g)"), num(298.15), num(1),
+                     Arg::range(1, 2, {rxnheat::Cell::of("N2O4"), rxnheat::Cell::of(1.0)})},
+                    [](const rxnheat::Outcome& o) {
+             // ΔrG° 4.73 kJ/mol (NBS tables, Wagman et al. 1982, from memory): K 0.148, ξ = sqrt(K/(K+4)) = 0.19
+             CHECK(o.number == Approx(0.19).margin(0.02));
+             CHECK(o.unit.empty());
+         }}},
+        {"STEAMTSAT", {{text("1 MPa")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(453.035632).margin(5e-7));  // IAPWS-IF97 release, Table 36
+             CHECK(o.unit == "K");
+         }}},
+        {"STEAMPSAT", {{num(500)}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(26.3889776).margin(5e-7));  // IAPWS-IF97 release, Table 35 (2.63889776 MPa)
+             CHECK(o.unit == "bar");
+         }}},
+        {"STEAMH", {{text("3 MPa"), num(500)}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(975.542239).margin(5e-7));  // IAPWS-IF97 release, Table 5
+             CHECK(o.unit == "kJ/kg");
+         }}},
+        {"STEAMLATENT", {{text("10 bar")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(2015).margin(2));  // steam tables, hfg at 10 bar, from memory
+         }}},
+        {"RXNHESS", {{text("C(s) + 1/2 O2(g) -> CO(g)"),
+                      Arg::range(2, 1, {rxnheat::Cell::of("C(s) + O2(g) -> CO2(g)"), rxnheat::Cell::of("CO(g) + 1/2 O2(g) -> CO2(g)")}),
+                      Arg::range(2, 1, {rxnheat::Cell::of(-393.51), rxnheat::Cell::of(-282.98)})},
+                     [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(-110.53).margin(1e-9));  // CODATA Key Values (Cox et al. 1989): ΔfH°(CO, g)
+             CHECK(o.unit == "kJ/mol");
+         }}},
+        {"RXNHESSPLAN", {{text("C(s) + 1/2 O2(g) -> CO(g)"),
+                          Arg::range(2, 1, {rxnheat::Cell::of("C(s) + O2(g) -> CO2(g)"), rxnheat::Cell::of("CO(g) + 1/2 O2(g) -> CO2(g)")})},
+                         [](const rxnheat::Outcome& o) { CHECK(o.text == "1×(1) − 1×(2)"); }}},
         {"RXNSOURCE", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == eng().source(CH4)); }}},
-        {"RXNVERSION",
-         {{},
-          [](const rxnheat::Outcome& o) {
-              CHECK(has(o.text, "Calc add-in"));  // the host's name
-              CHECK(has(o.text, Engine::version()));
-          }}},
+        {"RXNVERSION", {{}, [](const rxnheat::Outcome& o) {
+             CHECK(has(o.text, "Calc add-in"));  // the host's name
+             CHECK(has(o.text, Engine::version()));
+         }}},
     };
     for (const auto& f : rxnheat::catalogue()) {
         INFO("function " << f.calc_name);

@@ -104,7 +104,7 @@ private:
 /// as "at 500 K".
 struct Conditions {
     double temperature_K = T_ref;
-    double pressure_bar = P_standard_bar;  ///< absolute: eq_conversion() (RXNEQX); the steam functions to come
+    double pressure_bar = P_standard_bar;  ///< absolute: eq_conversion() (RXNEQX)
     const SpeciesTable* table = nullptr;   ///< user species table over the built-in data, or none
     Conditions() = default;
     Conditions(double T_K, const SpeciesTable* user_table = nullptr)  // NOLINT: implicit on purpose
@@ -126,6 +126,8 @@ struct HessStep {
     std::string reaction;
     double dh = 0;
 };
+/// The saturated states of water on the IAPWS-IF97 saturation line (Engine::steam_h).
+enum class SaturatedState { liquid, vapour };
 
 /// The sign of ΔrH°, as RXNKIND words it.
 enum class HeatKind { exothermic, endothermic, thermoneutral };
@@ -265,6 +267,23 @@ public:
 
     /// Library version and data-set identity.
     static std::string version();
+
+    // --- water and steam, IAPWS-IF97 (regions 1, 2 and 4; not ideal gas) ----------------------
+    // Pressures in bar absolute, temperatures in K, enthalpies in kJ/kg on the IF97 reference
+    // (u = s = 0 for the saturated liquid at the triple point). A state outside regions 1, 2 and
+    // 4 (region 3 near the critical point, region 5 above 1073.15 K, above 100 MPa, below
+    // 273.15 K) is Error(out_of_range) naming the region; nothing is extrapolated.
+    /// Saturation temperature (K) at the pressure, 611.213 Pa to 22.064 MPa (region 4, eq. 31).
+    static double steam_tsat(double pressure_bar);
+    /// Saturation pressure (bar) at the temperature, 273.15 K to 647.096 K (region 4, eq. 30).
+    static double steam_psat(double temperature_K);
+    /// h (kJ/kg) of compressed liquid (region 1) or vapour (region 2) at (p, T). A state on the
+    /// saturation line (within a relative 1e-9 in pressure) is Error(argument): say which state.
+    static double steam_h(double pressure_bar, double temperature_K);
+    /// h (kJ/kg) of the saturated liquid (region 1) or vapour (region 2) at the pressure.
+    static double steam_h(double pressure_bar, SaturatedState state);
+    /// Latent heat of vaporisation h'' − h' (kJ/kg) at the pressure, up to 165.29 bar (623.15 K).
+    static double steam_latent(double pressure_bar);
 
     // --- the engine's own state ----------------------------------------------------------------
     CacheStats cache_stats() const;
