@@ -386,7 +386,7 @@ TEST_CASE("every catalogue row is well-formed", "[catalogue][rows]") {
     // engine/FUNCTIONS.md: the cell functions that exist today, written out by hand.
     const std::set<std::string> spec = {"RXNDH",     "RXNDU",     "RXNDS",     "RXNDG",     "RXNLOGK",   "RXNLOAD",   "RXNKIND",   "RXNCHECK",
                                         "RXNBALANCE", "RXNREVERSE", "RXNSCALE", "RXNWHY",    "SPECIESHF",
-                                        "SPECIESCP", "SPECIESH",  "MOLARMASS", "RXNEQX",    "RXNSOURCE", "RXNVERSION"};
+                                        "SPECIESCP", "SPECIESH",  "MOLARMASS", "RXNEQX",    "FUELHV",    "RXNSOURCE", "RXNVERSION"};
     std::set<std::string> calc_names, idl, commands;
     for (const auto& f : all) {
         INFO("function " << (f.calc_name ? f.calc_name : "(null)"));
@@ -475,6 +475,10 @@ TEST_CASE("every catalogue row's call works on a sample input", "[catalogue][row
              // ΔrG° 4.73 kJ/mol (NBS tables, Wagman et al. 1982, from memory): K 0.148, ξ = sqrt(K/(K+4)) = 0.19
              CHECK(o.number == Approx(0.19).margin(0.02));
              CHECK(o.unit.empty());
+         }}},
+        {"FUELHV", {{text("CH4(g)")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(55.5).epsilon(5e-3));  // methane HHV 55.5 MJ/kg (engineering handbooks, from memory)
+             CHECK(o.unit == "MJ/kg");
          }}},
         {"RXNSOURCE", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == eng().source(CH4)); }}},
         {"RXNVERSION", {{}, [](const rxnheat::Outcome& o) {

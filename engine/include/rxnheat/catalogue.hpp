@@ -91,6 +91,7 @@ enum class ArgKind : unsigned char {
     text,         ///< other text (a function name)
     table,        ///< a user species table: a range whose first row names the columns
     feed,         ///< a two-column range: species, amount (mol); blank rows skipped
+    fuel,         ///< a species (text), or a two-column range: species, mole fraction or mol % (as feed)
     rest,         ///< every argument from here on, unread (RXNWHY's "arguments…")
 };
 /// The word used for a kind in help and docs ("reaction", "temperature", ...).
