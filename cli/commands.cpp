@@ -280,6 +280,12 @@ const CommandEntry entries[] = {
       "{\"ok\": true|false, \"result\": \"ok\" or the reason, \"function\": \"RXNWHY\", \"input\": "
       "{\"function\", \"arguments\": [...]}}",
       "rxnheat why RXNLOAD \"CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)\" 500 kg/hr CH4 kW\n"}},
+    {"hv", nullptr,
+     {"Give one species, or the fuel's composition as SPECIES=FRACTION words (mole fractions summing to 1, or "
+      "mol % summing to 100, within 0.5 %).",
+      nullptr,
+      "rxnheat hv \"CH4(g)\"\n"
+      "rxnheat hv CH4=0.95 C2H6=0.03 N2=0.02 -u MJ/Sm3 --basis LHV\n"}},
     {"molarmass", nullptr, {"", nullptr, "rxnheat molarmass \"CuSO4·5H2O\"\n"}},
     {"cp", nullptr, {"", nullptr, "rxnheat cp \"CO2(g)\" \"500 C\"\n"}},
     {"sensible", nullptr, {"", nullptr, "rxnheat sensible \"N2(g)\" 1000 --tref \"25 C\"\n"}},
@@ -379,6 +385,16 @@ int run_function(const CommandDef& cmd, const Parsed& p, Output& out, Engine& en
         for (std::size_t k = 0; k < cmd.positionals.size() && k < p.positionals.size(); ++k) {
             if (f.args[cmd.positionals[k].arg_index].kind == ArgKind::feed) {
                 c.args[cmd.positionals[k].arg_index] = feed_argument(cmd, p, k);
+                break;
+            }
+            // A fuel: one word without '=' is a species; otherwise SPECIES=FRACTION words, read as a feed.
+            if (f.args[cmd.positionals[k].arg_index].kind == ArgKind::fuel) {
+                const bool species = p.positionals.size() == k + 1 && p.positionals[k].find('=') == std::string::npos;
+                for (std::size_t m = k; !species && m < p.positionals.size(); ++m)
+                    if (p.positionals[m].find('=') == std::string::npos)
+                        throw UsageError("a fuel is one species, or SPECIES=FRACTION words such as CH4=0.95 N2=0.05, "
+                                         "not '" + p.positionals[m] + "' among them");
+                c.args[cmd.positionals[k].arg_index] = species ? Arg::of(p.positionals[k]) : feed_argument(cmd, p, k);
                 break;
             }
             c.args[cmd.positionals[k].arg_index] = Arg::of(p.positionals[k]);

@@ -82,7 +82,7 @@ CommandDef command_from(const FunctionSpec& f) {
         PositionalDef p;
         p.placeholder = a.cli_value ? a.cli_value : a.name;
         p.required = a.required;
-        p.variadic = a.kind == ArgKind::rest;
+        p.variadic = a.kind == ArgKind::rest || a.kind == ArgKind::fuel;  // a fuel: FUEL, or SPECIES=FRACTION words
         p.help = a.help;
         p.arg_index = i;
         c.positionals.push_back(p);

@@ -31,7 +31,7 @@ struct Bound {
     };
     std::vector<Value> values;  ///< one per ArgSpec
     Conditions at;              ///< temperature and pressure (the arguments of those names) and table
-    std::vector<FeedItem> feed; ///< the feed argument, its blank rows left out
+    std::vector<FeedItem> feed; ///< the feed argument (or a fuel given as a range), its blank rows left out
     const std::vector<Arg>* all = nullptr;  ///< the call's arguments as given (for `rest`)
     std::size_t rest_from = 0;
     const HostRules* rules = nullptr;
@@ -191,6 +191,12 @@ Outcome hess_call(Engine& e, const Bound& b) {
 }
 Outcome hess_plan_call(Engine& e, const Bound& b) {
     return Outcome::of_text(e.hess_plan(b.text(0), hess_steps(b, false)));
+}
+Outcome fuel_call(Engine& e, const Bound& b) {
+    // A fuel is one species (text) or a composition (a range, read as a feed).
+    const double v = b.feed.empty() ? e.heating_value(b.text(0), b.text(1), b.text(2), b.at)
+                                    : e.heating_value(b.feed, b.text(1), b.text(2), b.at);
+    return Outcome::of(v, unit_or(b.text(2), "MJ/kg"));
 }
 Outcome source_call(Engine& e, const Bound& b) { return Outcome::of_text(e.source(b.text(0), b.at)); }
 Outcome version_call(Engine&, const Bound& b) {
@@ -429,6 +435,31 @@ std::vector<FunctionSpec> make_catalogue() {
          "region 3). The heat given up by 1 kg of steam condensing at that pressure." RXNHEAT_STEAM_SCOPE,
          {{"pressure", ArgKind::pressure, true, "", steam_pressure_help, true, nullptr, "PRESSURE"}}, Returns::number,
          layer_all, none, false, steam_latent_call},
+        {"FUELHV", "fuelHV", "hv", "heating value (HHV or LHV) of a fuel or a fuel-gas mixture",
+         "Heating value of a fuel: the heat given off by its complete combustion with O2 at 25 °C, from the "
+         "built-in data (NASA Glenn, NASA/TP-2002-211556) or your table, as a positive number. The combustion "
+         "reactions are built from each species' formula: C to CO2(g), H to H2O(l) for HHV (the higher, gross "
+         "value) or H2O(g) for LHV (the lower, net value), S to SO2(g), N to N2(g). A mixture is weighted by "
+         "mole fraction; CO2, H2O, SO2, N2, O2 and the noble gases in it are inerts that count zero (but count "
+         "in its mass and volume). Default MJ/kg. Per gas volume (MJ/Nm3, MJ/Sm3, kWh/Nm3, BTU/scf) as an ideal "
+         "gas, without the compressibility correction of ISO 6976 (real natural gas: some 0.2 to 0.3 % more per "
+         "volume).",
+         {{"fuel", ArgKind::fuel, true, "",
+           "A species, e.g. CH4(g), C3H8, methanol(l) (no phase: the phase stable at 25 °C), or a two-column "
+           "range: species, mole fraction (summing to 1) or mol % (summing to 100), within 0.5 %; blank rows "
+           "are skipped.",
+           false, nullptr, "FUEL|SPECIES=FRACTION"},
+          {"basis", ArgKind::text, false, "HHV",
+           "HHV (higher heating value, the water formed liquid; the default) or LHV (lower heating value, the "
+           "water formed a vapour); upper or lower case.",
+           false, "--basis", "HHV|LHV"},
+          {"unit", ArgKind::unit, false, "MJ/kg",
+           "Per mass: MJ/kg (default), kJ/kg, kJ/g, kcal/kg, BTU/lb; per mole: kJ/mol, J/mol, MJ/kmol, "
+           "kcal/mol, BTU/lbmol; per gas volume (ideal gas, every species a gas at 25 °C): MJ/Nm3, kWh/Nm3 "
+           "(0 °C, 101.325 kPa), MJ/Sm3, kWh/Sm3 (15 °C, 101.325 kPa), BTU/scf (60 °F, 14.696 psia).",
+           false, "-u,--unit", "UNIT"},
+          table_arg()},
+         Returns::number, layer_all, none, false, fuel_call},
         {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
          "Text naming where every number used for the reaction or species came from: the data set, its record "
          "and its publication, and the phase used at the temperature.",
@@ -474,7 +505,7 @@ std::string quoted(const char* name) { return std::string("'") + name + "'"; }
 
 bool is_text_kind(ArgKind k) {
     return k == ArgKind::reaction || k == ArgKind::species || k == ArgKind::formula || k == ArgKind::unit ||
-           k == ArgKind::text;
+           k == ArgKind::text || k == ArgKind::fuel;
 }
 
 /// True when the cell means "not given" under the host's rules.
@@ -516,6 +547,7 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
     case ArgKind::formula:
     case ArgKind::unit:
     case ArgKind::text:
+    case ArgKind::fuel:  // a single value: a species
         if (number) bad(a, "must be text, not a number");
         return;
     case ArgKind::temperature:
@@ -668,8 +700,8 @@ void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound&
         b.at.table = table_holder.get();
         return;
     }
-    if (a.kind == ArgKind::feed) {
-        read_feed(arg, a, rules, b);
+    if (a.kind == ArgKind::feed || (a.kind == ArgKind::fuel && arg.kind == Arg::Kind::range && arg.rows * arg.cols != 1)) {
+        read_feed(arg, a, rules, b);  // a fuel's composition is read as a feed (fractions for amounts)
         out.given = !b.feed.empty();
         return;
     }
@@ -866,6 +898,7 @@ const char* to_string(ArgKind kind) noexcept {
     case ArgKind::feed: return "range (species, amount)";
     case ArgKind::reactions: return "range (reactions)";
     case ArgKind::numbers: return "range (numbers)";
+    case ArgKind::fuel: return "species, or range (species, mole fraction)";
     case ArgKind::rest: return "arguments";
     }
     return "value";

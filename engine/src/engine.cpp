@@ -4,6 +4,7 @@
 #include "chem.hpp"
 #include "database.hpp"
 #include "hess.hpp"
+#include "fuel.hpp"
 #include "reaction.hpp"
 #include "units.hpp"
 #include "usertable.hpp"
@@ -403,6 +404,16 @@ double Engine::eq_conversion(std::string_view reaction, const std::vector<FeedIt
         xi = 0.5 * (root.first + root.second);
     }
     return -sp[k].nu * xi / sp[k].n0_mol;
+}
+
+double Engine::heating_value(const std::vector<FeedItem>& composition, std::string_view basis, std::string_view unit,
+                             const Conditions& at) {
+    return detail::fuel_heating_value(composition, false, basis, unit, at.table);
+}
+
+double Engine::heating_value(std::string_view species, std::string_view basis, std::string_view unit,
+                             const Conditions& at) {
+    return detail::fuel_heating_value({FeedItem{std::string(species), 1.0}}, true, basis, unit, at.table);
 }
 
 std::string Engine::load_unit(std::string_view quantity_unit, std::string_view result_unit) {

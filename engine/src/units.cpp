@@ -434,6 +434,98 @@ double quantity_to_mol(double quantity, std::string_view unit, std::optional<dou
     return mol;
 }
 
+// ---- heating values ------------------------------------------------------------------------------
+
+namespace {
+
+struct VolumeEnergy {
+    std::string_view name;
+    double J_per_m3;     // one of the unit, J per m³ of gas at its conditions
+    double mol_per_m3;   // ideal-gas molar density at those conditions
+    const char* conditions;
+};
+constexpr const char* normal_words = "0 \xC2\xB0" "C and 101.325 kPa";
+constexpr const char* standard_words = "15 \xC2\xB0" "C and 101.325 kPa";
+constexpr const char* scf_words = "60 \xC2\xB0" "F and 14.696 psia";
+constexpr std::array<VolumeEnergy, 14> volume_energy_units{{
+    {"MJ/Nm3", 1e6, normal_mol_per_m3, normal_words},
+    {"MJ/Nm\xC2\xB3", 1e6, normal_mol_per_m3, normal_words},
+    {"MJ/Nm^3", 1e6, normal_mol_per_m3, normal_words},
+    {"kWh/Nm3", 3.6e6, normal_mol_per_m3, normal_words},
+    {"kWh/Nm\xC2\xB3", 3.6e6, normal_mol_per_m3, normal_words},
+    {"kWh/Nm^3", 3.6e6, normal_mol_per_m3, normal_words},
+    {"MJ/Sm3", 1e6, standard_mol_per_m3, standard_words},
+    {"MJ/Sm\xC2\xB3", 1e6, standard_mol_per_m3, standard_words},
+    {"MJ/Sm^3", 1e6, standard_mol_per_m3, standard_words},
+    {"kWh/Sm3", 3.6e6, standard_mol_per_m3, standard_words},
+    {"kWh/Sm\xC2\xB3", 3.6e6, standard_mol_per_m3, standard_words},
+    {"kWh/Sm^3", 3.6e6, standard_mol_per_m3, standard_words},
+    {"BTU/scf", btu_J / ft3_m3, scf_mol_per_m3, scf_words},
+    {"Btu/scf", btu_J / ft3_m3, scf_mol_per_m3, scf_words},
+}};
+
+const std::string& heating_known_text() {
+    static const std::string text = [] {
+        std::string t = "per mass " + join(mass_units) + " (default MJ/kg); per mole " + join(molar_units) +
+                        "; per gas volume (ideal gas) ";
+        for (const VolumeEnergy& v : volume_energy_units) {
+            if (v.name.find('^') != std::string_view::npos || (v.name.back() != '3' && v.name.back() != 'f'))
+                continue;  // one spelling of each in the list
+            t += std::string(v.name) + " (" + v.conditions + "), ";
+        }
+        t.resize(t.size() - 2);
+        return t + "; Nm3 and Sm3 also written Nm\xC2\xB3, Nm^3, Sm\xC2\xB3, Sm^3";
+    }();
+    return text;
+}
+
+}  // namespace
+
+HeatingValueUnit heating_value_unit(std::string_view unit_text) {
+    const std::string unit = normalise(unit_text);
+    HeatingValueUnit u;
+    u.name = unit.empty() ? std::string("MJ/kg") : unit;
+    if (const Named* m = find(mass_units, u.name)) {
+        u.per = HeatingPer::mass;
+        u.factor = m->factor;
+        return u;
+    }
+    if (const Named* m = find(molar_units, u.name)) {
+        u.per = HeatingPer::mole;
+        u.factor = m->factor;
+        return u;
+    }
+    for (const VolumeEnergy& v : volume_energy_units)
+        if (v.name == u.name) {
+            u.per = HeatingPer::volume;
+            u.factor = v.J_per_m3;
+            u.mol_per_m3 = v.mol_per_m3;
+            u.conditions = v.conditions;
+            return u;
+        }
+    std::string hint;
+    add_case_hint(hint, mass_units, u.name);
+    add_case_hint(hint, molar_units, u.name);
+    for (const VolumeEnergy& v : volume_energy_units)
+        if (hint.empty() && equal_ignoring_ascii_case(v.name, u.name))
+            hint = " (unit names are case-sensitive: did you mean '" + std::string(v.name) + "'?)";
+    if (hint.empty() && (u.name == "MJ/m3" || u.name == "MJ/m\xC2\xB3" || u.name == "kWh/m3" || u.name == "BTU/ft3" ||
+                         u.name == "Btu/ft3"))
+        hint = " (a gas volume needs its conditions: Nm3 at 0 \xC2\xB0" "C, Sm3 at 15 \xC2\xB0" "C, scf at 60 \xC2\xB0" "F)";
+    throw Error(ErrorKind::unit, "unknown heating-value unit " + quote(unit_text) + hint + "; known units: " +
+                                     heating_known_text());
+}
+
+double heating_value_in(double J_per_mol, const HeatingValueUnit& u, double molar_mass) {
+    require_finite(J_per_mol, "the heating value");
+    switch (u.per) {
+    case HeatingPer::mole: return J_per_mol / u.factor;
+    case HeatingPer::mass: return J_per_mol / checked_molar_mass(molar_mass) / u.factor;
+    case HeatingPer::volume: return J_per_mol * u.mol_per_m3 / u.factor;
+    }
+    return 0;
+}
+
 // ---- load results -------------------------------------------------------------------------------
 
 double load_result(double J_or_W, std::string_view unit_text, bool rate, std::string_view quantity_unit_text) {

@@ -146,6 +146,32 @@ double quantity_to_mol(double quantity, std::string_view unit,
 /// Error(argument) for no number, a non-finite value, or an absolute pressure <= 0.
 double parse_pressure(std::string_view text);
 
+// ---- heating values: FUELHV -----------------------------------------------------------------
+
+/// What a heating-value unit is per: a mole, a mass, or a gas volume at stated conditions.
+enum class HeatingPer { mole, mass, volume };
+
+struct HeatingValueUnit {
+    std::string name;     ///< as the caller wrote it, trimmed ("MJ/Nm3"); the default "MJ/kg" when empty
+    HeatingPer per = HeatingPer::mass;
+    /// J per mole (mole), J per gram (mass) or J per m³ (volume) in one of the unit.
+    double factor = 0;
+    /// Volume only: the ideal-gas molar density p/(R·T) of its metering conditions, mol/m³.
+    double mol_per_m3 = 0;
+    /// Volume only: the metering conditions in words, for messages ("0 °C and 101.325 kPa").
+    const char* conditions = "";
+};
+
+/// Parses a heating-value unit: the per-mole units of from_J_per_mol(), its per-mass units
+/// (MJ/kg, the default when empty, kJ/kg, kJ/g, kcal/kg, BTU/lb, Btu/lb), and per gas volume
+/// MJ/Nm3, kWh/Nm3 (0 °C), MJ/Sm3, kWh/Sm3 (15 °C), each also with ³ or ^3, and BTU/scf, Btu/scf
+/// (60 °F, 14.696 psia). A gas volume is converted with the ideal-gas molar volume (no
+/// compressibility). Throws Error(unit) for any other unit, listing the known ones.
+HeatingValueUnit heating_value_unit(std::string_view unit);
+
+/// A heating value in J per mole of fuel, in `unit` (see heating_value_unit()); `molar_mass` g/mol.
+double heating_value_in(double J_per_mol, const HeatingValueUnit& unit, double molar_mass_g_per_mol);
+
 // ---- load results: RXNLOAD ---------------------------------------------------------------------
 
 inline constexpr std::string_view default_total_unit = "kJ";

@@ -49,7 +49,7 @@ std::string cli_arguments(const FunctionSpec& f) {
     for (const auto& a : f.args)
         if (!a.cli_option || (a.required && !is_list(a.kind)))
             out += std::string(out.empty() ? "" : " ") + a.cli_value +
-                   (a.kind == ArgKind::rest || a.kind == ArgKind::feed ? "..." : "");
+                   (a.kind == ArgKind::rest || a.kind == ArgKind::feed || a.kind == ArgKind::fuel ? "..." : "");
     for (const auto& a : f.args)
         if (a.cli_option && (!a.required || a.kind == ArgKind::feed || is_list(a.kind))) {  // given repeated
             std::string opt = a.cli_option;

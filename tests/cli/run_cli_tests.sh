@@ -371,7 +371,7 @@ run dh "$METHANE" -- --json
 expect_rc "-- ends options (then --json is an extra argument)" 2
 
 # The commands cli/CLI.md names as not in this version, whose functions the catalogue does not have yet.
-for cmd in tad hv duty streamh; do
+for cmd in tad duty streamh; do
     run "$cmd" "$METHANE"
     expect_rc "$cmd not in this version: exit 2" 2
     expect_err_re "$cmd not in this version: words" 'not available in this version'
@@ -526,7 +526,7 @@ cp "$TMP/out" "$TMP/functions.json"
 pycheck "functions --json: every known cell name, nothing unknown" "$TMP/functions.json" <<'PYEOF'
 import json, sys
 j = json.load(open(sys.argv[1], encoding="utf-8"))
-known = "RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNHESS RXNHESSPLAN STEAMTSAT STEAMPSAT STEAMH STEAMLATENT RXNSOURCE RXNVERSION".split()
+known = "RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP SPECIESH MOLARMASS RXNEQX RXNHESS RXNHESSPLAN STEAMTSAT STEAMPSAT STEAMH STEAMLATENT FUELHV RXNSOURCE RXNVERSION".split()
 names = [f["calc_name"] for f in j["functions"]]
 assert sorted(names) == sorted(known), sorted(set(names) ^ set(known))
 for f in j["functions"]:
@@ -914,6 +914,53 @@ expect_err_re "hess without steps: words" "^rxnheat hess: --step is required$"
 run hess --help
 expect_out_re "hess --help: --step and --dh, repeated and required" '^usage: rxnheat hess TARGET --step REACTION\.\.\. --dh DH\.\.\. \[-u UNIT\]$'
 # ---- end of the hess block ---------------------------------------------------------------------------
+# ==== hv: heating value of a fuel or a fuel-gas composition ==========================================
+# Methane: −ΔcH° 890.7 kJ/mol (NIST WebBook, from memory), over 16.043 g/mol: 55.5 MJ/kg.
+run hv "CH4(g)" --json
+expect_rc "hv methane: exit 0" 0
+jcheck "hv methane 55.5 MJ/kg (NIST WebBook ΔcH°, from memory)" 'abs(j["value"] - 55.5) <= 0.1 and j["unit"] == "MJ/kg" and j["function"] == "FUELHV"'
+run hv "CH4(g)" -u kJ/mol
+expect_close "hv methane kJ/mol (NIST WebBook, from memory)" "$(out | cut -d' ' -f1)" 890.7 0.9
+HV_MOL=$(out | cut -d' ' -f1)
+run hv "CH4(g)" --basis lhv -u kJ/mol
+# LHV = HHV − 2 × 44.004 kJ/mol (CODATA Key Values ΔfH° H2O(g), H2O(l), from memory).
+expect_close "hv methane LHV = HHV − 2 ΔvapH° of water" "$(out | cut -d' ' -f1)" "$("$PY" -c "print($HV_MOL - 2*44.004)")" 0.05
+# The natural gas of issue 9 as SPECIES=FRACTION words, per Sm3: the parts summed here with the
+# ideal-gas molar density at 15 °C and 101.325 kPa from GNU units.
+SM3=$(units -d 15 -t 'atm / (R * tempC(15))' 'mol/m^3')
+C2H6_MOL=$(timeout 10 "$BIN" hv "C2H6(g)" -u kJ/mol | cut -d' ' -f1)
+run hv CH4=0.95 C2H6=0.03 N2=0.02 -u MJ/Sm3
+expect_rc "hv natural gas: exit 0" 0
+expect_out_re "hv natural gas somewhat above 36 MJ/Sm3" '^3[6-8]\.[0-9]+ MJ/Sm3$'
+# The parts as printed (6 digits), so within 1e-4 MJ/Sm3.
+expect_close "hv natural gas per Sm3 = sum of its parts (GNU units)" "$(out | cut -d' ' -f1)" \
+    "$("$PY" -c "print((0.95*$HV_MOL + 0.03*$C2H6_MOL) * $SM3 / 1000)")" 1e-4
+run hv CH4=95 C2H6=3 N2=2 -u MJ/Sm3 --json
+jcheck "hv mol % --json: the words as given" 'j["input"]["fuel"] == ["CH4=95", "C2H6=3", "N2=2"] and 36 < j["value"] < 39'
+# Bad input: exit 2 with words.
+run hv CH4=0.95 C2H6=0.03
+expect_rc "hv sum off by 2 %: exit 2" 2
+expect_err_re "hv sum off: gives the sum" 'sum to 0.98'
+run hv CH4 C2H6=0.03
+expect_rc "hv species among fractions: exit 2" 2
+expect_err_re "hv species among fractions: words" "SPECIES=FRACTION"
+run hv "Zz9"
+expect_rc "hv unknown species: exit 2" 2
+expect_err_re "hv unknown species: named" 'Zz'
+run hv CH4 --basis GHV
+expect_rc "hv bad basis: exit 2" 2
+expect_err_re "hv bad basis: words" 'HHV .*LHV'
+run hv CH4 -u MJ/m3
+expect_rc "hv bad unit: exit 2" 2
+expect_err_re "hv bad unit: conditions needed" 'Nm3'
+run hv methanol -u MJ/Nm3
+expect_rc "hv liquid per gas volume: exit 2" 2
+expect_err_re "hv liquid per gas volume: words" 'not a gas at 25'
+run hv
+expect_rc "hv without a fuel: exit 2" 2
+run hv --help
+expect_out_re "hv --help: usage" 'FUEL\|SPECIES=FRACTION\.\.\.'
+# ---- end of the hv block -----------------------------------------------------------------------------
 # ==== ds, dg, logk: reaction entropy, Gibbs energy and equilibrium constant =========================
 AMMONIA="N2(g) + 3 H2(g) -> 2 NH3(g)"
 # log10 K at 700 K = 2 × log Kf(NH3) = 2 × (−2.029): NIST-JANAF 4th ed. (1998), from memory.

@@ -137,6 +137,19 @@ TEST_CASE("rxnheat_call refuses C values that are wrong in themselves", "[capi]"
     CHECK(call(h.e, "RXNDH", {rxnheat_text(CH4), zero}).result.number == rxnheat::Engine::shared().dh(CH4));
 }
 
+TEST_CASE("FUELHV through the C interface: one species as text", "[capi][fuel]") {
+    Handle h;
+    const Call c = call(h.e, "FUELHV", {rxnheat_text("CH4(g)"), rxnheat_text("LHV"), rxnheat_text("kJ/mol")});
+    REQUIRE(c.status == RXNHEAT_OK);
+    CHECK(c.result.number == rxnheat::Engine::shared().heating_value("CH4(g)", "LHV", "kJ/mol"));
+    CHECK(std::string(c.result.unit) == "kJ/mol");
+    // Methane LHV 802.6 kJ/mol: NIST WebBook ΔcH° 890.7 less 2 × 44.004 (CODATA), from memory.
+    CHECK(c.result.number == Approx(802.6).epsilon(1e-3));
+    const Call bad = call(h.e, "FUELHV", {rxnheat_text("CH4(g)"), rxnheat_text("GHV")});
+    CHECK(bad.status != RXNHEAT_OK);
+    CHECK(bad.err.find("HHV") != std::string::npos);
+}
+
 TEST_CASE("a text result longer than the buffer is truncated and says so", "[capi]") {
     Handle h;
     const std::string whole = rxnheat::Engine::shared().source(CH4);
@@ -226,9 +239,11 @@ TEST_CASE("rxnheat_why and the function list", "[capi][why]") {
     for (const auto& f : rxnheat::catalogue())
         if (f.in(rxnheat::layer_c)) in_c.insert(f.calc_name);
     CHECK(listed == in_c);
-    // engine/FUNCTIONS.md: the 25 cell functions of today (see test_catalogue.cpp) but RXNEQX, whose
+    // engine/FUNCTIONS.md: the 26 cell functions of today (see test_catalogue.cpp) but RXNEQX, whose
     // feed is a range, and RXNHESS and RXNHESSPLAN, whose steps are (recorded gaps of the C layer).
-    CHECK(listed.size() == 22);
+    // FUELHV is in it for one species (text).
+    CHECK(listed.size() == 23);
+    CHECK(listed.count("FUELHV") == 1);
     CHECK(listed.count("RXNEQX") == 0);
     CHECK(listed.count("RXNHESS") == 0);
     CHECK(listed.count("RXNHESSPLAN") == 0);

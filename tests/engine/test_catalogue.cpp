@@ -387,7 +387,7 @@ TEST_CASE("every catalogue row is well-formed", "[catalogue][rows]") {
     const std::set<std::string> spec = {"RXNDH",     "RXNDU",     "RXNDS",     "RXNDG",     "RXNLOGK",   "RXNLOAD",   "RXNKIND",   "RXNCHECK",
                                         "RXNBALANCE", "RXNREVERSE", "RXNSCALE", "RXNWHY",    "SPECIESHF",
                                         "SPECIESCP", "SPECIESH",  "MOLARMASS", "RXNEQX",    "RXNHESS", "RXNHESSPLAN", "STEAMTSAT", "STEAMPSAT",
-                                        "STEAMH",    "STEAMLATENT", "RXNSOURCE", "RXNVERSION"};
+                                        "STEAMH",    "STEAMLATENT", "FUELHV", "RXNSOURCE", "RXNVERSION"};
     std::set<std::string> calc_names, idl, commands;
     for (const auto& f : all) {
         INFO("function " << (f.calc_name ? f.calc_name : "(null)"));
@@ -502,6 +502,10 @@ TEST_CASE("every catalogue row's call works on a sample input", "[catalogue][row
         {"RXNHESSPLAN", {{text("C(s) + 1/2 O2(g) -> CO(g)"),
                           Arg::range(2, 1, {rxnheat::Cell::of("C(s) + O2(g) -> CO2(g)"), rxnheat::Cell::of("CO(g) + 1/2 O2(g) -> CO2(g)")})},
                          [](const rxnheat::Outcome& o) { CHECK(o.text == "1×(1) − 1×(2)"); }}},
+        {"FUELHV", {{text("CH4(g)")}, [](const rxnheat::Outcome& o) {
+             CHECK(o.number == Approx(55.5).epsilon(5e-3));  // methane HHV 55.5 MJ/kg (engineering handbooks, from memory)
+             CHECK(o.unit == "MJ/kg");
+         }}},
         {"RXNSOURCE", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == eng().source(CH4)); }}},
         {"RXNVERSION", {{}, [](const rxnheat::Outcome& o) {
              CHECK(has(o.text, "Calc add-in"));  // the host's name

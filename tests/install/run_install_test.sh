@@ -35,9 +35,9 @@ check "rxnheat_call RXNLOAD without the table: unknown species (status 3)" "$out
 check "rxnheat_call unknown unit: RXNHEAT_E_UNIT (8), no result" "$out" "^call unit error: status 8, result kind 0: .*kg/hr"
 check "rxnheat_why names the unit" "$out" "^why: .*'kg/hr'"
 check "rxnheat_why of a good call" "$out" "^why good: ok$"
-check "function list: 22" "$out" "^functions 22:"
+check "function list: 23" "$out" "^functions 23:"
 for f in RXNDH RXNDU RXNDS RXNDG RXNLOGK RXNLOAD RXNKIND RXNCHECK RXNBALANCE RXNREVERSE RXNSCALE RXNWHY SPECIESHF SPECIESCP \
-         SPECIESH MOLARMASS STEAMTSAT STEAMPSAT STEAMH STEAMLATENT RXNSOURCE RXNVERSION; do
+         SPECIESH MOLARMASS STEAMTSAT STEAMPSAT STEAMH STEAMLATENT FUELHV RXNSOURCE RXNVERSION; do
   check "function list has $f" "$(grep '^functions' <<<"$out")" " $f\b"
 done
 # MOLARMASS against python3-periodictable, within 0.01 g/mol (as the engine tests).

@@ -93,6 +93,7 @@ enum class ArgKind : unsigned char {
     feed,         ///< a two-column range: species, amount (mol); blank rows skipped
     reactions,    ///< a column or row of reaction texts, kept by position (RXNHESS's steps)
     numbers,      ///< a column or row of numbers, kept by position (RXNHESS's step values)
+    fuel,         ///< a species (text), or a two-column range: species, mole fraction or mol % (as feed)
     rest,         ///< every argument from here on, unread (RXNWHY's "arguments…")
 };
 /// True for the kinds that read a whole one-dimensional range as a list (given on the command line

@@ -112,7 +112,8 @@ struct Conditions {
 };
 
 /// One row of a feed (RXNEQX): a species as a user writes it and its amount, in mol (or any one
-/// amount or flow unit for every row: only the ratios matter).
+/// amount or flow unit for every row: only the ratios matter). A fuel's composition (FUELHV) is
+/// given in the same rows, amount_mol holding the mole fraction or mol %.
 struct FeedItem {
     std::string species;
     double amount_mol = 0;
@@ -244,6 +245,24 @@ public:
     double hess(std::string_view target, const std::vector<HessStep>& steps, std::string_view unit = {});
     /// The combination hess() uses, by step number: "1×(1) − 2×(3) + 1/2×(4)" (step values unused).
     std::string hess_plan(std::string_view target, const std::vector<HessStep>& steps);
+    /// Heating value (FUELHV): −ΔcH° at 298.15 K of complete combustion with O2 (C -> CO2(g),
+    /// H -> H2O(l) for basis "HHV", the default, or H2O(g) for "LHV", in any letter case;
+    /// S -> SO2(g); N -> N2(g)), the reactions built and balanced from each component's
+    /// composition. `composition`: species and mole fraction or mol % (in FeedItem::amount_mol),
+    /// summing to 1 or 100 within 0.5 % (then scaled to 1); components that are themselves
+    /// combustion products (CO2, H2O, SO2, N2), O2 and the noble gases are inerts (zero). A
+    /// mixture is weighted by mole fraction per mole, and per mass by its mean molar mass (inerts
+    /// included). `unit` (empty: MJ/kg): per mass MJ/kg, kJ/kg, kJ/g, kcal/kg, BTU/lb; per mole
+    /// the units of dh(); per gas volume MJ/Nm3, kWh/Nm3 (0 °C), MJ/Sm3, kWh/Sm3 (15 °C),
+    /// BTU/scf (60 °F, 14.696 psia), all at 101.325 kPa as an ideal gas (no compressibility),
+    /// which needs every component to be a gas at 25 °C. Species without a phase are taken in
+    /// the phase stable at 25 °C. Positive; throws Error for any other element than C, H, N, O,
+    /// S (and a noble gas alone), a fuel of inerts only, or one that gives off no heat.
+    double heating_value(const std::vector<FeedItem>& composition, std::string_view basis = {},
+                         std::string_view unit = {}, const Conditions& at = {});
+    /// The same for one species alone.
+    double heating_value(std::string_view species, std::string_view basis = {}, std::string_view unit = {},
+                         const Conditions& at = {});
     /// Everything at once, for reports.
     ReactionReport report(std::string_view reaction, const Conditions& at = {});
 
