@@ -5,9 +5,10 @@
 #include <CLI/CLI.hpp>
 
 #include <algorithm>
-#include <cerrno>
 #include <cctype>
+#include <cerrno>
 #include <cstdlib>
+#include <cstring>
 #include <memory>
 
 namespace rxnheat::cli {
@@ -51,17 +52,30 @@ CommandDef command_from(const FunctionSpec& f) {
     c.name = f.cli_command;
     c.function = &f;
     c.summary = f.summary;
+    std::vector<PositionalDef> feed_words;  // after every other positional: they take the remaining words
     for (std::size_t i = 0; i < f.args.size(); ++i) {
         const ArgSpec& a = f.args[i];
         if (a.kind == ArgKind::feed) {
-            // A feed is SPECIES=MOL words: the remaining positionals, or repeated options (or both).
+            // A feed is SPECIES=MOL words: the remaining positionals (a required feed only), or
+            // repeated options named by the catalogue row (or both).
+            std::string name = a.name;
+            std::replace(name.begin(), name.end(), '_', ' ');
+            // The catalogue's text describes the cell range: its words on the value are kept.
+            std::string meaning = a.help;
+            for (const char* cells : {"A two-column range: species, ", "Blank rows are skipped; ",
+                                      "Blank rows are skipped. ", " Blank rows are skipped."})
+                if (const auto at = meaning.find(cells); at != std::string::npos) {
+                    meaning.erase(at, std::strlen(cells));
+                    if (at < meaning.size() && at > 0)
+                        meaning[at] = static_cast<char>(std::toupper(meaning[at]));
+                }
             const std::string help =
-                "Each species of the feed and its amount in mol (or any one amount unit for every species: only the "
-                "ratios matter), as SPECIES=MOL, e.g. N2=1 H2=3; species not in the reaction are inerts.";
-            c.positionals.push_back({a.cli_value, false, true, help, i});
+                "The " + name + " as " + a.cli_value + " words, one per species, e.g. N2=1 H2=3: " + meaning;
+            if (a.required) feed_words.push_back({a.cli_value, false, true, help, i});
             OptionDef o = option_from(a, i);
-            o.help = "One species of the feed and its amount, SPECIES=MOL; give it once per species (instead of or "
-                     "besides the words after the other arguments).";
+            o.help = "One species of the " + name + " and its amount, " + a.cli_value +
+                     "; give it once per species" +
+                     (a.required ? " (instead of or besides the words after the other arguments)." : ".");
             o.repeatable = true;
             c.options.push_back(o);
             continue;
@@ -87,6 +101,7 @@ CommandDef command_from(const FunctionSpec& f) {
         p.arg_index = i;
         c.positionals.push_back(p);
     }
+    c.positionals.insert(c.positionals.end(), feed_words.begin(), feed_words.end());
     return c;
 }
 

@@ -101,6 +101,19 @@ ArgSpec temperature_required_arg() {
 ArgSpec table_arg() { return {"table", ArgKind::table, false, "", table_help, false, "--table", "FILE.csv"}; }
 ArgSpec species_arg() { return {"species", ArgKind::species, true, "", species_help, true, nullptr, "SPECIES"}; }
 
+ArgSpec flow_unit_arg() {
+    return {"flow_unit", ArgKind::unit, false, "kmol/h",
+            "Unit of every flow: kmol/h (default), or any amount, mass or normal gas volume of RXNLOAD per s, min, h "
+            "or d (mol/s, kg/h, t/d, lb/h, Nm3/h, scf/d), or a total amount (kmol, kg, Nm3) for an energy result.",
+            false, "--flow-unit", "UNIT"};
+}
+ArgSpec stream_result_unit_arg() {
+    return {"result_unit", ArgKind::unit, false, "kW or kJ",
+            "For flows: kW (default), W, MW, kcal/h, Gcal/h, BTU/h, MMBTU/h, TR. For total amounts: kJ (default), "
+            "J, MJ, GJ, kWh, MWh, kcal, BTU, MMBTU, therm.",
+            false, "-u,--unit", "UNIT"};
+}
+
 std::string unit_or(std::string_view given, const char* fallback) {
     return given.empty() ? std::string(fallback) : std::string(given);
 }
@@ -197,6 +210,19 @@ Outcome fuel_call(Engine& e, const Bound& b) {
     const double v = b.feed.empty() ? e.heating_value(b.text(0), b.text(1), b.text(2), b.at)
                                     : e.heating_value(b.feed, b.text(1), b.text(2), b.at);
     return Outcome::of(v, unit_or(b.text(2), "MJ/kg"));
+}
+Outcome streamh_call(Engine& e, const Bound& b) {
+    return Outcome::of(e.stream_enthalpy(b.feed, b.text(2), b.text(3), b.at), Engine::stream_unit(b.text(2), b.text(3)));
+}
+Outcome duty_call(Engine& e, const Bound& b) {
+    const double v = e.duty(b.text(0), b.feed, b.number(2), b.text(3), b.number(4), b.number(5), b.text(6), b.text(7),
+                            b.at.table);
+    return Outcome::of(v, Engine::stream_unit(b.text(6), b.text(7)));
+}
+Outcome tad_call(Engine& e, const Bound& b) {
+    Conditions at = b.at;
+    at.temperature_K = b.number(1);
+    return Outcome::of(e.adiabatic_temperature(b.text(0), b.feed, b.number(3, 1.0), at), "K");
 }
 Outcome source_call(Engine& e, const Bound& b) { return Outcome::of_text(e.source(b.text(0), b.at)); }
 Outcome version_call(Engine&, const Bound& b) {
@@ -460,6 +486,68 @@ std::vector<FunctionSpec> make_catalogue() {
            false, "-u,--unit", "UNIT"},
           table_arg()},
          Returns::number, layer_all, none, false, fuel_call},
+        {"STREAMH", "streamH", "streamh", "enthalpy flow of a stream on the formation basis",
+         "Enthalpy flow of a stream, Σ F·H°(T), on the formation basis: elements in their reference states at "
+         "298.15 K have H = 0, so the difference of two streams is a heat duty. H° = ΔfH°(298.15 K) + [H°(T) − "
+         "H°(298.15 K)] from the built-in data (NASA Glenn) or your table; a species without a phase is taken in "
+         "the phase stable at the temperature. Default flows kmol/h, result kW.",
+         {{"stream", ArgKind::feed, true, "",
+           "A two-column range: species, flow in flow_unit (e.g. CH4(g) and 12.5). Blank rows are skipped.", false,
+           "--stream", "SPECIES=FLOW"},
+          temperature_required_arg(), flow_unit_arg(), stream_result_unit_arg(), table_arg()},
+         Returns::number, layer_calc | layer_cli,
+         "C: the stream is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
+         "Engine::stream_enthalpy.",
+         false, streamh_call},
+        {"RXNDUTY", "rxnDuty", "duty", "heat duty of a reactor from its feed, conversion and temperatures",
+         "Heat to supply to a reactor (negative: to remove): the feed enters at the inlet temperature, the given "
+         "conversion of the key reactant reacts by the reaction as written, and everything leaves at the outlet "
+         "temperature; = STREAMH(outlet stream) − STREAMH(feed). Feed species not in the reaction are inerts. An "
+         "error if a reactant would run out. Default flows kmol/h, result kW." RXNHEAT_CAUTION,
+         {reaction_arg(),
+          {"feed", ArgKind::feed, true, "",
+           "A two-column range: species, flow in flow_unit. Blank rows are skipped; species not in the reaction are "
+           "inerts.",
+           false, "--feed", "SPECIES=FLOW"},
+          {"conversion", ArgKind::number, true, "", "The fraction of the key species fed that reacts, from 0 to 1.",
+           false, nullptr, "CONVERSION"},
+          {"key", ArgKind::species, true, "", "The reactant whose conversion is given, e.g. \"CO\".", false, nullptr,
+           "KEY"},
+          {"inlet_temperature", ArgKind::temperature, true, "",
+           "Temperature of the feed: a number in kelvin, or text with a unit such as \"350 C\".", true, nullptr,
+           "T_IN"},
+          {"outlet_temperature", ArgKind::temperature, true, "",
+           "Temperature of every stream leaving: a number in kelvin, or text with a unit such as \"350 C\".", true,
+           nullptr, "T_OUT"},
+          flow_unit_arg(), stream_result_unit_arg(), table_arg()},
+         Returns::number, layer_calc | layer_cli,
+         "C: the feed is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
+         "Engine::duty.",
+         false, duty_call},
+        {"RXNTAD", "rxnTad", "tad", "adiabatic outlet temperature of a reaction's feed",
+         "Adiabatic outlet temperature (K) of the reaction's feed as written (each reactant its coefficient, in "
+         "mol per mol of reaction) plus the extra feed (inerts, excess air as O2 + 3.76 N2 per mol O2), after the "
+         "conversion of the limiting reactant (default 1): where the enthalpy of the products equals that of the "
+         "feed, solved on the NASA Glenn H°(T) curves with each species in its phase as written. No dissociation: "
+         "above about 2000 K a real flame is cooler. An error when the answer leaves the data's temperature "
+         "range." RXNHEAT_CAUTION,
+         {reaction_arg(),
+          {"feed_temperature", ArgKind::temperature, true, "",
+           "Temperature of the feed: a number in kelvin, or text with a unit such as \"25 C\".", true, nullptr,
+           "FEED_TEMP"},
+          {"extra_feed", ArgKind::feed, false, "",
+           "A two-column range: species, mol per mol of reaction, fed besides the reactants as written (e.g. N2 and "
+           "7.52 for the air of a methane flame). Omitted: none.",
+           false, "--extra", "SPECIES=MOL"},
+          {"conversion", ArgKind::number, false, "1",
+           "The fraction of the limiting reactant that reacts, from 0 to 1. Omitted, empty or blank (in Calc also "
+           "0): 1.",
+           false, "--conversion", "X"},
+          table_arg()},
+         Returns::number, layer_calc | layer_cli,
+         "C: the extra feed is a range, and ranges do not cross the C interface (rxnheat.h); C++ callers use "
+         "Engine::adiabatic_temperature.",
+         false, tad_call},
         {"RXNSOURCE", "rxnSource", "source", "where every number used came from",
          "Text naming where every number used for the reaction or species came from: the data set, its record "
          "and its publication, and the phase used at the temperature.",
@@ -646,7 +734,7 @@ void read_feed(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound& 
         }
         b.feed.push_back({std::string(trim(species.text)), v.number});
     }
-    if (b.feed.empty()) bad(a, "is required, and every row of it is blank");
+    if (b.feed.empty() && a.required) bad(a, "is required, and every row of it is blank");
 }
 
 /// A list: a column or row of cells (or one cell), read one by one by the list's element kind,
@@ -701,6 +789,9 @@ void read_whole(const Arg& arg, const ArgSpec& a, const HostRules& rules, Bound&
         return;
     }
     if (a.kind == ArgKind::feed || (a.kind == ArgKind::fuel && arg.kind == Arg::Kind::range && arg.rows * arg.cols != 1)) {
+        if (a.kind == ArgKind::feed && !a.required &&
+            (arg.kind == Arg::Kind::omitted || (arg.kind == Arg::Kind::cell && blank_cell(arg.cell, a, rules))))
+            return;  // an optional feed (RXNTAD's extra_feed): none
         read_feed(arg, a, rules, b);  // a fuel's composition is read as a feed (fractions for amounts)
         out.given = !b.feed.empty();
         return;

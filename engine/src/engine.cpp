@@ -416,6 +416,294 @@ double Engine::heating_value(std::string_view species, std::string_view basis, s
     return detail::fuel_heating_value({FeedItem{std::string(species), 1.0}}, true, basis, unit, at.table);
 }
 
+// ---- heat balances: STREAMH, RXNDUTY, RXNTAD ------------------------------------------------------
+
+namespace {
+
+/// The flow unit of a stream when none is given (SPEC section 4, STREAMH).
+constexpr std::string_view default_flow_unit = "kmol/h";
+
+std::string_view flow_unit_or_default(std::string_view flow_unit) {
+    flow_unit = trim(flow_unit);
+    return flow_unit.empty() ? default_flow_unit : flow_unit;
+}
+
+/// One species of a reactor's streams: its data, its net coefficient in the reaction (0: an
+/// inert) and its amount in, in mol (or mol/s).
+struct StreamSpecies {
+    Substance substance;
+    std::string name;  ///< as used at the feed temperature, for messages
+    double nu = 0;
+    double in_mol = 0;
+    bool fed = false;
+};
+
+/// Two rows of a stream name one species when they have one composition and, at T, one phase
+/// (a species written without a phase is then the same as the one written with it).
+std::string same_species_key(const Substance& s, double T) {
+    return s.composition.key() + "|" + std::string(1, s.phase_at(T));
+}
+
+/// The reaction's species netted by identity (a species on both sides counts once), in order of
+/// first appearance; `group[i]` is the entry of term i.
+std::vector<StreamSpecies> reaction_species(const Prepared& p, double T, std::vector<std::size_t>& group) {
+    std::vector<StreamSpecies> sp;
+    group.assign(p.terms.size(), 0);
+    for (std::size_t i = 0; i < p.terms.size(); ++i) {
+        const std::string id = p.substances[i].identity();
+        std::size_t g = 0;
+        while (g < sp.size() && sp[g].substance.identity() != id) ++g;
+        if (g == sp.size()) sp.push_back({p.substances[i], p.substances[i].display_at(T), 0, 0, false});
+        sp[g].nu += detail::to_double(p.nu[i]);
+        group[i] = g;
+    }
+    return sp;
+}
+
+/// Adds a feed to `sp` (the reaction's species, first `reacting` entries): a row of a species of
+/// the reaction (by composition, and by phase when one is written) adds to it, any other row is
+/// an inert, resolved so that an unknown species is an error. `to_mol` turns a row's amount into
+/// mol (or mol/s) given the species' molar mass. `what` names the feed in messages.
+template <class ToMol>
+void add_feed(std::vector<StreamSpecies>& sp, std::size_t reacting, const Prepared& p,
+              const std::vector<std::size_t>& group, const std::vector<FeedItem>& feed,
+              const SpeciesTable* table, double T, const char* what, ToMol to_mol) {
+    const Database& db = Database::get();
+    for (const FeedItem& item : feed) {
+        if (!std::isfinite(item.amount_mol) || item.amount_mol < 0)
+            throw Error(ErrorKind::argument, std::string("the ") + what + " amount of '" + item.species +
+                                                 "' must be a number, zero or more (got " +
+                                                 number_words(item.amount_mol) + ")");
+        const auto fs = parse_one_species(item.species, "the feed species");
+        const std::string want = db.composition(fs, table).key();
+        const char want_phase = fs.phase.empty() ? 0 : fs.phase == "aq" ? 'a' : fs.phase[0];
+        std::size_t match = reacting;
+        for (std::size_t i = 0; i < p.terms.size(); ++i) {
+            if (p.composition_keys[i] != want) continue;
+            if (want_phase && p.substances[i].phase_at(T) != want_phase) continue;
+            if (match != reacting && match != group[i])
+                throw Error(ErrorKind::argument, std::string("the ") + what + " species '" + item.species +
+                                                     "' fits more than one species of the reaction (" +
+                                                     sp[match].name + ", " + sp[group[i]].name +
+                                                     "); write its phase");
+            match = group[i];
+        }
+        if (match == reacting) {
+            Substance inert = db.resolve(fs, table);
+            for (std::size_t k = reacting; k < sp.size(); ++k)
+                if (same_species_key(sp[k].substance, T) == same_species_key(inert, T))
+                    throw Error(ErrorKind::argument, std::string("the ") + what + " names '" + item.species +
+                                                         "' twice; give each species once");
+            const double mol = to_mol(item.amount_mol, inert.molar_mass);
+            std::string name = inert.display_at(T);
+            sp.push_back({std::move(inert), std::move(name), 0, mol, true});
+            continue;
+        }
+        if (sp[match].fed)
+            throw Error(ErrorKind::argument, std::string("the ") + what + " names " + sp[match].name +
+                                                 " twice; give each species once");
+        sp[match].fed = true;
+        sp[match].in_mol += to_mol(item.amount_mol, sp[match].substance.molar_mass);
+    }
+}
+
+void check_conversion(double conversion) {
+    if (!std::isfinite(conversion) || conversion < 0 || conversion > 1)
+        throw Error(ErrorKind::argument, "the conversion must be a fraction from 0 to 1 (got " +
+                                             number_words(conversion) +
+                                             "; a percentage such as 90 % is written 0.9)");
+}
+
+}  // namespace
+
+std::string Engine::stream_unit(std::string_view flow_unit, std::string_view result_unit) {
+    return load_unit(flow_unit_or_default(flow_unit), result_unit);
+}
+
+double Engine::stream_enthalpy(const std::vector<FeedItem>& stream, std::string_view flow_unit,
+                               std::string_view result_unit, const Conditions& at) {
+    const double T = at.temperature_K;
+    check_temperature(T);
+    const std::string_view unit = flow_unit_or_default(flow_unit);
+    const bool rate = detail::quantity_unit(unit).is_rate();
+    if (stream.empty())
+        throw Error(ErrorKind::argument, "the stream is empty; give each species of it and its flow");
+    std::vector<std::string> seen;  // composition and phase at T: "CH4" and "CH4(g)" are one species at 500 K
+    double total = 0;
+    for (const FeedItem& item : stream) {
+        if (!std::isfinite(item.amount_mol) || item.amount_mol < 0)
+            throw Error(ErrorKind::argument, "the flow of '" + item.species +
+                                                 "' must be a number, zero or more (got " +
+                                                 number_words(item.amount_mol) + ")");
+        const Substance s = resolve_one(item.species, at.table);
+        const std::string id = same_species_key(s, T);
+        for (const auto& other : seen)
+            if (other == id)
+                throw Error(ErrorKind::argument,
+                            "the stream names " + s.display_at(T) + " twice; give each species once");
+        seen.push_back(id);
+        const double mol = detail::quantity_to_mol(item.amount_mol, unit, s.molar_mass);
+        if (mol != 0) total += mol * s.H(T);
+    }
+    return detail::load_result(total, result_unit, rate, unit);
+}
+
+double Engine::duty(std::string_view reaction, const std::vector<FeedItem>& feed, double conversion,
+                    std::string_view key, double inlet_K, double outlet_K, std::string_view flow_unit,
+                    std::string_view result_unit, const SpeciesTable* table) {
+    check_temperature(inlet_K);
+    check_temperature(outlet_K);
+    check_conversion(conversion);
+    const std::string_view unit = flow_unit_or_default(flow_unit);
+    const bool rate = detail::quantity_unit(unit).is_rate();
+    const auto p = impl_->prepare(reaction, table);
+    p->require_thermo();
+    if (feed.empty())
+        throw Error(ErrorKind::argument, "the feed is empty; give each species of the feed and its flow");
+
+    std::vector<std::size_t> group;
+    std::vector<StreamSpecies> sp = reaction_species(*p, inlet_K, group);
+    const std::size_t reacting = sp.size();
+
+    // The key: a reactant of the reaction.
+    if (trim(key).empty()) throw Error(ErrorKind::argument, "name the key species whose conversion is given");
+    const auto ks = parse_one_species(key, "the key species");
+    std::size_t idx = 0;
+    p->key_coefficient(ks, table, inlet_K, &idx);  // throws when not in the reaction or ambiguous
+    const std::size_t k = group[idx];
+    if (sp[k].nu > 0)
+        throw Error(ErrorKind::argument,
+                    "the key species " + sp[k].name + " is a product; the conversion is of a reactant");
+
+    add_feed(sp, reacting, *p, group, feed, table, inlet_K, "feed", [&](double amount, double molar_mass) {
+        return detail::quantity_to_mol(amount, unit, molar_mass);
+    });
+    if (!(sp[k].in_mol > 0))
+        throw Error(ErrorKind::argument,
+                    "the feed has no " + sp[k].name + ", the key species; give its flow in the feed");
+
+    // In the user's flow unit, for messages (the conversion is linear in every unit).
+    const auto in_unit = [&](const StreamSpecies& s, double mol) {
+        return number_words(mol / detail::quantity_to_mol(1, unit, s.substance.molar_mass)) + " " +
+               std::string(unit);
+    };
+    const double xi = conversion * sp[k].in_mol / -sp[k].nu;
+    double dH = 0;
+    for (const StreamSpecies& s : sp) {
+        const double change = s.nu * xi;
+        double out = s.in_mol + change;
+        if (s.nu < 0 && out < 0) {
+            // Rounding may leave −1e-16 of a reactant fed exactly in proportion.
+            if (out >= -1e-12 * s.in_mol)
+                out = 0;
+            else
+                throw Error(ErrorKind::argument, s.name + " runs out: converting " +
+                                                     number_words(conversion) + " of the " +
+                                                     in_unit(sp[k], sp[k].in_mol) + " of " + sp[k].name +
+                                                     " needs " + in_unit(s, -change) + " of " + s.name +
+                                                     ", and the feed has " + in_unit(s, s.in_mol));
+        }
+        // Per species, out minus in: at one temperature this is exactly ν·ξ·H°, so that the
+        // enthalpies of formation do not cancel in a sum of large terms.
+        if (out != 0 || s.in_mol != 0)
+            dH += out * s.substance.H(outlet_K) - s.in_mol * s.substance.H(inlet_K);
+    }
+    return detail::load_result(dH, result_unit, rate, unit);
+}
+
+double Engine::adiabatic_temperature(std::string_view reaction, const std::vector<FeedItem>& extra_feed,
+                                     double conversion, const Conditions& at) {
+    const double T_feed = at.temperature_K;
+    check_temperature(T_feed);
+    check_conversion(conversion);
+    const auto p = impl_->prepare(reaction, at.table);
+    p->require_thermo();
+
+    // The feed as written: each reactant its coefficient, in mol per mol of reaction; then the extra feed.
+    std::vector<std::size_t> group;
+    std::vector<StreamSpecies> sp = reaction_species(*p, T_feed, group);
+    const std::size_t reacting = sp.size();
+    for (auto& s : sp)
+        if (s.nu < 0) s.in_mol = -s.nu;
+    add_feed(sp, reacting, *p, group, extra_feed, at.table, T_feed, "extra feed",
+             [](double amount, double) { return amount; });
+
+    // The limiting reactant sets the extent.
+    double extent = HUGE_VAL;
+    for (std::size_t g = 0; g < reacting; ++g)
+        if (sp[g].nu < 0) extent = std::min(extent, sp[g].in_mol / -sp[g].nu);
+    if (!std::isfinite(extent)) throw Error(ErrorKind::argument, "the reaction has no reactant");
+    const double xi = conversion * extent;
+
+    std::vector<double> out(sp.size());
+    double H_in = 0;
+    for (std::size_t g = 0; g < sp.size(); ++g) {
+        out[g] = std::max(0.0, sp[g].in_mol + sp[g].nu * xi);
+        if (sp[g].in_mol != 0) H_in += sp[g].in_mol * sp[g].substance.H(T_feed);
+    }
+    // f(T) = H_out(T) − H_in: rises with T (Cp > 0; a phase change without a written phase is a
+    // step up). Throws Error(out_of_range) where a species has no data.
+    const auto f = [&](double T) {
+        double h = 0;
+        for (std::size_t g = 0; g < sp.size(); ++g)
+            if (out[g] != 0) h += out[g] * sp[g].substance.H(T);
+        return h - H_in;
+    };
+    const double f_feed = f(T_feed);
+    if (f_feed == 0) return T_feed;
+
+    // March from the feed temperature towards the root (up for heat released, down for heat
+    // taken up) until f changes sign; where the data end, the last temperature with data is found
+    // by bisection and the answer must lie before it.
+    const double dir = f_feed < 0 ? 1.0 : -1.0;
+    const double step = dir > 0 ? 50.0 : 10.0;
+    double a = T_feed, fa = f_feed, b = T_feed, fb = f_feed;
+    for (int n = 1;; ++n) {
+        const double T = T_feed + dir * step * n;
+        if (T <= 0 || n > 2000) {
+            throw Error(ErrorKind::out_of_range, "the adiabatic temperature lies below " + number_words(a) +
+                                                     " K, where no temperature above 0 K balances the heat");
+        }
+        try {
+            fb = f(T);
+            b = T;
+        } catch (const Error& e) {
+            if (e.kind() != ErrorKind::out_of_range) throw;
+            // The last temperature with data, between a (data) and T (none).
+            double good = a, none = T;
+            for (int i = 0; i < 80 && std::fabs(none - good) > 1e-9 * good; ++i) {
+                const double mid = 0.5 * (good + none);
+                try {
+                    f(mid);
+                    good = mid;
+                } catch (const Error& inner) {
+                    if (inner.kind() != ErrorKind::out_of_range) throw;
+                    none = mid;
+                }
+            }
+            const double f_good = f(good);
+            if ((f_good < 0) == (fa < 0) && f_good != 0)
+                throw Error(ErrorKind::out_of_range,
+                            "the adiabatic temperature lies " + std::string(dir > 0 ? "above " : "below ") +
+                                number_words(good) + " K, where the data end, so it is not computed (" +
+                                e.what() + ")");
+            b = good;
+            fb = f_good;
+        }
+        if (fb == 0) return b;
+        if ((fb < 0) != (fa < 0)) break;
+        a = b;
+        fa = fb;
+    }
+    std::uintmax_t iterations = 200;
+    const double lo = std::min(a, b), hi = std::max(a, b);
+    const double flo = lo == a ? fa : fb, fhi = lo == a ? fb : fa;
+    const auto root = boost::math::tools::toms748_solve(
+        f, lo, hi, flo, fhi, boost::math::tools::eps_tolerance<double>(48), iterations);
+    if (iterations >= 200) throw Error(ErrorKind::internal, "the adiabatic temperature did not converge");
+    return 0.5 * (root.first + root.second);
+}
+
 std::string Engine::load_unit(std::string_view quantity_unit, std::string_view result_unit) {
     result_unit = trim(result_unit);
     if (!result_unit.empty()) return std::string(result_unit);

@@ -46,10 +46,12 @@ std::string layers(const FunctionSpec& f) {
 std::string cli_arguments(const FunctionSpec& f) {
     std::string out;
     // A required argument is a positional even where it has an option name (SPECIESCP's TEMP).
-    for (const auto& a : f.args)
-        if (!a.cli_option || (a.required && !is_list(a.kind)))
-            out += std::string(out.empty() ? "" : " ") + a.cli_value +
-                   (a.kind == ArgKind::rest || a.kind == ArgKind::feed || a.kind == ArgKind::fuel ? "..." : "");
+    // A required feed's SPECIES=MOL words come after every other positional (they take the rest).
+    for (const bool feed : {false, true})
+        for (const auto& a : f.args)
+            if ((!a.cli_option || (a.required && !is_list(a.kind))) && (a.kind == ArgKind::feed) == feed)
+                out += std::string(out.empty() ? "" : " ") + a.cli_value +
+                       (a.kind == ArgKind::rest || a.kind == ArgKind::feed || a.kind == ArgKind::fuel ? "..." : "");
     for (const auto& a : f.args)
         if (a.cli_option && (!a.required || a.kind == ArgKind::feed || is_list(a.kind))) {  // given repeated
             std::string opt = a.cli_option;

@@ -62,6 +62,10 @@ DOCUMENTED_FUNCTIONS = {
     "STEAMH": ["pressure", "temperature", "state"],
     "STEAMLATENT": ["pressure"],
     "FUELHV": ["fuel", "basis", "unit", "table"],
+    "STREAMH": ["stream", "temperature", "flow_unit", "result_unit", "table"],
+    "RXNDUTY": ["reaction", "feed", "conversion", "key", "inlet_temperature", "outlet_temperature",
+                "flow_unit", "result_unit", "table"],
+    "RXNTAD": ["reaction", "feed_temperature", "extra_feed", "conversion", "table"],
     "RXNSOURCE": ["reaction_or_species", "table", "temperature"],
     "RXNVERSION": [],
 }
@@ -290,6 +294,31 @@ def check_why_and_tables(checks, sh):
     checks.ok("RXNHESS: ranges of different lengths are Err:502", hess[2].error == ERR_ILLEGAL_ARGUMENT,
               repr(hess[2]))
     checks.ok("RXNWHY of an unbalanced RXNHESS target says so", "not balanced" in hess[3].text, repr(hess[3]))
+    # RXNTAD, the example: N2 and 7.52 in a range (3.76 mol N2 per mol O2, common practice);
+    # the no-dissociation flame temperature of stoichiometric methane-air is about 2320-2330 K
+    # (combustion textbooks, from memory). STREAMH of an element at 298.15 K is 0 (formation
+    # basis); RXNDUTY with inlet = outlet is RXNLOAD of the amount converted.
+    sh.put("BA1", "N2")
+    sh.put("BB1", 7.52)
+    sh.put("BA3", "CO")
+    sh.put("BB3", 36)
+    sh.put("BA4", "H2O")
+    sh.put("BB4", 36)
+    heat = sh.evaluate(['=RXNTAD(%s;298.15;BA1:BB1)' % q(CH4_COMBUSTION_GAS),
+                        '=RXNTAD(%s;"25 C";BA1:BB1;0.5)' % q(CH4_COMBUSTION_GAS),
+                        '=STREAMH(BA1:BB1;298.15)',
+                        '=RXNDUTY("CO(g) + H2O(g) -> CO2(g) + H2(g)";BA3:BB4;0.5;"CO";500;500)',
+                        '=RXNLOAD("CO(g) + H2O(g) -> CO2(g) + H2(g)";18;"kmol/h";"CO";;500)',
+                        '=RXNDUTY("CO(g) + H2O(g) -> CO2(g) + H2(g)";BA3:BB4;1.5;"CO";500;500)'])
+    checks.ok("RXNTAD of methane in air near 2325 K", heat[0].number is not None and
+              abs(heat[0].number - 2325) < 15, repr(heat[0]))
+    checks.ok("RXNTAD at half conversion is cooler", heat[1].number is not None and heat[0].number is not None
+              and 298.15 < heat[1].number < heat[0].number, repr(heat[1]))
+    checks.ok("STREAMH of N2 at 298.15 K is 0", heat[2].number == 0, repr(heat[2]))
+    checks.ok("RXNDUTY at one temperature is RXNLOAD of the amount converted", heat[3].number is not None and
+              heat[4].number is not None and abs(heat[3].number - heat[4].number) < 1e-9 * abs(heat[4].number),
+              repr(heat[3:5]))
+    checks.ok("RXNDUTY: a conversion of 1.5 is Err:502", heat[5].error == ERR_ILLEGAL_ARGUMENT, repr(heat[5]))
     # A column of 3 reactions with a row of 5 temperatures: the whole 3×5 table in one call.
     reactions = [CH4_COMBUSTION_GAS, "2 H2(g) + O2(g) -> 2 H2O(g)", "1/2 N2(g) + 3/2 H2(g) -> NH3(g)"]
     temperatures = [298.15, 400, "176.85 C", 500, "990 R"]  # 450 K = 176.85 °C, 550 K = 990 °R

@@ -239,14 +239,15 @@ TEST_CASE("rxnheat_why and the function list", "[capi][why]") {
     for (const auto& f : rxnheat::catalogue())
         if (f.in(rxnheat::layer_c)) in_c.insert(f.calc_name);
     CHECK(listed == in_c);
-    // engine/FUNCTIONS.md: the 26 cell functions of today (see test_catalogue.cpp) but RXNEQX, whose
-    // feed is a range, and RXNHESS and RXNHESSPLAN, whose steps are (recorded gaps of the C layer).
-    // FUELHV is in it for one species (text).
+    // engine/FUNCTIONS.md: the 29 cell functions of today (see test_catalogue.cpp) but RXNEQX, STREAMH,
+    // RXNDUTY and RXNTAD, whose feed or stream is a range, and RXNHESS and RXNHESSPLAN, whose steps
+    // are (recorded gaps of the C layer). FUELHV is in it for one species (text).
     CHECK(listed.size() == 23);
     CHECK(listed.count("FUELHV") == 1);
     CHECK(listed.count("RXNEQX") == 0);
     CHECK(listed.count("RXNHESS") == 0);
     CHECK(listed.count("RXNHESSPLAN") == 0);
+    for (const char* name : {"STREAMH", "RXNDUTY", "RXNTAD"}) CHECK(listed.count(name) == 0);
 }
 
 TEST_CASE("rxnheat_call reaches the steam functions (IAPWS-IF97)", "[capi][steam]") {

@@ -387,7 +387,7 @@ TEST_CASE("every catalogue row is well-formed", "[catalogue][rows]") {
     const std::set<std::string> spec = {"RXNDH",     "RXNDU",     "RXNDS",     "RXNDG",     "RXNLOGK",   "RXNLOAD",   "RXNKIND",   "RXNCHECK",
                                         "RXNBALANCE", "RXNREVERSE", "RXNSCALE", "RXNWHY",    "SPECIESHF",
                                         "SPECIESCP", "SPECIESH",  "MOLARMASS", "RXNEQX",    "RXNHESS", "RXNHESSPLAN", "STEAMTSAT", "STEAMPSAT",
-                                        "STEAMH",    "STEAMLATENT", "FUELHV", "RXNSOURCE", "RXNVERSION"};
+                                        "STEAMH",    "STEAMLATENT", "FUELHV", "STREAMH",   "RXNDUTY", "RXNTAD", "RXNSOURCE", "RXNVERSION"};
     std::set<std::string> calc_names, idl, commands;
     for (const auto& f : all) {
         INFO("function " << (f.calc_name ? f.calc_name : "(null)"));
@@ -505,6 +505,28 @@ TEST_CASE("every catalogue row's call works on a sample input", "[catalogue][row
         {"FUELHV", {{text("CH4(g)")}, [](const rxnheat::Outcome& o) {
              CHECK(o.number == Approx(55.5).epsilon(5e-3));  // methane HHV 55.5 MJ/kg (engineering handbooks, from memory)
              CHECK(o.unit == "MJ/kg");
+         }}},
+        {"STREAMH", {{Arg::range(1, 2, {rxnheat::Cell::of("O2(g)"), rxnheat::Cell::of(3.0)}), num(298.15)},
+                     [](const rxnheat::Outcome& o) {
+             CHECK(o.number == 0.0);  // an element in its reference state at 298.15 K: H = 0 (formation basis)
+             CHECK(o.unit == "kW");
+         }}},
+        {"RXNDUTY", {{text("CO(g) + H2O(g) -> CO2(g) + H2(g)"),
+                      Arg::range(2, 2, {rxnheat::Cell::of("CO"), rxnheat::Cell::of(36.0), rxnheat::Cell::of("H2O"),
+                                        rxnheat::Cell::of(36.0)}),
+                      num(0.5), text("CO"), num(298.15), num(298.15)},
+                     [](const rxnheat::Outcome& o) {
+             // In = out temperature: RXNLOAD of the 18 kmol/h (5 mol/s) converted (the identity of RXNDUTY).
+             CHECK(o.number == Approx(eng().load("CO(g) + H2O(g) -> CO2(g) + H2(g)", 5, "mol/s", "CO")).epsilon(1e-12));
+             CHECK(o.unit == "kW");
+         }}},
+        {"RXNTAD", {{text("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)"), num(298.15),
+                     Arg::range(1, 2, {rxnheat::Cell::of("N2"), rxnheat::Cell::of(7.52)})},
+                    [](const rxnheat::Outcome& o) {
+             // No-dissociation flame temperature of stoichiometric methane-air, about 2320-2330 K
+             // (combustion textbooks, from memory; checked closely in test_heat_balance.cpp).
+             CHECK(o.number == Approx(2325).margin(15));
+             CHECK(o.unit == "K");
          }}},
         {"RXNSOURCE", {{text(CH4)}, [](const rxnheat::Outcome& o) { CHECK(o.text == eng().source(CH4)); }}},
         {"RXNVERSION", {{}, [](const rxnheat::Outcome& o) {

@@ -111,9 +111,10 @@ struct Conditions {
         : temperature_K(T_K), table(user_table) {}
 };
 
-/// One row of a feed (RXNEQX): a species as a user writes it and its amount, in mol (or any one
-/// amount or flow unit for every row: only the ratios matter). A fuel's composition (FUELHV) is
-/// given in the same rows, amount_mol holding the mole fraction or mol %.
+/// One row of a feed or stream (RXNEQX, STREAMH, RXNDUTY, RXNTAD, FUELHV): a species as a user
+/// writes it and its amount (RXNEQX: mol, or any one amount unit, only the ratios matter; STREAMH
+/// and RXNDUTY: a flow in the call's flow unit; RXNTAD: mol per mol of reaction; FUELHV: the mole
+/// fraction or mol %).
 struct FeedItem {
     std::string species;
     double amount_mol = 0;
@@ -263,6 +264,36 @@ public:
     /// The same for one species alone.
     double heating_value(std::string_view species, std::string_view basis = {}, std::string_view unit = {},
                          const Conditions& at = {});
+    // --- heat balances (STREAMH, RXNDUTY, RXNTAD) --------------------------------------------
+    /// Σ Fᵢ·H°ᵢ(T) of a stream on the formation basis (elements in their reference states at
+    /// 298.15 K have H = 0), H° the assigned enthalpy ΔfH°(298.15) + [H°(T) − H°(298.15)].
+    /// Each FeedItem's amount is a flow (or amount) in `flow_unit` (empty: kmol/h): any quantity
+    /// unit of load(), mass units through each species' molar mass, normal volumes as ideal gas.
+    /// `result_unit` any load() result unit of the same kind (empty: kW for a flow, kJ for a
+    /// total). A species without a phase is taken in its phase stable at T.
+    double stream_enthalpy(const std::vector<FeedItem>& stream, std::string_view flow_unit = {},
+                           std::string_view result_unit = {}, const Conditions& at = {});
+    /// The unit stream_enthalpy() and duty() answer in: `result_unit`, or kW / kJ by the flow unit.
+    static std::string stream_unit(std::string_view flow_unit, std::string_view result_unit);
+    /// Heat to supply to a reactor (negative: to remove): `feed` (flows in `flow_unit`, as for
+    /// stream_enthalpy()) enters at `inlet_K`; `conversion` (0–1) of the reactant `key` reacts by
+    /// the reaction as written; everything leaves at `outlet_K`. = stream_enthalpy(out at
+    /// outlet_K) − stream_enthalpy(feed at inlet_K). Feed species of the reaction are matched
+    /// by composition (and phase, when written) and use the reaction's data; others are inerts.
+    /// Throws Error(argument) for a conversion outside 0–1, a key that is no reactant, a
+    /// reactant that would run out (naming it and the amounts).
+    double duty(std::string_view reaction, const std::vector<FeedItem>& feed, double conversion,
+                std::string_view key, double inlet_K, double outlet_K, std::string_view flow_unit = {},
+                std::string_view result_unit = {}, const SpeciesTable* table = nullptr);
+    /// Adiabatic outlet temperature (K) of the reaction's feed as written (each reactant its
+    /// coefficient in mol per mol of reaction) plus `extra_feed` (mol per mol of reaction:
+    /// inerts, excess reactants, products in the feed), fed at at.temperature_K, after
+    /// `conversion` (0–1) of the limiting reactant: the root of Σ nᵢ,out·H°ᵢ(T) = Σ nᵢ,in·H°ᵢ(T_feed)
+    /// on the data's closed-form H°(T), each species in its phase as written. Throws
+    /// Error(out_of_range) when the answer lies outside the data's temperature range.
+    double adiabatic_temperature(std::string_view reaction, const std::vector<FeedItem>& extra_feed = {},
+                                 double conversion = 1, const Conditions& at = {});
+
     /// Everything at once, for reports.
     ReactionReport report(std::string_view reaction, const Conditions& at = {});
 
