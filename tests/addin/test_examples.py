@@ -198,13 +198,13 @@ def check_common(checks, name, path, doc, sheet, formula_cells, words=CAUTION_WO
         kind, value, text = stored.get((a.Column, a.Row), (None, None, None))
         if c.getError() != 0:
             good = False
-        elif kind == "float":
+        elif kind in ("float", "percentage"):   # a % format stores its number as a percentage
             good = abs(float(value) - c.getValue()) <= 1e-9 * max(1.0, abs(c.getValue()))
         else:
             good = kind == "string" and text == c.getString()
         if not good:
-            stale.append("%s: stored %r, now %r" % (c.AbsoluteName, value if kind == "float"
-                                                    else text, c.getString()))
+            stale.append("%s: stored %r, now %r" % (c.AbsoluteName, value if kind in (
+                "float", "percentage") else text, c.getString()))
     checks.ok("%s: the numbers stored in the file are what the add-in computes now (else run "
               "scripts/make-examples)" % name, not stale and formula_cells,
               "; ".join(stale[:3]))
