@@ -21,6 +21,16 @@ Installs the built rxnheat.oxt into a private profile, opens each workbook, reca
   the step values against CODATA Key Values, RXNDH beside them against `rxnheat dh`, the two
   within 0.05 kJ/mol (NASA Glenn takes these species from CODATA), an edited step followed and
   an inconsistent redundant step refused with words in the status cell;
+- batch neutralisation template: protected with its inputs unlocked and marked, ΔrH° of
+  H+ + OH- -> H2O(l) against the CLI and near -55.8 kJ/mol (common practice), the charges in
+  kmol from IUPAC molar masses, the limiting charge, the heat and the adiabatic rise recomputed
+  from the sheet's inputs, the warning cell flipping at the limit and when the charges double,
+  bad inputs giving words and no rise check;
+- equilibrium design sheet: every RXNEQX cell against `rxnheat eqx` and against a bisection
+  here on K from `rxnheat logk`, conversion higher at the higher pressure and lower at higher
+  temperature (common practice), the heat released against -ΔrH° × converted N2, the chart
+  (XY scatter, one series per pressure over the temperature column), an edited pressure
+  followed and 0 bar giving Err:502;
 - all of them: the stored numbers are the ones the engine computes now (else: run
   scripts/make-examples), the add-in calls are stored the way LibreOffice stores them, the
   invented plant and the cautions are on the sheet.
@@ -29,6 +39,7 @@ Run by CTest. Time-bound (--timeout); the office is killed on any failure. Exit 
 every check passed.
 """
 import argparse
+import math
 import os
 import re
 import shutil
@@ -49,6 +60,8 @@ COSTING = "heat-load-costing.fods"
 OPERATOR = "operator-template.fods"
 DESIGN = "design-dh-vs-temperature.fods"
 HESS = "hess-law-worksheet.fods"
+NEUTRALISATION = "batch-neutralisation.fods"
+EQUILIBRIUM = "design-equilibrium.fods"
 
 # Molar gas constant, CODATA 2018 (exact in the 2019 SI): 8.31446261815324 J/(mol K).
 R = 8.31446261815324
@@ -165,20 +178,24 @@ def stored_cells(path, sheet_name):
     return out
 
 
-def check_common(checks, name, path, doc, sheet, formula_cells):
+CAUTION_WORDS = ("Hallistry Marsh Works", "invented plant", "screening estimate", "calorimetry",
+                 "process hazard analysis", "licensed engineers", "complete conversion",
+                 "standard-state")
+
+
+def check_common(checks, name, path, doc, sheet, formula_cells, words=CAUTION_WORDS):
     """Stored file form, plant, cautions, and stored numbers equal to the recalculated ones."""
     formulas = stored_formulas(path)
     ours = [f for f in formulas if re.search(r"RXN|SPECIES|MOLARMASS", f)]
     checks.ok("%s: has rxnheat formulas" % name, len(ours) > 0)
     bad = [f for f in ours if not f.startswith("of:=") or re.search(
-        r"(?<!FUNCTIONS\.)\b(RXNDH|RXNKIND|RXNLOAD|RXNCHECK|RXNSOURCE|RXNVERSION)\(", f)]
+        r"(?<!FUNCTIONS\.)\b(RXNDH|RXNKIND|RXNLOAD|RXNCHECK|RXNSOURCE|RXNVERSION|RXNEQX|"
+        r"MOLARMASS)\(", f)]
     checks.ok("%s: add-in calls stored as LibreOffice stores them (programmatic name)" % name,
               not bad, "; ".join(bad[:3]))
     text = sheet_text(sheet)
-    for words in ("Hallistry Marsh Works", "invented plant", "screening estimates",
-                  "calorimetry", "process hazard analysis", "licensed engineers",
-                  "complete conversion", "standard-state"):
-        checks.ok("%s: the sheet says %r" % (name, words), words in text)
+    for w in words:
+        checks.ok("%s: the sheet says %r" % (name, w), w in text)
     doc.calculateAll()
     stored = stored_cells(path, sheet.Name)
     stale = []
@@ -187,13 +204,13 @@ def check_common(checks, name, path, doc, sheet, formula_cells):
         kind, value, text = stored.get((a.Column, a.Row), (None, None, None))
         if c.getError() != 0:
             good = False
-        elif kind == "float":
+        elif kind in ("float", "percentage"):   # a % format stores its number as a percentage
             good = abs(float(value) - c.getValue()) <= 1e-9 * max(1.0, abs(c.getValue()))
         else:
             good = kind == "string" and text == c.getString()
         if not good:
-            stale.append("%s: stored %r, now %r" % (c.AbsoluteName, value if kind == "float"
-                                                    else text, c.getString()))
+            stale.append("%s: stored %r, now %r" % (c.AbsoluteName, value if kind in (
+                "float", "percentage") else text, c.getString()))
     checks.ok("%s: the numbers stored in the file are what the add-in computes now (else run "
               "scripts/make-examples)" % name, not stale and formula_cells,
               "; ".join(stale[:3]))
@@ -631,6 +648,322 @@ def check_hess(checks, office, path, cli):
         doc.close(True)
 
 
+def check_neutralisation(checks, office, path, cli):
+    name = "neutralisation"
+    doc = office.load(path)
+    try:
+        inputs = ["Reaction", "Acid", "AcidCharge", "AcidStrength", "AcidProtons", "Base",
+                  "BaseCharge", "BaseStrength", "BaseHydroxides", "BatchMass", "BatchCp",
+                  "StartTemperature", "RiseLimit"]
+        results = ["Status", "RiseCheck", "NeutralisationEnthalpy", "Kind", "AcidKmol",
+                   "BaseKmol", "Limiting", "Neutralised", "LeftOver", "HeatReleased",
+                   "TemperatureRise", "EndTemperature", "Sources", "Version"]
+        sheet = rng(doc, "Status").getSpreadsheet()
+        check_common(checks, name, path, doc, sheet, [rng(doc, n) for n in results])
+        checks.ok("neutralisation: the sheet is protected", sheet.isProtected())
+        for n in inputs:
+            c = rng(doc, n)
+            checks.ok("neutralisation: input %s unlocked and marked" % n,
+                      not c.CellProtection.IsLocked and c.CellStyle == "rxnheat Input",
+                      c.CellStyle)
+        for n in results:
+            c = rng(doc, n)
+            checks.ok("neutralisation: result %s is a locked formula" % n,
+                      c.CellProtection.IsLocked and c.getFormula().startswith("="))
+        text = sheet_text(sheet)
+        checks.ok("neutralisation: a legend explains the input colour", "type into" in text)
+        checks.ok("neutralisation: the sheet says the heat of dilution is left out",
+                  "heat of diluting" in text)
+
+        def calc(n):
+            doc.calculateAll()
+            return rng(doc, n).getString()
+
+        def num(n):
+            return cell_number(rng(doc, n))
+
+        def expected():
+            """The rise from the sheet's own inputs: kmol = kg x w / M (IUPAC atomic weights,
+            python3-periodictable), heat = -dH x min(kmol) x 1000 (the CLI's dh of the
+            sheet's reaction at its start temperature), rise = heat / (m cp)."""
+            t_k = num("StartTemperature") + ZERO_CELSIUS_K
+            dh = float(cli.json("dh", rng(doc, "Reaction").getString(), "-T", repr(t_k))
+                       ["value"]) if cli else num("NeutralisationEnthalpy")
+            acid = (num("AcidCharge") * num("AcidStrength") / 100.0
+                    / iupac_molar_mass(rng(doc, "Acid").getString()) * num("AcidProtons"))
+            base = (num("BaseCharge") * num("BaseStrength") / 100.0
+                    / iupac_molar_mass(rng(doc, "Base").getString()) * num("BaseHydroxides"))
+            heat = -dh * min(acid, base) * 1000.0
+            return dh, acid, base, heat, heat / (num("BatchMass") * num("BatchCp"))
+
+        checks.ok("neutralisation: status ok for the template's inputs",
+                  calc("Status") == "ok", calc("Status"))
+        reaction = rng(doc, "Reaction").getString()
+        checks.ok("neutralisation: the reaction is the aqueous H+ + OH- one",
+                  "H+" in reaction and "OH-" in reaction, reaction)
+        dh, acid, base, heat, rise = expected()
+        # Strong acid with strong base near -55.8 kJ/mol of water (common practice).
+        checks.close("neutralisation: dH of neutralisation near -55.8 kJ/mol (common practice)",
+                     num("NeutralisationEnthalpy"), -55.8, 0.5)
+        checks.rel("neutralisation: dH = CLI dh at the start temperature",
+                   num("NeutralisationEnthalpy"), dh, 1e-12)
+        checks.rel("neutralisation: H+ kmol = kg x strength / M(HCl) (IUPAC)",
+                   num("AcidKmol"), acid, 2e-4)
+        checks.rel("neutralisation: OH- kmol = kg x strength / M(NaOH) (IUPAC)",
+                   num("BaseKmol"), base, 2e-4)
+        checks.rel("neutralisation: neutralised = the smaller charge", num("Neutralised"),
+                   min(acid, base), 2e-4)
+        checks.ok("neutralisation: the limiting charge named", calc("Limiting").startswith(
+            "acid" if acid < base else "caustic"), calc("Limiting"))
+        checks.rel("neutralisation: heat = -dH x limiting kmol", num("HeatReleased"), heat, 2e-4)
+        if cli:
+            t_k = num("StartTemperature") + ZERO_CELSIUS_K
+            checks.rel("neutralisation: heat = -(CLI load)", num("HeatReleased"), -float(
+                cli.json("load", reaction, repr(num("Neutralised")), "kmol", "H+", "-u", "kJ",
+                         "-T", repr(t_k))["value"]), 1e-12)
+        checks.rel("neutralisation: rise = heat / (mass x cp), from the inputs",
+                   num("TemperatureRise"), rise, 2e-4)
+        checks.rel("neutralisation: end temperature = start + rise", num("EndTemperature"),
+                   num("StartTemperature") + num("TemperatureRise"), 1e-12)
+        print("      neutralisation: dH %.3f kJ/mol, H+ %.3f kmol, OH- %.3f kmol, heat %.0f kJ, "
+              "rise %.2f K (limit %.1f K)" % (num("NeutralisationEnthalpy"), num("AcidKmol"),
+                                               num("BaseKmol"), num("HeatReleased"),
+                                               num("TemperatureRise"), num("RiseLimit")))
+        limit = num("RiseLimit")
+        checks.ok("neutralisation: the template's batch is within its limit",
+                  rise < limit and calc("RiseCheck").startswith("within"), calc("RiseCheck"))
+
+        # The warning flips at the limit.
+        rng(doc, "RiseLimit").setValue(rise - 0.5)
+        checks.ok("neutralisation: limit below the rise -> WARNING",
+                  calc("RiseCheck").startswith("WARNING"), calc("RiseCheck"))
+        rng(doc, "RiseLimit").setValue(rise + 0.5)
+        checks.ok("neutralisation: limit above the rise -> within",
+                  calc("RiseCheck").startswith("within"), calc("RiseCheck"))
+        rng(doc, "RiseLimit").setValue(limit)
+        # Twice both charges: twice the heat, in the same batch mass -> past the limit.
+        a0, b0 = num("AcidCharge"), num("BaseCharge")
+        rng(doc, "AcidCharge").setValue(2 * a0)
+        rng(doc, "BaseCharge").setValue(2 * b0)
+        doc.calculateAll()
+        dh2, acid2, base2, heat2, rise2 = expected()
+        checks.rel("neutralisation: doubled charges -> rise from the inputs",
+                   num("TemperatureRise"), rise2, 2e-4)
+        checks.ok("neutralisation: doubled charges pass the limit -> WARNING",
+                  rise2 > limit and calc("Status") == "ok"
+                  and calc("RiseCheck").startswith("WARNING"), calc("RiseCheck"))
+        rng(doc, "AcidCharge").setValue(a0)
+        rng(doc, "BaseCharge").setValue(b0)
+        # Sulfuric acid: two H+ per molecule.
+        rng(doc, "Acid").setString("H2SO4")
+        rng(doc, "AcidProtons").setValue(2)
+        doc.calculateAll()
+        dh3, acid3, base3, heat3, rise3 = expected()
+        checks.rel("neutralisation: H2SO4, 2 H+ -> kmol from M(H2SO4) (IUPAC)",
+                   num("AcidKmol"), acid3, 2e-4)
+        checks.rel("neutralisation: H2SO4 -> rise from the inputs", num("TemperatureRise"),
+                   rise3, 2e-4)
+        rng(doc, "Acid").setString("HCl")
+        rng(doc, "AcidProtons").setValue(1)
+
+        # Bad inputs: words in the status, no check of the rise.
+        t_k = num("StartTemperature") + ZERO_CELSIUS_K
+        bad = "H+ + OH- -> H2(g)"
+        rng(doc, "Reaction").setString(bad)
+        s = calc("Status")
+        if cli:
+            checks.ok("neutralisation: unbalanced reaction -> RXNCHECK's words (CLI check)",
+                      s != "ok" and s == cli.json("check", bad, "-T", repr(t_k)).get("check"), s)
+        checks.ok("neutralisation: ... and no rise check", calc("RiseCheck").startswith(
+            "no check"), calc("RiseCheck"))
+        rng(doc, "Reaction").setString(reaction)
+        rng(doc, "StartTemperature").setValue(150)
+        s = calc("Status")
+        checks.ok("neutralisation: 150 °C, past the aqueous data -> words naming the range",
+                  "373.15" in s, s)
+        rng(doc, "StartTemperature").setValue(t_k - ZERO_CELSIUS_K)
+        for cell, value, start in (("AcidStrength", 120, "a strength is"),
+                                   ("BaseCharge", -10, "a charge cannot"),
+                                   ("BatchMass", 1000, "the batch mass after dosing"),
+                                   ("AcidProtons", 1.5, "the H+ and OH- counts"),
+                                   ("Acid", "Hq", "the charges cannot be converted"),
+                                   ("BatchCp", "", "enter every")):
+            old = rng(doc, cell).getString() if cell == "Acid" else num(cell)
+            if isinstance(value, str):
+                rng(doc, cell).setString(value)
+            else:
+                rng(doc, cell).setValue(value)
+            s = calc("Status")
+            checks.ok("neutralisation: %s = %r -> status in words" % (cell, value),
+                      s.startswith(start), s)
+            checks.ok("neutralisation: %s = %r -> no rise check" % (cell, value),
+                      calc("RiseCheck").startswith("no check"), calc("RiseCheck"))
+            if isinstance(old, str):
+                rng(doc, cell).setString(old)
+            else:
+                rng(doc, cell).setValue(old)
+        checks.ok("neutralisation: good inputs again -> ok", calc("Status") == "ok",
+                  calc("Status"))
+    finally:
+        doc.close(True)
+
+
+# ------------------------------------------------------------------------------------------
+def ammonia_conversion(log10_k, feed, pressure_bar):
+    """Equilibrium conversion of N2 in N2 + 3 H2 -> 2 NH3 from K, solved here by bisection on
+    the extent: K = y(NH3)^2 / (y(N2) y(H2)^3) x (1 bar / P)^2, ideal gas, the other feed
+    species inert. Independent of the engine's solver; K is the engine's (CLI logk)."""
+    a, b = feed["N2"], feed["H2"]
+    total = sum(feed.values())
+    ln_k = log10_k * math.log(10.0)
+
+    def f(x):
+        return (2 * math.log(2 * x) + 2 * math.log(total - 2 * x) - math.log(a - x)
+                - 3 * math.log(b - 3 * x) - 2 * math.log(pressure_bar) - ln_k)
+
+    lo, hi = 0.0, min(a, b / 3.0)
+    for _ in range(200):
+        mid = 0.5 * (lo + hi)
+        if mid in (lo, hi):
+            break
+        if f(mid) > 0:
+            hi = mid
+        else:
+            lo = mid
+    return 0.5 * (lo + hi) / a
+
+
+def check_equilibrium(checks, office, path, cli):
+    name = "equilibrium"
+    doc = office.load(path)
+    try:
+        temps_rng = rng(doc, "EqTemperatures")
+        conv = rng(doc, "EqConversion")
+        heat = rng(doc, "EqHeat")
+        sheet = conv.getSpreadsheet()
+        n_t = temps_rng.Rows.Count
+        cells = ([conv.getCellByPosition(c, r) for r in range(n_t) for c in range(2)]
+                 + [heat.getCellByPosition(c, r) for r in range(n_t) for c in range(2)]
+                 + [rng(doc, "KeyFeedRate")])
+        check_common(checks, name, path, doc, sheet, cells)
+        reaction = rng(doc, "Reaction").getString()
+        key = rng(doc, "KeySpecies").getString()
+        feed_rng = rng(doc, "Feed")
+        feed = {feed_rng.getCellByPosition(0, r).getString():
+                cell_number(feed_rng.getCellByPosition(1, r)) for r in range(feed_rng.Rows.Count)}
+        temps = [cell_number(temps_rng.getCellByPosition(0, r)) for r in range(n_t)]
+        pressures = [cell_number(rng(doc, "Pressure1")), cell_number(rng(doc, "Pressure2"))]
+        checks.ok("equilibrium: ammonia synthesis, key N2",
+                  reaction == "N2(g) + 3 H2(g) -> 2 NH3(g)" and key == "N2", reaction)
+        checks.ok("equilibrium: a 1:3 N2:H2 feed with inerts",
+                  abs(feed.get("H2", 0) / feed.get("N2", 1) - 3.0) < 1e-12 and len(feed) > 2,
+                  str(feed))
+        checks.ok("equilibrium: at least five temperatures, rising, 600..800 K",
+                  n_t >= 5 and None not in temps and temps == sorted(temps)
+                  and temps[0] >= 600 and temps[-1] <= 800, str(temps))
+        checks.ok("equilibrium: two pressures, the second higher", None not in pressures
+                  and pressures[1] > pressures[0], str(pressures))
+        n_key = cell_number(rng(doc, "FeedRate")) * feed["N2"] / sum(feed.values())
+        checks.rel("equilibrium: N2 feed = feed rate x its mol fraction",
+                   cell_number(rng(doc, "KeyFeedRate")), n_key, 1e-12)
+
+        x = [[cell_number(conv.getCellByPosition(c, r)) for c in range(2)] for r in range(n_t)]
+        q = [[cell_number(heat.getCellByPosition(c, r)) for c in range(2)] for r in range(n_t)]
+        checks.ok("equilibrium: every cell a number", all(v is not None for row in x + q
+                                                          for v in row))
+        if all(v is not None for row in x + q for v in row):
+            for c in range(2):
+                col = [x[r][c] for r in range(n_t)]
+                # Common practice (no source): higher temperature lowers ammonia conversion.
+                checks.ok("equilibrium: at %g bar the conversion falls as T rises (common "
+                          "practice)" % pressures[c],
+                          all(col[i + 1] < col[i] for i in range(n_t - 1)), str(col))
+            # Common practice (no source): higher pressure raises ammonia conversion.
+            checks.ok("equilibrium: conversion higher at %g than at %g bar at every T (common "
+                      "practice)" % (pressures[1], pressures[0]),
+                      all(row[1] > row[0] for row in x), str(x))
+            checks.ok("equilibrium: conversions between 0 and 1",
+                      all(0 < v < 1 for row in x for v in row))
+            print("      equilibrium: X(N2) at %g K: %.4f (%g bar), %.4f (%g bar); at %g K: "
+                  "%.4f, %.4f; heat at %g K, %g bar: %.0f kW"
+                  % (temps[0], x[0][0], pressures[0], x[0][1], pressures[1], temps[-1],
+                     x[-1][0], x[-1][1], temps[0], pressures[1], q[0][1]))
+        if cli:
+            feed_args = ["%s=%r" % (sp, v) for sp, v in feed.items()]
+            for r, t_k in enumerate(temps):
+                log10_k = float(cli.json("logk", reaction, "-T", repr(t_k))["value"])
+                dh = float(cli.json("dh", reaction, "-T", repr(t_k))["value"])
+                for c, p in enumerate(pressures):
+                    j = cli.json("eqx", reaction, repr(t_k), repr(p), *feed_args, "--key", key)
+                    checks.rel("equilibrium: X at %g K, %g bar = CLI eqx" % (t_k, p), x[r][c],
+                               float(j.get("value", "nan")), 1e-12)
+                    checks.rel("equilibrium: X at %g K, %g bar = bisection on K from CLI logk"
+                               % (t_k, p), x[r][c], ammonia_conversion(log10_k, feed, p), 1e-6)
+                    # heat released = -dH x converted N2 (kmol/h -> mol/s), |nu(N2)| = 1
+                    if x[r][c] is not None:
+                        checks.rel("equilibrium: heat at %g K, %g bar = -dH x X x N2 feed"
+                                   % (t_k, p), q[r][c],
+                                   -dh * x[r][c] * n_key * 1000.0 / 3600.0, 1e-9)
+
+        # The chart: XY scatter, one series per pressure over the temperature column.
+        charts = sheet.getCharts()
+        checks.ok("equilibrium: one chart on the sheet", charts.Count == 1, str(charts.Count))
+        if charts.Count:
+            chart = charts.getByIndex(0).getEmbeddedObject()
+            series, kinds = [], []
+            for cs in chart.getFirstDiagram().getCoordinateSystems():
+                for ct in cs.getChartTypes():
+                    kinds.append(ct.getChartType())
+                    series.extend(ct.getDataSeries())
+            checks.ok("equilibrium: the chart is an XY scatter",
+                      kinds == ["com.sun.star.chart2.ScatterChartType"], str(kinds))
+            checks.ok("equilibrium: two series, one per pressure", len(series) == 2,
+                      str(len(series)))
+            for i, s in enumerate(series):
+                roles = {}
+                label = None
+                for ls in s.getDataSequences():
+                    v = ls.getValues()
+                    roles[v.getPropertyValue("Role")] = v.getSourceRangeRepresentation()
+                    if ls.getLabel() is not None and v.getPropertyValue("Role") == "values-y":
+                        label = ls.getLabel().getData()[0]
+                y = conv.getCellRangeByPosition(i, 0, i, n_t - 1).AbsoluteName
+                checks.ok("equilibrium: series %d x = the temperature column" % (i + 1),
+                          roles.get("values-x") == temps_rng.AbsoluteName, str(roles))
+                checks.ok("equilibrium: series %d y = its pressure's column" % (i + 1),
+                          roles.get("values-y") == y, "%r vs %r" % (roles, y))
+                checks.ok("equilibrium: series %d named by its pressure" % (i + 1),
+                          label is not None and ("%g bar" % pressures[i]) in label, str(label))
+            diagram = chart.getDiagram()
+            checks.ok("equilibrium: chart axes titled (K, conversion)",
+                      diagram.HasXAxisTitle and "K" in diagram.getXAxisTitle().String
+                      and diagram.HasYAxisTitle
+                      and "conversion" in diagram.getYAxisTitle().String)
+
+        # An edited pressure: its column follows; 0 bar -> Err:502, never a number.
+        rng(doc, "Pressure1").setValue(50)
+        doc.calculateAll()
+        if cli:
+            j = cli.json("eqx", reaction, repr(temps[0]), "50", *feed_args, "--key", key)
+            checks.rel("equilibrium: pressure 1 edited to 50 bar -> CLI eqx",
+                       cell_number(conv.getCellByPosition(0, 0)), float(j.get("value", "nan")),
+                       1e-12)
+        checks.ok("equilibrium: the heading follows the pressure",
+                  "50 bar" in sheet_text(sheet))
+        rng(doc, "Pressure1").setValue(0)
+        doc.calculateAll()
+        errs = [conv.getCellByPosition(0, r).getError() for r in range(n_t)]
+        checks.ok("equilibrium: pressure 0 -> Err:502 in its column",
+                  errs == [ERR_ILLEGAL_ARGUMENT] * n_t, str(errs))
+        checks.ok("equilibrium: ... and its heat is an error too",
+                  all(heat.getCellByPosition(0, r).getError() != 0 for r in range(n_t)))
+        checks.ok("equilibrium: ... the other pressure still computed",
+                  all(cell_number(conv.getCellByPosition(1, r)) is not None
+                      for r in range(n_t)))
+    finally:
+        doc.close(True)
+
+
 def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--oxt", required=True)
@@ -659,7 +992,9 @@ def main():
         for name, fn, check in ((COSTING, "costing", check_costing),
                                 (OPERATOR, "operator", check_operator),
                                 (DESIGN, "design", check_design),
-                                (HESS, "hess", check_hess)):
+                                (HESS, "hess", check_hess),
+                                (NEUTRALISATION, "neutralisation", check_neutralisation),
+                                (EQUILIBRIUM, "equilibrium", check_equilibrium)):
             path = os.path.join(args.examples, name)
             if not checks.ok("%s exists" % name, os.path.exists(path)):
                 continue
