@@ -4,11 +4,11 @@
 
 namespace rxnheat::detail {
 
-std::vector<std::vector<Rational>> null_space(std::vector<std::vector<Rational>> m, std::size_t cols) {
+std::vector<std::size_t> reduce_rows(std::vector<std::vector<Rational>>& m, std::size_t pivot_cols) {
     const std::size_t rows = m.size();
     std::vector<std::size_t> pivot_col;
     std::size_t r = 0;
-    for (std::size_t c = 0; c < cols && r < rows; ++c) {
+    for (std::size_t c = 0; c < pivot_cols && r < rows; ++c) {
         std::size_t p = r;
         while (p < rows && m[p][c] == 0) ++p;
         if (p == rows) continue;
@@ -18,11 +18,16 @@ std::vector<std::vector<Rational>> null_space(std::vector<std::vector<Rational>>
         for (std::size_t i = 0; i < rows; ++i) {
             if (i == r || m[i][c] == 0) continue;
             const Rational f = m[i][c];
-            for (std::size_t j = 0; j < cols; ++j) m[i][j] -= f * m[r][j];
+            for (std::size_t j = c; j < m[i].size(); ++j) m[i][j] -= f * m[r][j];  // left of c: zeros already
         }
         pivot_col.push_back(c);
         ++r;
     }
+    return pivot_col;
+}
+
+std::vector<std::vector<Rational>> null_space(std::vector<std::vector<Rational>> m, std::size_t cols) {
+    const std::vector<std::size_t> pivot_col = reduce_rows(m, cols);
     std::vector<bool> is_pivot(cols, false);
     for (auto c : pivot_col) is_pivot[c] = true;
     std::vector<std::vector<Rational>> basis;

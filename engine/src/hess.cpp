@@ -160,27 +160,8 @@ HessCombination combine(const Prepared& target, const std::vector<std::shared_pt
     for (std::size_t j = 0; j < n; ++j)
         for (const auto& [k, nu] : columns[j]) a[k][j] = nu;
     for (const auto& [k, nu] : t) a[k][n] = nu;
-    std::vector<std::vector<Rational>> coefficients_only(m, std::vector<Rational>(n));
-    for (std::size_t i = 0; i < m; ++i)
-        for (std::size_t j = 0; j < n; ++j) coefficients_only[i][j] = a[i][j];
-
-    std::vector<std::size_t> pivot_col;
-    std::size_t r = 0;
-    for (std::size_t c = 0; c < n && r < m; ++c) {
-        std::size_t p = r;
-        while (p < m && a[p][c] == 0) ++p;
-        if (p == m) continue;
-        std::swap(a[p], a[r]);
-        const Rational inv = 1 / a[r][c];
-        for (auto& v : a[r]) v *= inv;
-        for (std::size_t i = 0; i < m; ++i) {
-            if (i == r || a[i][c] == 0) continue;
-            const Rational f = a[i][c];
-            for (std::size_t j = c; j <= n; ++j) a[i][j] -= f * a[r][j];
-        }
-        pivot_col.push_back(c);
-        ++r;
-    }
+    const std::vector<std::size_t> pivot_col = reduce_rows(a, n);
+    const std::size_t r = pivot_col.size();
     for (std::size_t i = r; i < m; ++i)
         if (a[i][n] != 0)
             throw Error(
@@ -191,7 +172,7 @@ HessCombination combine(const Prepared& target, const std::vector<std::shared_pt
     HessCombination out;
     out.x.assign(n, Rational(0));  // free steps (dependent on the others) left at zero
     for (std::size_t i = 0; i < pivot_col.size(); ++i) out.x[pivot_col[i]] = a[i][n];
-    out.dependent = null_space(std::move(coefficients_only), n);
+    out.dependent = null_space(std::move(a), n);  // `a` is reduced already: this re-reads its pivots
     out.plan = plan_text(out.x, step_rows);
     if (out.plan.empty())
         throw Error(ErrorKind::argument,
