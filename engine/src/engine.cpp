@@ -619,12 +619,14 @@ double Engine::adiabatic_temperature(std::string_view reaction, const std::vecto
     const auto p = impl_->prepare(reaction, at.table);
     p->require_thermo();
 
-    // The feed as written: each reactant its coefficient, in mol per mol of reaction; then the extra feed.
+    // The feed as written: each term on the left its coefficient, in mol per mol of reaction (a
+    // species on both sides, N2 carried through a burner, is fed with its left-hand coefficient,
+    // not its net one, which may be 0); then the extra feed.
     std::vector<std::size_t> group;
     std::vector<StreamSpecies> sp = reaction_species(*p, T_feed, group);
     const std::size_t reacting = sp.size();
-    for (auto& s : sp)
-        if (s.nu < 0) s.in_mol = -s.nu;
+    for (std::size_t i = 0; i < p->terms.size(); ++i)
+        if (p->nu[i] < 0) sp[group[i]].in_mol -= detail::to_double(p->nu[i]);
     add_feed(sp, reacting, *p, group, extra_feed, at.table, T_feed, "extra feed",
              [](double amount, double) { return amount; });
 
