@@ -7,8 +7,9 @@ Installs the built rxnheat.oxt into a private profile, opens each workbook, reca
 - heat-load costing sheet: every RXNDH / RXNKIND / RXNLOAD cell against the `rxnheat` CLI
   (same engine, other code path), every RXNLOAD cell against plain arithmetic
   ΔrH° × n(key)/|ν(key)| with molar masses from IUPAC atomic weights (python3-periodictable)
-  and normal volumes from the ideal-gas law; utility costs and totals against the arithmetic
-  of the sheet's own input cells; inputs changed -> results follow;
+  and normal volumes from the ideal-gas law; the heat of 1 kg of HP steam (STEAMLATENT of the
+  header pressure) against `rxnheat steam latent` and python3-iapws; utility costs and totals
+  against the arithmetic of the sheet's own input cells; inputs changed -> results follow;
 - operator template: sheet protected, input cells unlocked and marked, formula cells locked,
   status "ok" for good inputs and RXNCHECK's words (the CLI's `check` text) for bad ones;
 - design sheet: the plant's operating points in °C, the table one array formula of the
