@@ -1,17 +1,20 @@
 #!/usr/bin/python3
 """Opens the heat-load costing workbook in a headless LibreOffice with the rxnheat add-in,
-recalculates it, prints its main table and writes a PDF of it (OUT/heat-load-costing.pdf).
-Run by scripts/demo.
+recalculates it, prints its main table and writes a PDF of it (OUT/heat-load-costing.pdf);
+then the same for the furnace sheet (fuel gas heating values, fuel flow, flame temperature,
+fuel cost) and the reactor duty sheet (duty, steam at the header pressure, cooling water),
+whose key results it prints beside the costing table. Run by scripts/demo.
 
     /usr/bin/python3 scripts/demo-costing.py --oxt build/addin/rxnheat.oxt --out build/demo
 
 The office runs with a private profile under OUT/office (scripts/office.py), in which the
 add-in is installed through the office's own Extension Manager: this works the same for root
 and for a normal user, and never touches a LibreOffice the user has open. Everything is
-time-bound; the office is killed on exit. Exit status 0 when every heat load was computed.
+time-bound; the office is killed on exit. Exit status 0 when every heat load and every printed result was computed.
 """
 import argparse
 import os
+import re
 import shutil
 import signal
 import sys
@@ -57,11 +60,56 @@ def table_text(doc):
     return lines, good
 
 
+# (label, text with {NamedCell} fields) printed for the furnace and the reactor duty sheets
+FURNACE_LINES = [
+    ("Fuel gas HHV / LHV", "{HHVVolume} / {LHVVolume} MJ/Sm3 ({LHVMass} MJ/kg LHV)"),
+    ("Fuel for the duty", "{AbsorbedDuty} MW at {Efficiency} efficiency: {FuelVolumeFlow} "
+     "Sm3/h, {FuelMassFlow} kg/h"),
+    ("Adiabatic flame temperature", "{FlameTemperature} \u00b0C at {ExcessAir} % excess air "
+     "(no dissociation)"),
+    ("Fuel cost", "{FuelCostYear} EUR/yr at {FuelPrice} EUR/GJ (LHV), {OperatingHours} h/yr"),
+]
+DUTY_LINES = [
+    ("Reaction", "{Reaction}, {Conversion} of the {KeySpecies} converted"),
+    ("Inlet / outlet", "{InletTemperature} / {OutletTemperature} \u00b0C"),
+    ("Reaction heat at the inlet T", "{ReactionHeat} kW"),
+    ("Reactor duty (RXNDUTY)", "{Duty} kW (sensible heat {SensibleHeat} kW)"),
+    ("Steam at the header", "{SteamPressure}: latent heat {SteamLatent} kJ/kg (IAPWS-IF97)"),
+    ("Steam raised", "{SteamFlow} kg/h from boiling water, {SteamFromFeedWater} kg/h from "
+     "feed water at {FeedWaterTemperature} \u00b0C"),
+    ("Or cooling water", "{CoolingWater} t/h"),
+]
+
+
+def results_text(doc, lines):
+    """One line per result, the named cells' texts put into it; and whether every one of them
+    was computed."""
+    out, good = [], True
+    for label, text in lines:
+        names = re.findall(r"\{(\w+)\}", text)
+        cells = {n: named(doc, n) for n in names}
+        good = good and all(c.getError() == 0 for c in cells.values())
+        out.append("  %-30s %s" % (label, text.format(**{n: c.getString().strip()
+                                                          for n, c in cells.items()})))
+    return out, good
+
+
+def export_pdf(doc, out_dir, workbook):
+    pdf = os.path.join(os.path.abspath(out_dir),
+                       os.path.splitext(os.path.basename(workbook))[0] + ".pdf")
+    if os.path.exists(pdf):
+        os.remove(pdf)
+    doc.storeToURL(officelib.file_url(pdf), (officelib.prop("FilterName", "calc_pdf_Export"),))
+    return pdf
+
+
 def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--oxt", required=True)
     ap.add_argument("--workbook", default=os.path.join(TOP, "examples", "heat-load-costing.fods"))
-    ap.add_argument("--out", required=True, help="folder for the PDF (named after the workbook)")
+    ap.add_argument("--furnace", default=os.path.join(TOP, "examples", "furnace-fuel-gas.fods"))
+    ap.add_argument("--duty", default=os.path.join(TOP, "examples", "reactor-duty-steam.fods"))
+    ap.add_argument("--out", required=True, help="folder for the PDFs (named after the workbooks)")
     ap.add_argument("--timeout", type=int, default=240)
     args = ap.parse_args()
 
@@ -115,12 +163,31 @@ def main():
         doc.storeToURL(officelib.file_url(pdf),
                        (officelib.prop("FilterName", "calc_pdf_Export"),))
         doc.close(True)
+        pdfs = [pdf]
+        for workbook, lines in ((args.furnace, FURNACE_LINES), (args.duty, DUTY_LINES)):
+            doc = off.load(workbook)
+            if doc is None:
+                raise officelib.OfficeError("LibreOffice could not open %s" % workbook)
+            doc.calculateAll()
+            print()
+            print(doc.Sheets.getByIndex(0).getCellRangeByName("A1").getString())
+            text, ok = results_text(doc, lines)
+            for t in text:
+                print(t)
+            good = good and ok
+            pdfs.append(export_pdf(doc, args.out, workbook))
+            doc.close(True)
+        print()
+        print("  The same cautions hold for the furnace and the duty: screening estimates, not")
+        print("  a design; the steam figures are IAPWS-IF97 properties of real water.")
         off.stop()
         off = None
         print()
-        print("PDF: %s  (%.0f s)" % (pdf, time.monotonic() - t0))
+        for p in pdfs:
+            print("PDF: %s" % p)
+        print("(%.0f s)" % (time.monotonic() - t0))
         if not good:
-            print("demo: some heat loads were not computed (Err:502 above)", file=sys.stderr)
+            print("demo: some results were not computed (Err:502 above)", file=sys.stderr)
             return 1
         return 0
     except Exception as e:  # includes the timeout

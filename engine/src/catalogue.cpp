@@ -526,7 +526,8 @@ std::vector<FunctionSpec> make_catalogue() {
          false, duty_call},
         {"RXNTAD", "rxnTad", "tad", "adiabatic outlet temperature of a reaction's feed",
          "Adiabatic outlet temperature (K) of the reaction's feed as written (each reactant its coefficient, in "
-         "mol per mol of reaction) plus the extra feed (inerts, excess air as O2 + 3.76 N2 per mol O2), after the "
+         "mol per mol of reaction; a species on both sides, such as N2 carried through, its coefficient on the "
+         "left) plus the extra feed (inerts, excess air as O2 + 3.76 N2 per mol O2), after the "
          "conversion of the limiting reactant (default 1): where the enthalpy of the products equals that of the "
          "feed, solved on the NASA Glenn H°(T) curves with each species in its phase as written. No dissociation: "
          "above about 2000 K a real flame is cooler. An error when the answer leaves the data's temperature "

@@ -242,6 +242,87 @@ double Engine::load(std::string_view reaction, double quantity, std::string_view
 
 namespace {
 
+// The reaction's species and a feed matched to them, shared by RXNEQX, RXNDUTY and RXNTAD.
+
+/// One species of a reactor's streams: its data, its net coefficient in the reaction (0: an
+/// inert) and its amount in, in mol (or mol/s).
+struct StreamSpecies {
+    Substance substance;
+    std::string name;  ///< as used at the feed temperature, for messages
+    double nu = 0;
+    double in_mol = 0;
+    bool fed = false;
+};
+
+/// Two rows of a stream name one species when they have one composition and, at T, one phase
+/// (a species written without a phase is then the same as the one written with it).
+std::string same_species_key(const Substance& s, double T) {
+    return s.composition.key() + "|" + std::string(1, s.phase_at(T));
+}
+
+/// The reaction's species netted by identity (a species on both sides counts once), in order of
+/// first appearance; `group[i]` is the entry of term i.
+std::vector<StreamSpecies> reaction_species(const Prepared& p, double T, std::vector<std::size_t>& group) {
+    std::vector<StreamSpecies> sp;
+    group.assign(p.terms.size(), 0);
+    for (std::size_t i = 0; i < p.terms.size(); ++i) {
+        const std::string id = p.substances[i].identity();
+        std::size_t g = 0;
+        while (g < sp.size() && sp[g].substance.identity() != id) ++g;
+        if (g == sp.size()) sp.push_back({p.substances[i], p.substances[i].display_at(T), 0, 0, false});
+        sp[g].nu += detail::to_double(p.nu[i]);
+        group[i] = g;
+    }
+    return sp;
+}
+
+/// Adds a feed to `sp` (the reaction's species, first `reacting` entries): a row of a species of
+/// the reaction (by composition, and by phase when one is written) adds to it, any other row is
+/// an inert, resolved so that an unknown species is an error. `to_mol` turns a row's amount into
+/// mol (or mol/s) given the species' molar mass. `what` names the feed in messages.
+template <class ToMol>
+void add_feed(std::vector<StreamSpecies>& sp, std::size_t reacting, const Prepared& p,
+              const std::vector<std::size_t>& group, const std::vector<FeedItem>& feed,
+              const SpeciesTable* table, double T, const char* what, ToMol to_mol) {
+    const Database& db = Database::get();
+    for (const FeedItem& item : feed) {
+        if (!std::isfinite(item.amount_mol) || item.amount_mol < 0)
+            throw Error(ErrorKind::argument, std::string("the ") + what + " amount of '" + item.species +
+                                                 "' must be a number, zero or more (got " +
+                                                 number_words(item.amount_mol) + ")");
+        const auto fs = parse_one_species(item.species, "the feed species");
+        const std::string want = db.composition(fs, table).key();
+        const char want_phase = fs.phase.empty() ? 0 : fs.phase == "aq" ? 'a' : fs.phase[0];
+        std::size_t match = reacting;
+        for (std::size_t i = 0; i < p.terms.size(); ++i) {
+            if (p.composition_keys[i] != want) continue;
+            if (want_phase && p.substances[i].phase_at(T) != want_phase) continue;
+            if (match != reacting && match != group[i])
+                throw Error(ErrorKind::argument, std::string("the ") + what + " species '" + item.species +
+                                                     "' fits more than one species of the reaction (" +
+                                                     sp[match].name + ", " + sp[group[i]].name +
+                                                     "); write its phase");
+            match = group[i];
+        }
+        if (match == reacting) {
+            Substance inert = db.resolve(fs, table);
+            for (std::size_t k = reacting; k < sp.size(); ++k)
+                if (same_species_key(sp[k].substance, T) == same_species_key(inert, T))
+                    throw Error(ErrorKind::argument, std::string("the ") + what + " names '" + item.species +
+                                                         "' twice; give each species once");
+            const double mol = to_mol(item.amount_mol, inert.molar_mass);
+            std::string name = inert.display_at(T);
+            sp.push_back({std::move(inert), std::move(name), 0, mol, true});
+            continue;
+        }
+        if (sp[match].fed)
+            throw Error(ErrorKind::argument, std::string("the ") + what + " names " + sp[match].name +
+                                                 " twice; give each species once");
+        sp[match].fed = true;
+        sp[match].in_mol += to_mol(item.amount_mol, sp[match].substance.molar_mass);
+    }
+}
+
 /// One species of an equilibrium: its net coefficient, its feed and whether it is a gas at T.
 struct EqSpecies {
     std::string name;   ///< as used at T, for messages
@@ -275,58 +356,18 @@ double Engine::eq_conversion(std::string_view reaction, const std::vector<FeedIt
     const auto p = impl_->prepare(reaction, at.table);
     p->require_thermo();
 
-    // The reaction's species, netted by identity (a species on both sides counts once).
-    std::vector<EqSpecies> sp;
-    std::vector<std::size_t> group(p->terms.size());
-    std::vector<std::string> identities;
-    for (std::size_t i = 0; i < p->terms.size(); ++i) {
-        const std::string id = p->substances[i].identity();
-        std::size_t g = 0;
-        while (g < identities.size() && identities[g] != id) ++g;
-        if (g == identities.size()) {
-            identities.push_back(id);
-            sp.push_back({p->substances[i].display_at(T), 0, 0, p->substances[i].phase_at(T) == 'g'});
-        }
-        sp[g].nu += detail::to_double(p->nu[i]);
-        group[i] = g;
-    }
-    const std::size_t reacting = sp.size();
-
-    // The feed: each row is a species of the reaction (by composition, and by phase when one is
-    // written) or an inert (resolved, so that an unknown species is an error, and counted in the
-    // gas moles only when it is a gas at T).
+    // The reaction's species, netted by identity (a species on both sides counts once), and the
+    // feed: each row a species of the reaction (by composition, and by phase when one is written)
+    // or an inert (resolved, so that an unknown species is an error, and counted in the gas moles
+    // only when it is a gas at T).
     if (feed.empty()) throw Error(ErrorKind::argument, "the feed is empty; give each species of the feed and its amount");
-    std::vector<bool> fed(reacting, false);
-    std::vector<std::string> inert_ids;
-    for (const FeedItem& item : feed) {
-        if (!std::isfinite(item.amount_mol) || item.amount_mol < 0)
-            throw Error(ErrorKind::argument, "the feed amount of '" + item.species + "' must be a number, zero or more (got " +
-                                                 number_words(item.amount_mol) + ")");
-        const auto fs = parse_one_species(item.species, "the feed species");
-        const std::string want = impl_->db.composition(fs, at.table).key();
-        const char want_phase = fs.phase.empty() ? 0 : fs.phase == "aq" ? 'a' : fs.phase[0];
-        std::size_t match = reacting;
-        for (std::size_t i = 0; i < p->terms.size(); ++i) {
-            if (p->composition_keys[i] != want) continue;
-            if (want_phase && p->substances[i].phase_at(T) != want_phase) continue;
-            if (match != reacting && match != group[i])
-                throw Error(ErrorKind::argument, "the feed species '" + item.species + "' fits more than one species of the reaction (" +
-                                                     sp[match].name + ", " + sp[group[i]].name + "); write its phase");
-            match = group[i];
-        }
-        if (match == reacting) {
-            const Substance inert = impl_->db.resolve(fs, at.table);
-            const std::string id = inert.identity();
-            for (const auto& seen : inert_ids)
-                if (seen == id) throw Error(ErrorKind::argument, "the feed names '" + item.species + "' twice; give each species once");
-            inert_ids.push_back(id);
-            sp.push_back({inert.display_at(T), 0, item.amount_mol, inert.phase_at(T) == 'g'});
-            continue;
-        }
-        if (fed[match]) throw Error(ErrorKind::argument, "the feed names " + sp[match].name + " twice; give each species once");
-        fed[match] = true;
-        sp[match].n0_mol = item.amount_mol;
-    }
+    std::vector<std::size_t> group;
+    std::vector<StreamSpecies> stream = reaction_species(*p, T, group);
+    const std::size_t reacting = stream.size();
+    add_feed(stream, reacting, *p, group, feed, at.table, T, "feed", [](double amount, double) { return amount; });
+    std::vector<EqSpecies> sp;
+    sp.reserve(stream.size());
+    for (const StreamSpecies& s : stream) sp.push_back({s.name, s.nu, s.in_mol, s.substance.phase_at(T) == 'g'});
 
     // Only the ratios matter: amounts relative to the largest, so that no sum of them overflows.
     double largest = 0;
@@ -426,85 +467,6 @@ constexpr std::string_view default_flow_unit = "kmol/h";
 std::string_view flow_unit_or_default(std::string_view flow_unit) {
     flow_unit = trim(flow_unit);
     return flow_unit.empty() ? default_flow_unit : flow_unit;
-}
-
-/// One species of a reactor's streams: its data, its net coefficient in the reaction (0: an
-/// inert) and its amount in, in mol (or mol/s).
-struct StreamSpecies {
-    Substance substance;
-    std::string name;  ///< as used at the feed temperature, for messages
-    double nu = 0;
-    double in_mol = 0;
-    bool fed = false;
-};
-
-/// Two rows of a stream name one species when they have one composition and, at T, one phase
-/// (a species written without a phase is then the same as the one written with it).
-std::string same_species_key(const Substance& s, double T) {
-    return s.composition.key() + "|" + std::string(1, s.phase_at(T));
-}
-
-/// The reaction's species netted by identity (a species on both sides counts once), in order of
-/// first appearance; `group[i]` is the entry of term i.
-std::vector<StreamSpecies> reaction_species(const Prepared& p, double T, std::vector<std::size_t>& group) {
-    std::vector<StreamSpecies> sp;
-    group.assign(p.terms.size(), 0);
-    for (std::size_t i = 0; i < p.terms.size(); ++i) {
-        const std::string id = p.substances[i].identity();
-        std::size_t g = 0;
-        while (g < sp.size() && sp[g].substance.identity() != id) ++g;
-        if (g == sp.size()) sp.push_back({p.substances[i], p.substances[i].display_at(T), 0, 0, false});
-        sp[g].nu += detail::to_double(p.nu[i]);
-        group[i] = g;
-    }
-    return sp;
-}
-
-/// Adds a feed to `sp` (the reaction's species, first `reacting` entries): a row of a species of
-/// the reaction (by composition, and by phase when one is written) adds to it, any other row is
-/// an inert, resolved so that an unknown species is an error. `to_mol` turns a row's amount into
-/// mol (or mol/s) given the species' molar mass. `what` names the feed in messages.
-template <class ToMol>
-void add_feed(std::vector<StreamSpecies>& sp, std::size_t reacting, const Prepared& p,
-              const std::vector<std::size_t>& group, const std::vector<FeedItem>& feed,
-              const SpeciesTable* table, double T, const char* what, ToMol to_mol) {
-    const Database& db = Database::get();
-    for (const FeedItem& item : feed) {
-        if (!std::isfinite(item.amount_mol) || item.amount_mol < 0)
-            throw Error(ErrorKind::argument, std::string("the ") + what + " amount of '" + item.species +
-                                                 "' must be a number, zero or more (got " +
-                                                 number_words(item.amount_mol) + ")");
-        const auto fs = parse_one_species(item.species, "the feed species");
-        const std::string want = db.composition(fs, table).key();
-        const char want_phase = fs.phase.empty() ? 0 : fs.phase == "aq" ? 'a' : fs.phase[0];
-        std::size_t match = reacting;
-        for (std::size_t i = 0; i < p.terms.size(); ++i) {
-            if (p.composition_keys[i] != want) continue;
-            if (want_phase && p.substances[i].phase_at(T) != want_phase) continue;
-            if (match != reacting && match != group[i])
-                throw Error(ErrorKind::argument, std::string("the ") + what + " species '" + item.species +
-                                                     "' fits more than one species of the reaction (" +
-                                                     sp[match].name + ", " + sp[group[i]].name +
-                                                     "); write its phase");
-            match = group[i];
-        }
-        if (match == reacting) {
-            Substance inert = db.resolve(fs, table);
-            for (std::size_t k = reacting; k < sp.size(); ++k)
-                if (same_species_key(sp[k].substance, T) == same_species_key(inert, T))
-                    throw Error(ErrorKind::argument, std::string("the ") + what + " names '" + item.species +
-                                                         "' twice; give each species once");
-            const double mol = to_mol(item.amount_mol, inert.molar_mass);
-            std::string name = inert.display_at(T);
-            sp.push_back({std::move(inert), std::move(name), 0, mol, true});
-            continue;
-        }
-        if (sp[match].fed)
-            throw Error(ErrorKind::argument, std::string("the ") + what + " names " + sp[match].name +
-                                                 " twice; give each species once");
-        sp[match].fed = true;
-        sp[match].in_mol += to_mol(item.amount_mol, sp[match].substance.molar_mass);
-    }
 }
 
 void check_conversion(double conversion) {
@@ -619,12 +581,14 @@ double Engine::adiabatic_temperature(std::string_view reaction, const std::vecto
     const auto p = impl_->prepare(reaction, at.table);
     p->require_thermo();
 
-    // The feed as written: each reactant its coefficient, in mol per mol of reaction; then the extra feed.
+    // The feed as written: each term on the left its coefficient, in mol per mol of reaction (a
+    // species on both sides, N2 carried through a burner, is fed with its left-hand coefficient,
+    // not its net one, which may be 0); then the extra feed.
     std::vector<std::size_t> group;
     std::vector<StreamSpecies> sp = reaction_species(*p, T_feed, group);
     const std::size_t reacting = sp.size();
-    for (auto& s : sp)
-        if (s.nu < 0) s.in_mol = -s.nu;
+    for (std::size_t i = 0; i < p->terms.size(); ++i)
+        if (p->nu[i] < 0) sp[group[i]].in_mol -= detail::to_double(p->nu[i]);
     add_feed(sp, reacting, *p, group, extra_feed, at.table, T_feed, "extra feed",
              [](double amount, double) { return amount; });
 

@@ -7,8 +7,9 @@ Installs the built rxnheat.oxt into a private profile, opens each workbook, reca
 - heat-load costing sheet: every RXNDH / RXNKIND / RXNLOAD cell against the `rxnheat` CLI
   (same engine, other code path), every RXNLOAD cell against plain arithmetic
   ΔrH° × n(key)/|ν(key)| with molar masses from IUPAC atomic weights (python3-periodictable)
-  and normal volumes from the ideal-gas law; utility costs and totals against the arithmetic
-  of the sheet's own input cells; inputs changed -> results follow;
+  and normal volumes from the ideal-gas law; the heat of 1 kg of HP steam (STEAMLATENT of the
+  header pressure) against `rxnheat steam latent` and python3-iapws; utility costs and totals
+  against the arithmetic of the sheet's own input cells; inputs changed -> results follow;
 - operator template: sheet protected, input cells unlocked and marked, formula cells locked,
   status "ok" for good inputs and RXNCHECK's words (the CLI's `check` text) for bad ones;
 - design sheet: the plant's operating points in °C, the table one array formula of the
@@ -31,6 +32,13 @@ Installs the built rxnheat.oxt into a private profile, opens each workbook, reca
   temperature (common practice), the heat released against -ΔrH° × converted N2, the chart
   (XY scatter, one series per pressure over the temperature column), an edited pressure
   followed and 0 bar giving Err:502;
+- furnace sheet: the atom columns against python3-periodictable, HHV and LHV against `rxnheat hv`
+  and the sum of the parts (per-species `hv` in kJ/mol, ideal-gas Sm3, IUPAC molar masses), the
+  combustion reaction and extra feed rebuilt here, the flame temperature against `rxnheat tad` and
+  the energy balance by `rxnheat streamh`, fuel, air and cost by arithmetic, edits followed;
+- reactor duty sheet: RXNDUTY against `rxnheat duty` and H(outlet) - H(feed) by `rxnheat streamh`
+  (the outlet by stoichiometry here), the sensible part by Hess's law, steam and cooling water
+  against `rxnheat steam` and python3-iapws (IAPWS-IF97), edits and errors followed;
 - all of them: the stored numbers are the ones the engine computes now (else: run
   scripts/make-examples), the add-in calls are stored the way LibreOffice stores them, the
   invented plant and the cautions are on the sheet.
@@ -62,6 +70,8 @@ DESIGN = "design-dh-vs-temperature.fods"
 HESS = "hess-law-worksheet.fods"
 NEUTRALISATION = "batch-neutralisation.fods"
 EQUILIBRIUM = "design-equilibrium.fods"
+FURNACE = "furnace-fuel-gas.fods"
+DUTY = "reactor-duty-steam.fods"
 
 # Molar gas constant, CODATA 2018 (exact in the 2019 SI): 8.31446261815324 J/(mol K).
 R = 8.31446261815324
@@ -190,7 +200,7 @@ def check_common(checks, name, path, doc, sheet, formula_cells, words=CAUTION_WO
     checks.ok("%s: has rxnheat formulas" % name, len(ours) > 0)
     bad = [f for f in ours if not f.startswith("of:=") or re.search(
         r"(?<!FUNCTIONS\.)\b(RXNDH|RXNKIND|RXNLOAD|RXNCHECK|RXNSOURCE|RXNVERSION|RXNEQX|"
-        r"MOLARMASS)\(", f)]
+        r"MOLARMASS|RXNWHY|RXNDUTY|RXNTAD|FUELHV|STEAMLATENT|STEAMH|STEAMTSAT)\(", f)]
     checks.ok("%s: add-in calls stored as LibreOffice stores them (programmatic name)" % name,
               not bad, "; ".join(bad[:3]))
     text = sheet_text(sheet)
@@ -207,7 +217,9 @@ def check_common(checks, name, path, doc, sheet, formula_cells, words=CAUTION_WO
         elif kind in ("float", "percentage"):   # a % format stores its number as a percentage
             good = abs(float(value) - c.getValue()) <= 1e-9 * max(1.0, abs(c.getValue()))
         else:
-            good = kind == "string" and text == c.getString()
+            # (an empty text result is stored with no value type at all)
+            good = (kind == "string" and text == c.getString()) or (
+                kind is None and c.getString() == "")
         if not good:
             stale.append("%s: stored %r, now %r" % (c.AbsoluteName, value if kind in (
                 "float", "percentage") else text, c.getString()))
@@ -227,12 +239,34 @@ def check_costing(checks, office, path, cli):
         checks.ok("costing: a table of at least 5 reactions", rows >= 5, str(rows))
         formula_cells = [table.getCellByPosition(c, r) for r in range(rows)
                          for c in (6, 7, 8, 10, 11)]
-        formula_cells += [rng(doc, n) for n in ("HeatToSupply", "HeatToRemove", "TotalCost")]
+        formula_cells += [rng(doc, n) for n in ("HeatToSupply", "HeatToRemove", "TotalCost",
+                                                "SteamHeat")]
         check_common(checks, name, path, doc, sheet, formula_cells)
         ps = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
         checks.ok("costing: printed landscape, one page wide", ps.IsLandscape and
                   ps.ScaleToPagesX == 1)
         checks.ok("costing: print area set", len(sheet.getPrintAreas()) == 1)
+
+        # The heat of the HP steam: STEAMLATENT of the header pressure typed in the sheet,
+        # against the CLI and python3-iapws (IAPWS-IF97), not a typed-in figure.
+        header = rng(doc, "SteamPressure")
+        steam_heat = rng(doc, "SteamHeat")
+        checks.ok("costing: the steam header pressure is an input, its heat STEAMLATENT of it",
+                  header.CellStyle == "rxnheat Input" and re.sub(r"\$", "", steam_heat.getFormula())
+                  .upper().endswith("STEAMLATENT(C%d)" % (header.CellAddress.Row + 1)),
+                  steam_heat.getFormula())
+        if cli:
+            checks.rel("costing: heat of 1 kg of steam = CLI steam latent %r" % header.getString(),
+                       cell_number(steam_heat), cli.value("steam", "latent", header.getString()),
+                       1e-12)
+        w = iapws97()
+        if w is None:
+            checks.skip("costing: steam against python3-iapws", "python3-iapws not installed")
+        else:
+            p = iapws_mpa(header.getString())
+            checks.rel("costing: heat of 1 kg of steam at %s = python3-iapws (IAPWS-IF97)"
+                       % header.getString(), cell_number(steam_heat),
+                       w(P=p, x=1).h - w(P=p, x=0).h, 1e-6)
 
         # The sheet's own inputs
         hours = cell_number(rng(doc, "OperatingHours"))
@@ -964,6 +998,401 @@ def check_equilibrium(checks, office, path, cli):
         doc.close(True)
 
 
+# ------------------------------------------------------------------------------------------
+# Standard cubic metre: 15 °C and 101.325 kPa (engine/DATA.md, Units); ideal gas.
+MOL_PER_SM3 = 101325.0 / (R * 288.15)
+# Names used in the workbooks -> formula, for python3-periodictable (from memory).
+NAMED_FORMULA = {"n-butane": "C4H10", "ethanol": "C2H5OH"}
+
+
+def bare(species):
+    """The species without its phase: 'CH4(g)' -> 'CH4'."""
+    return re.sub(r"\((?:g|l|s|aq|cr)\)$", "", species.strip())
+
+
+def reaction_terms(reaction):
+    """{species as written: signed coefficient} (reactants negative) of a reaction written as
+    `a A(p) + b B(p) -> ...`, coefficients plain decimals; a species on one side only."""
+    left, right = re.split(r"\s*->\s*", reaction)
+    out = {}
+    for sign, side in ((-1.0, left), (1.0, right)):
+        for term in side.split(" + "):
+            m = re.match(r"^\s*(\d+(?:\.\d+)?)?\s*(\S+?)\s*$", term)
+            if not m:
+                raise ValueError("cannot read the term %r of %r" % (term, reaction))
+            if m.group(2) in out:
+                raise ValueError("%r stands twice in %r" % (m.group(2), reaction))
+            out[m.group(2)] = sign * float(m.group(1) or "1")
+    return out
+
+
+def iapws_mpa(text):
+    """'40 bar' -> 4.0 (MPa): the only pressure form the workbooks use."""
+    m = re.match(r"^\s*(\d+(?:\.\d+)?)\s*bar\s*$", text)
+    if not m:
+        raise ValueError("no arithmetic here for the pressure %r" % text)
+    return float(m.group(1)) / 10.0
+
+
+def iapws97():
+    """python3-iapws's IAPWS-IF97 class (Debian's python3-iapws, a test dependency), or None."""
+    try:
+        from iapws import IAPWS97
+    except ImportError:
+        return None
+    return IAPWS97
+
+
+def check_furnace(checks, office, path, cli):
+    name = "furnace"
+    doc = office.load(path)
+    try:
+        results = ["HHVVolume", "LHVVolume", "HHVMass", "LHVMass", "LHVMolar", "AnalysisStatus",
+                   "FiredHeat", "FuelVolumeFlow", "FuelMassFlow", "FuelMolarFlow",
+                   "AirMolarFlow", "FuelReaction", "FuelReactionCheck", "StoichO2",
+                   "FlameTemperatureK", "FlameTemperature", "FlameStatus", "FuelCostHour",
+                   "FuelCostYear", "PricePer1000Sm3"]
+        gas = rng(doc, "FuelGas")
+        atoms_rng = rng(doc, "FuelAtoms")
+        derived = rng(doc, "FuelChecks")
+        extra_rng = rng(doc, "FlameExtraFeed")
+        sheet = gas.getSpreadsheet()
+        n = gas.Rows.Count
+        cells = [rng(doc, r) for r in results]
+        cells += [derived.getCellByPosition(c, r) for r in range(n) for c in range(4)]
+        cells += [extra_rng.getCellByPosition(c, r) for r in range(extra_rng.Rows.Count)
+                  for c in range(2)]
+        check_common(checks, name, path, doc, sheet, cells)
+        num = lambda k: cell_number(rng(doc, k))  # noqa: E731
+
+        species = [gas.getCellByPosition(0, r).getString() for r in range(n)]
+        x = [cell_number(gas.getCellByPosition(1, r)) for r in range(n)]
+        atoms = [[cell_number(atoms_rng.getCellByPosition(c, r)) for c in range(5)]
+                 for r in range(n)]
+        checks.ok("furnace: a fuel gas of at least five components summing to 1",
+                  n >= 5 and None not in x and abs(sum(x) - 1.0) < 1e-12, str(x))
+        try:
+            import periodictable
+        except ImportError:
+            periodictable = None
+        demand = []
+        for r, sp in enumerate(species):
+            c, h, o, nn, s = atoms[r]
+            demand.append(c + h / 4.0 + s - o / 2.0)
+            formula = NAMED_FORMULA.get(bare(sp), bare(sp))
+            if periodictable is not None:
+                # IUPAC formula parsing (python3-periodictable) against the typed atom counts
+                got = {str(el): k for el, k in periodictable.formula(formula).atoms.items()}
+                want = {el: k for el, k in zip("CHONS", atoms[r]) if k}
+                checks.ok("furnace: atoms typed for %s = its formula %s (periodictable)"
+                          % (sp, formula), got == want, "%r vs %r" % (got, want))
+                checks.rel("furnace: M of %s (IUPAC, periodictable)" % sp,
+                           cell_number(derived.getCellByPosition(0, r)),
+                           iupac_molar_mass(formula), 2e-4)
+            checks.ok("furnace: atom check of %s says ok" % sp,
+                      derived.getCellByPosition(1, r).getString() == "ok",
+                      derived.getCellByPosition(1, r).getString())
+            checks.rel("furnace: O2 to burn %s = C + H/4 + S - O/2" % sp,
+                       cell_number(derived.getCellByPosition(2, r)), demand[r], 1e-12)
+        stoich = sum(xi * d for xi, d in zip(x, demand))
+        checks.rel("furnace: stoichiometric O2 = sum x (C + H/4 + S - O/2)", num("StoichO2"),
+                   stoich, 1e-12)
+        checks.ok("furnace: status of the analysis ok", rng(doc, "AnalysisStatus").getString()
+                  == "ok", rng(doc, "AnalysisStatus").getString())
+
+        # Heating values: the CLI on the same composition, and the sum of the parts computed
+        # here from each component's own heating value (CLI hv per species, kJ/mol), weighted
+        # by mole fraction, per Sm3 by the ideal-gas law and per kg with IUPAC molar masses.
+        burning = [r for r in range(n) if demand[r] != 0]
+        comp = ["%s=%r" % (sp, xi) for sp, xi in zip(species, x)]
+        for basis in ("HHV", "LHV"):
+            per_mol = 0.0
+            if cli:
+                for cell_name, unit in (("%sVolume" % basis, "MJ/Sm3"),
+                                        ("%sMass" % basis, "MJ/kg")):
+                    j = cli.json("hv", *comp, "--basis", basis, "-u", unit)
+                    checks.rel("furnace: %s in %s = CLI hv" % (basis, unit), num(cell_name),
+                               float(j.get("value", "nan")), 1e-12)
+                for r in burning:
+                    per_mol += x[r] * cli.value("hv", species[r], "--basis", basis, "-u",
+                                                "kJ/mol")
+                checks.rel("furnace: %s per Sm3 = sum of x x hv(kJ/mol) x mol/Sm3 (ideal gas, "
+                           "15 C)" % basis, num("%sVolume" % basis),
+                           per_mol * MOL_PER_SM3 / 1000.0, 1e-9)
+                if periodictable is not None:
+                    m_mix = sum(xi * iupac_molar_mass(NAMED_FORMULA.get(bare(sp), bare(sp)))
+                                for sp, xi in zip(species, x))
+                    checks.rel("furnace: %s per kg = sum of parts / M of the gas (IUPAC)"
+                               % basis, num("%sMass" % basis), per_mol / m_mix, 2e-4)
+                if basis == "LHV":
+                    checks.rel("furnace: LHV per mol = sum of parts", num("LHVMolar"),
+                               per_mol, 1e-9)
+        ratio = num("HHVVolume") / num("LHVVolume")
+        checks.ok("furnace: HHV/LHV about 1.1 for a methane-rich gas (common practice)",
+                  1.08 < ratio < 1.13, repr(ratio))
+
+        # The combustion reaction of 1 mol of fuel gas and the extra feed, from the analysis.
+        reaction = rng(doc, "FuelReaction").getString()
+        terms = reaction_terms(reaction)
+        want = {species[r]: -x[r] for r in burning}
+        want["O2(g)"] = -stoich
+        for product, col, div in (("CO2(g)", 0, 1.0), ("H2O(g)", 1, 2.0), ("N2(g)", 3, 2.0),
+                                  ("SO2(g)", 4, 1.0)):
+            v = sum(x[r] * atoms[r][col] for r in burning) / div
+            if v:
+                want[product] = v
+        checks.ok("furnace: the reaction in the sheet is the combustion of 1 mol of the gas",
+                  set(terms) == set(want) and all(abs(terms[k] - want[k]) < 1e-9 for k in want),
+                  "%r vs %r" % (terms, want))
+        if cli:
+            checks.ok("furnace: ... balanced (CLI check)", cli.text("check", reaction) == "ok")
+        excess = num("ExcessAir") / 100.0
+        extra = {}
+        for r in range(extra_rng.Rows.Count):
+            sp = extra_rng.getCellByPosition(0, r).getString()
+            if sp:
+                extra[sp] = cell_number(extra_rng.getCellByPosition(1, r))
+        n2_fuel = sum(xi for sp, xi in zip(species, x) if bare(sp) == "N2")
+        want_extra = {"O2(g)": excess * stoich,
+                      "N2(g)": 3.76 * (1 + excess) * stoich + n2_fuel}   # 3.76: common practice
+        for r in range(n):
+            if demand[r] == 0 and bare(species[r]) != "N2":
+                want_extra[species[r]] = x[r]
+        checks.ok("furnace: extra feed = excess O2, air N2 (3.76 per O2) + fuel N2, inerts",
+                  set(extra) == set(want_extra) and all(abs(extra[k] - want_extra[k]) < 1e-12
+                                                        for k in want_extra),
+                  "%r vs %r" % (extra, want_extra))
+
+        t_feed = num("BurnerTemperature") + ZERO_CELSIUS_K
+        t_ad = num("FlameTemperatureK")
+        checks.ok("furnace: flame status ok", rng(doc, "FlameStatus").getString() == "ok")
+        checks.rel("furnace: flame temperature in C = K - 273.15", num("FlameTemperature"),
+                   t_ad - ZERO_CELSIUS_K, 1e-12)
+
+        def tad_cli(extra_feed):
+            args = [w for sp, v in extra_feed.items() for w in ("--extra", "%s=%r" % (sp, v))]
+            return float(cli.json("tad", reaction, repr(t_feed), *args).get("value", "nan"))
+
+        if cli:
+            checks.rel("furnace: flame temperature = CLI tad", t_ad, tad_cli(extra), 1e-12)
+            # The energy balance the answer must satisfy, with another command (streamh):
+            # H(flue gas at T_ad) = H(fuel + air at the burner temperature).
+            feed, flue = {}, {}
+            for sp, v in terms.items():
+                (feed if v < 0 else flue)[sp] = abs(v)
+            for sp, v in extra.items():
+                feed[sp] = feed.get(sp, 0.0) + v
+                flue[sp] = flue.get(sp, 0.0) + v
+
+            def streamh(t, stream):
+                return cli.value("streamh", repr(t), *["%s=%r" % kv for kv in stream.items()],
+                                 "--flow-unit", "mol/s", "-u", "W")
+
+            gap = streamh(t_ad, flue) - streamh(t_feed, feed)
+            checks.ok("furnace: H(flue gas at T_ad) = H(feed at %g K) within 1e-5 of the LHV "
+                      "(CLI streamh)" % t_feed, abs(gap) < 1e-5 * num("LHVMolar") * 1000.0,
+                      "%g W per mol/s" % gap)
+        print("      furnace: HHV %.3f, LHV %.3f MJ/Sm3; LHV %.3f MJ/kg; fuel %.0f Sm3/h; "
+              "T_ad %.1f K at %g %% excess air; %.0f EUR/yr"
+              % (num("HHVVolume"), num("LHVVolume"), num("LHVMass"), num("FuelVolumeFlow"),
+                 t_ad, excess * 100, num("FuelCostYear")))
+
+        # Fuel, air and cost: plain arithmetic on the sheet's inputs.
+        fired = num("AbsorbedDuty") / num("Efficiency")
+        checks.rel("furnace: fired = duty / efficiency", num("FiredHeat"), fired, 1e-12)
+        checks.rel("furnace: Sm3/h = MW x 3600 / LHV", num("FuelVolumeFlow"),
+                   fired * 3600.0 / num("LHVVolume"), 1e-12)
+        checks.rel("furnace: kg/h = MW x 3600 / LHV", num("FuelMassFlow"),
+                   fired * 3600.0 / num("LHVMass"), 1e-12)
+        checks.rel("furnace: kmol/h = MW x 3600 / LHV(kJ/mol)", num("FuelMolarFlow"),
+                   fired * 3600.0 / num("LHVMolar"), 1e-12)
+        checks.rel("furnace: Sm3/h and kmol/h agree by the ideal-gas law",
+                   num("FuelVolumeFlow") * MOL_PER_SM3 / 1000.0, num("FuelMolarFlow"), 1e-9)
+        checks.rel("furnace: air = fuel x 4.76 x (1 + excess) x O2 (common practice)",
+                   num("AirMolarFlow"), num("FuelMolarFlow") * 4.76 * (1 + excess) * stoich,
+                   1e-12)
+        per_hour = fired * 3.6 * num("FuelPrice")
+        checks.rel("furnace: EUR/h = MW x 3.6 GJ/MWh x EUR/GJ", num("FuelCostHour"), per_hour,
+                   1e-12)
+        checks.rel("furnace: EUR/yr = EUR/h x hours", num("FuelCostYear"),
+                   per_hour * num("OperatingHours"), 1e-12)
+        checks.rel("furnace: EUR per 1000 Sm3 = EUR/GJ x MJ/Sm3", num("PricePer1000Sm3"),
+                   num("FuelPrice") * num("LHVVolume"), 1e-12)
+
+        # Edits: more excess air -> a cooler flame (common practice), as the CLI says.
+        rng(doc, "ExcessAir").setValue(30)
+        doc.calculateAll()
+        t_30 = num("FlameTemperatureK")
+        checks.ok("furnace: 30 % excess air -> cooler flame (common practice)",
+                  t_30 is not None and t_30 < t_ad, "%r vs %r" % (t_30, t_ad))
+        if cli:
+            extra30 = dict(extra)
+            extra30["O2(g)"] = 0.30 * stoich
+            extra30["N2(g)"] = 3.76 * 1.30 * stoich + n2_fuel
+            checks.rel("furnace: 30 % excess air = CLI tad", t_30, tad_cli(extra30), 1e-12)
+        rng(doc, "ExcessAir").setValue(excess * 100)
+        # A composition that does not sum to 1: no heating value, words giving the sum.
+        gas.getCellByPosition(1, 0).setValue(x[0] - 0.08)
+        doc.calculateAll()
+        status = rng(doc, "AnalysisStatus").getString()
+        checks.ok("furnace: analysis summing to 0.92 -> Err:502 in the heating values and "
+                  "the fuel flow",
+                  rng(doc, "LHVVolume").getError() == ERR_ILLEGAL_ARGUMENT
+                  and rng(doc, "FuelVolumeFlow").getError() != 0)
+        checks.ok("furnace: ... and the status gives the sum in words", status != "ok"
+                  and "0.92" in status, status)
+        gas.getCellByPosition(1, 0).setValue(x[0])
+        # Wrong atoms typed for ethane: the check says so and the reaction does not balance.
+        row = next(r for r, sp in enumerate(species) if bare(sp) == "C2H6")
+        atoms_rng.getCellByPosition(1, row).setValue(5)
+        doc.calculateAll()
+        checks.ok("furnace: C2H5 typed for C2H6 -> the atom check says no",
+                  derived.getCellByPosition(1, row).getString().startswith("no")
+                  and rng(doc, "AnalysisStatus").getString().startswith("the atoms"),
+                  rng(doc, "AnalysisStatus").getString())
+        checks.ok("furnace: ... no flame temperature, and the status says why",
+                  rng(doc, "FlameTemperatureK").getError() == ERR_ILLEGAL_ARGUMENT
+                  and "balance" in rng(doc, "FlameStatus").getString(),
+                  rng(doc, "FlameStatus").getString())
+        atoms_rng.getCellByPosition(1, row).setValue(atoms[row][1])
+        doc.calculateAll()
+        checks.rel("furnace: inputs restored -> the same flame temperature",
+                   num("FlameTemperatureK"), t_ad, 1e-12)
+    finally:
+        doc.close(True)
+
+
+def check_duty(checks, office, path, cli):
+    name = "duty"
+    doc = office.load(path)
+    try:
+        results = ["KeyFed", "KeyConverted", "ReactionHeat", "Duty", "SensibleHeat",
+                   "DutyStatus", "SteamTsat", "SteamLatent", "SteamFlow", "SteamFromFeedWater",
+                   "SteamCheck", "CoolingWater", "CoolingWaterByCp"]
+        feed_rng = rng(doc, "Feed")
+        sheet = feed_rng.getSpreadsheet()
+        check_common(checks, name, path, doc, sheet, [rng(doc, r) for r in results])
+        num = lambda k: cell_number(rng(doc, k))  # noqa: E731
+        txt = lambda k: rng(doc, k).getString()  # noqa: E731
+        reaction, key, unit = txt("Reaction"), txt("KeySpecies"), txt("FlowUnit")
+        conv = num("Conversion")
+        t_in = num("InletTemperature") + ZERO_CELSIUS_K
+        t_out = num("OutletTemperature") + ZERO_CELSIUS_K
+        feed = {feed_rng.getCellByPosition(0, r).getString():
+                cell_number(feed_rng.getCellByPosition(1, r))
+                for r in range(feed_rng.Rows.Count)}
+        checks.ok("duty: flows in kmol/h, an exothermic reactor cooled from its inlet",
+                  unit == "kmol/h" and t_out > t_in and 0 < conv < 1, "%s %r %r" % (unit, t_in,
+                                                                                 t_out))
+        duty = num("Duty")
+        checks.rel("duty: key fed from the feed table", num("KeyFed"), feed[key], 1e-12)
+        checks.rel("duty: converted = conversion x fed", num("KeyConverted"), conv * feed[key],
+                   1e-12)
+        # The outlet by stoichiometry, here: n_out = n_in + nu x extent, extent = X n_key/|nu|.
+        nu = {bare(sp): v for sp, v in reaction_terms(reaction).items()}
+        extent = conv * feed[key] / abs(nu[key])
+        outlet = dict(feed)
+        for sp, v in nu.items():
+            outlet[sp] = outlet.get(sp, 0.0) + v * extent
+
+        def streamh(t, stream):
+            return cli.value("streamh", repr(t), *["%s=%r" % kv for kv in stream.items()],
+                             "--flow-unit", unit, "-u", "kW")
+
+        feed_args = ["%s=%r" % kv for kv in feed.items()]
+        if cli:
+            j = cli.json("duty", reaction, repr(conv), key, repr(t_in), repr(t_out), *feed_args,
+                         "--flow-unit", unit, "-u", "kW")
+            checks.rel("duty: RXNDUTY = CLI duty", duty, float(j.get("value", "nan")), 1e-12)
+            checks.rel("duty: reaction heat = CLI load of the converted amount",
+                       num("ReactionHeat"), cli.value("load", reaction, repr(conv * feed[key]),
+                                                      unit, key, "-u", "kW", "-T", repr(t_in)),
+                       1e-12)
+            checks.rel("duty: duty = H(outlet at T out) - H(feed at T in) (CLI streamh, the "
+                       "outlet by stoichiometry here)", duty,
+                       streamh(t_out, outlet) - streamh(t_in, feed), 1e-9)
+            # Hess's law: duty - reaction heat at T in = the outlet heated from T in to T out.
+            checks.rel("duty: sensible heat = H(outlet at T out) - H(outlet at T in)",
+                       num("SensibleHeat"), streamh(t_out, outlet) - streamh(t_in, outlet), 1e-6)
+        checks.ok("duty: heat to remove, and the status says so", duty is not None and duty < 0
+                  and txt("DutyStatus").startswith("heat to remove"), txt("DutyStatus"))
+
+        # Steam at the header pressure: the CLI and python3-iapws (IAPWS-IF97).
+        header = txt("SteamPressure")
+        latent = num("SteamLatent")
+        if cli:
+            checks.rel("duty: latent heat = CLI steam latent %r" % header, latent,
+                       cli.value("steam", "latent", header), 1e-12)
+            checks.rel("duty: saturation T = CLI steam tsat", num("SteamTsat"),
+                       cli.value("steam", "tsat", header) - ZERO_CELSIUS_K, 1e-12)
+        w = iapws97()
+        if w is None:
+            checks.skip("duty: steam against python3-iapws", "python3-iapws not installed")
+        else:
+            p = iapws_mpa(header)
+            h_vap, h_liq = w(P=p, x=1).h, w(P=p, x=0).h
+            checks.rel("duty: latent heat at %s = python3-iapws (IAPWS-IF97)" % header, latent,
+                       h_vap - h_liq, 1e-6)
+            checks.close("duty: saturation T at %s = python3-iapws" % header, num("SteamTsat"),
+                         w(P=p, x=0).T - ZERO_CELSIUS_K, 1e-6)
+            h_bfw = w(P=p, T=num("FeedWaterTemperature") + ZERO_CELSIUS_K).h
+            checks.rel("duty: steam from feed water = heat / (h vapour - h water) (python3-iapws)",
+                       num("SteamFromFeedWater"), -duty * 3600.0 / (h_vap - h_bfw), 1e-6)
+            pc = iapws_mpa(txt("CoolingWaterPressure"))
+            dh_cw = (w(P=pc, T=num("CoolingWaterOut") + ZERO_CELSIUS_K).h
+                     - w(P=pc, T=num("CoolingWaterIn") + ZERO_CELSIUS_K).h)
+            checks.rel("duty: cooling water t/h = heat x 3.6 / dh (python3-iapws)",
+                       num("CoolingWater"), -duty * 3.6 / dh_cw, 1e-6)
+        checks.rel("duty: steam kg/h = |duty| x 3600 / latent", num("SteamFlow"),
+                   abs(duty) * 3600.0 / latent, 1e-12)
+        checks.rel("duty: cooling water by cp = heat x 3.6 / (cp x rise)",
+                   num("CoolingWaterByCp"), -duty * 3.6 / (num("CoolingWaterCp") * (
+                       num("CoolingWaterOut") - num("CoolingWaterIn"))), 1e-12)
+        checks.rel("duty: cp 4.18 (common practice) within 0.5 % of the IAPWS-IF97 figure",
+                   num("CoolingWaterByCp"), num("CoolingWater"), 5e-3)
+        checks.ok("duty: the outlet can raise the header's steam (above its saturation T)",
+                  txt("SteamCheck").startswith("yes"), txt("SteamCheck"))
+        print("      duty: %.0f kW (reaction heat %.0f kW, sensible %.0f kW); latent %.2f kJ/kg "
+              "at %s; steam %.0f kg/h (from feed water %.0f kg/h); cooling water %.1f t/h"
+              % (duty, num("ReactionHeat"), num("SensibleHeat"), latent, header,
+                 num("SteamFlow"), num("SteamFromFeedWater"), num("CoolingWater")))
+
+        # Edits. No conversion: the duty is the feed's own sensible heat.
+        rng(doc, "Conversion").setValue(0)
+        doc.calculateAll()
+        if cli:
+            checks.rel("duty: conversion 0 -> H(feed at T out) - H(feed at T in)", num("Duty"),
+                       streamh(t_out, feed) - streamh(t_in, feed), 1e-9)
+        checks.ok("duty: ... and no reaction heat", num("ReactionHeat") == 0.0,
+                  txt("ReactionHeat"))
+        rng(doc, "Conversion").setValue(1.2)
+        doc.calculateAll()
+        checks.ok("duty: conversion 1.2 -> Err:502 and words in the status",
+                  rng(doc, "Duty").getError() == ERR_ILLEGAL_ARGUMENT
+                  and "conversion" in txt("DutyStatus"), txt("DutyStatus"))
+        checks.ok("duty: ... and no steam figure", rng(doc, "SteamFlow").getError() != 0)
+        rng(doc, "Conversion").setValue(conv)
+        # A header too hot for the outlet: 120 bar saturates above 320 °C.
+        rng(doc, "SteamPressure").setString("120 bar")
+        doc.calculateAll()
+        checks.ok("duty: 120 bar header -> the outlet cannot raise it",
+                  txt("SteamCheck").startswith("no"), txt("SteamCheck"))
+        if cli:
+            checks.rel("duty: latent at 120 bar = CLI", num("SteamLatent"),
+                       cli.value("steam", "latent", "120 bar"), 1e-12)
+        # Above 165.29 bar the saturated states are in region 3: an error, not a number.
+        rng(doc, "SteamPressure").setString("200 bar")
+        doc.calculateAll()
+        checks.ok("duty: 200 bar (region 3) -> Err:502 in the latent heat and the steam flow",
+                  rng(doc, "SteamLatent").getError() == ERR_ILLEGAL_ARGUMENT
+                  and rng(doc, "SteamFlow").getError() != 0)
+        rng(doc, "SteamPressure").setString(header)
+        doc.calculateAll()
+        checks.rel("duty: inputs restored -> the same duty", num("Duty"), duty, 1e-12)
+    finally:
+        doc.close(True)
+
+
 def main():
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--oxt", required=True)
@@ -994,7 +1423,9 @@ def main():
                                 (DESIGN, "design", check_design),
                                 (HESS, "hess", check_hess),
                                 (NEUTRALISATION, "neutralisation", check_neutralisation),
-                                (EQUILIBRIUM, "equilibrium", check_equilibrium)):
+                                (EQUILIBRIUM, "equilibrium", check_equilibrium),
+                                (FURNACE, "furnace", check_furnace),
+                                (DUTY, "duty", check_duty)):
             path = os.path.join(args.examples, name)
             if not checks.ok("%s exists" % name, os.path.exists(path)):
                 continue

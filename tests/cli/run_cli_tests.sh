@@ -1014,6 +1014,10 @@ run duty "$CH4_AIR" 1 CH4 298.15 "$TAD" CH4=1 O2=2 N2=7.52 --json
 expect_close "duty to the tad answer is zero" "$(jval value)" 0 1e-3
 run tad "$CH4_AIR" "25 C" --extra N2=7.52 --conversion 0.5
 expect_rc "tad --conversion 0.5" 0
+# N2 written on both sides (carried through the burner): fed and heated, the same answer as
+# --extra N2=7.52, not the pure-O2 flame of its net coefficient 0.
+run tad "CH4(g) + 2 O2(g) + 7.52 N2(g) -> CO2(g) + 2 H2O(g) + 7.52 N2(g)" 298.15 --json
+expect_close "tad with N2 on both sides = tad --extra N2=7.52" "$(jval value)" "$TAD" 1e-9
 run tad "$CH4_AIR" 298.15 N2=7.52
 expect_rc "tad extra feed only as --extra: exit 2" 2
 run tad "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)" 298.15 --extra N2=7.52

@@ -204,6 +204,12 @@ TEST_CASE("RXNEQX: errors in words", "[eqx]") {
               .find("Qq") != std::string::npos);
     CHECK(message([&] { return eng().eq_conversion(NH3_SYNTHESIS, {{"N2", 1}, {"H2", 3}, {"N2", 1}}, "", at(700, 200)); })
               .find("twice") != std::string::npos);
+    // An inert named twice, with and without its phase: an error, not the two amounts summed
+    // (RXNEQX matches its feed with RXNDUTY's and RXNTAD's code, which refuses this).
+    CHECK(message([&] {
+              return eng().eq_conversion(NH3_SYNTHESIS, {{"N2", 1}, {"H2", 3}, {"CH4", 0.1}, {"CH4(g)", 0.1}}, "",
+                                         at(700, 100));
+          }).find("the feed names 'CH4(g)' twice") != std::string::npos);
     CHECK(message([&] { return eng().eq_conversion(NH3_SYNTHESIS, {{"N2", 1}, {"H2", -3}}, "", at(700, 200)); })
               .find("zero or more") != std::string::npos);
     CHECK(message([&] { return eng().eq_conversion(NH3_SYNTHESIS, feed, "NH3", at(700, 200)); })

@@ -257,6 +257,24 @@ TEST_CASE("RXNTAD: methane in air against bisection on the independent evaluator
     CHECK(eng().adiabatic_temperature(CH4_AIR, air_N2, 0, Conditions(298.15)) == Approx(298.15).margin(1e-6));
 }
 
+TEST_CASE("RXNTAD: a species written on both sides is fed and carried through, not dropped", "[heat]") {
+    // grammar/SYNTAX.md allows N2 on both sides ("nitrogen carried through a burner"). Its net
+    // coefficient is 0, but it is still in the feed as written and takes up heat: the answer is
+    // the one with the N2 as extra feed, not that of methane in pure O2 (about 5166 K).
+    const double T_extra = eng().adiabatic_temperature(CH4_AIR, {{"N2", 7.52}}, 1, Conditions(298.15));
+    const double T_written = eng().adiabatic_temperature(
+        "CH4(g) + 2 O2(g) + 7.52 N2(g) -> CO2(g) + 2 H2O(g) + 7.52 N2(g)", {}, 1, Conditions(298.15));
+    CHECK(T_written == Approx(T_extra).epsilon(1e-12));
+    // An excess written on both sides: 2.5 O2 in, 0.5 O2 out, as with 0.5 O2 of extra feed.
+    const double T_excess_extra = eng().adiabatic_temperature(CH4_AIR, {{"O2", 0.5}}, 1, Conditions(298.15));
+    const double T_excess_written = eng().adiabatic_temperature(
+        "CH4(g) + 2.5 O2(g) -> CO2(g) + 2 H2O(g) + 0.5 O2(g)", {}, 1, Conditions(298.15));
+    CHECK(T_excess_written == Approx(T_excess_extra).epsilon(1e-12));
+    // ... and the extra feed adds to the written amount.
+    CHECK(eng().adiabatic_temperature("CH4(g) + 2 O2(g) + 3.52 N2(g) -> CO2(g) + 2 H2O(g) + 3.52 N2(g)",
+                                      {{"N2", 4}}, 1, Conditions(298.15)) == Approx(T_extra).epsilon(1e-12));
+}
+
 TEST_CASE("RXNTAD: an endothermic reaction cools its feed (N2O4 -> 2 NO2)", "[heat]") {
     const double T = eng().adiabatic_temperature("N2O4(g) -> 2 NO2(g)", {{"Ar", 10}}, 0.3, Conditions(500));
     CHECK(T < 500);
