@@ -630,7 +630,7 @@ double parse_temperature(std::string_view text) {
                         "the temperature " + quote(text) +
                             (detail::underflows(rest.substr(0, static_cast<std::size_t>(r.ptr - rest.data())))
                                  ? " holds a number that underflows: it is closer to zero than a double can "
-                                   "hold (about 2.2e-308); write 0 if that is meant"
+                                   "hold (about 2.2e-308)"
                                  : " is not a finite number"));
         if (r.ec != std::errc()) starts_numeric = false;
         end = r.ptr;
