@@ -113,7 +113,11 @@ bool underflows(std::string_view number) {
 }
 
 void require_finite(double v, const char* what) {
-    if (!std::isfinite(v)) throw Error(ErrorKind::argument, std::string(what) + " is not a finite number");
+    if (!std::isfinite(v))
+        throw Error(ErrorKind::argument, std::string(what) + " is " + number_words(v) + ", not a finite number" +
+                                             (std::isinf(v) ? ": the numbers combine beyond the largest a double "
+                                                              "holds (about 1.8e+308)"
+                                                            : ""));
 }
 
 double checked_molar_mass(std::optional<double> m) {

@@ -5,8 +5,9 @@
 //
 // The corpus: every file under $RXNHEAT_FUZZ_CORPUS (folders separated by ':'), or else under
 // fuzz/corpus and tests/fuzz-corpus of the source tree when they exist; each file's whole text
-// and each of its lines (split at line feeds and NULs) is one input. At most 3000 files are read
-// so that the suite stays quick.
+// and each of its lines (split at line feeds and NULs) is one input. At most 2000 of these inputs
+// are taken (in file order), so that the suite stays quick; $RXNHEAT_FUZZ_CORPUS_MAX sets another
+// limit (0: all).
 #include "behaviour_helpers.hpp"
 
 #include <rxnheat/catalogue.hpp>
@@ -15,6 +16,7 @@
 
 #include <cfloat>
 #include <cmath>
+#include <cstdint>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
@@ -150,12 +152,15 @@ std::vector<std::string> corpus_inputs(std::vector<std::string>* folders_read) {
         folders = {std::string(RXNHEAT_SOURCE_DIR) + "/fuzz/corpus", std::string(RXNHEAT_SOURCE_DIR) + "/tests/fuzz-corpus"};
     }
     std::vector<std::string> out;
+    std::size_t limit = 2000;
+    if (const char* max = std::getenv("RXNHEAT_FUZZ_CORPUS_MAX")) limit = std::strtoul(max, nullptr, 10);
+    if (limit == 0) limit = SIZE_MAX;
     std::size_t files = 0;
     for (const auto& folder : folders) {
         std::error_code ec;
         if (!fs::is_directory(folder, ec)) continue;
         folders_read->push_back(folder);
-        for (fs::recursive_directory_iterator it(folder, ec), end; it != end && files < 3000; it.increment(ec)) {
+        for (fs::recursive_directory_iterator it(folder, ec), end; it != end && out.size() < limit; it.increment(ec)) {
             if (ec) break;
             if (!it->is_regular_file(ec)) continue;
             std::ifstream f(it->path(), std::ios::binary);
@@ -175,6 +180,7 @@ std::vector<std::string> corpus_inputs(std::vector<std::string>* folders_read) {
             out.push_back(line);
         }
     }
+    if (out.size() > limit) out.resize(limit);
     return out;
 }
 
