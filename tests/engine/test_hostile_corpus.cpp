@@ -432,6 +432,46 @@ TEST_CASE("every public function throws only rxnheat::Error on hostile input", "
             }
         }
     }
+    // The tables at the edge of a double through every function that reads a table.
+    for (const SpeciesTable* tab : tables().all())
+        for (double T : {200.0, 298.15, 400.0, 1000.0, 1e5}) {
+            const Conditions at{T, tab};
+            const std::string s = "tables at " + rxnheat::number_words(T) + " K";
+            for (const std::string& sp : {std::string("O3"), std::string("CH4"), std::string("O3(g)"), std::string("ozone")}) {
+                drive(found, "species_hf", s, [&] { e.species_hf(sp, at); });
+                drive(found, "species_cp", s, [&] { e.species_cp(sp, at); });
+                drive(found, "species_h", s, [&] { e.species_h(sp, at, 250); });
+                drive(found, "species_s", s, [&] { e.species_s(sp, at); });
+                drive(found, "species_report", s, [&] { e.species_report(sp, at); });
+                drive(found, "stream_enthalpy", s, [&] { e.stream_enthalpy({{sp, 1e300}, {"N2", 1}}, {}, {}, at); });
+                drive(found, "heating_value", s, [&] { e.heating_value(sp, {}, {}, at); });
+            }
+            for (const char* r : {"2 O3(g) -> 3 O2(g)", "CH4 + 2 O2 -> CO2 + 2 H2O", "CH4 + 2 O3 -> CO2 + 2 H2O + O2"}) {
+                drive(found, "eq_conversion", s, [&] { e.eq_conversion(r, {{"O3", 1}, {"CH4", 1}, {"O2", 3}}, {}, at); });
+                drive(found, "duty", s, [&] { e.duty(r, {{"O3", 2}, {"CH4", 1}, {"O2", 3}}, 0.5, {}, 300, T, {}, {}, tab); });
+                drive(found, "adiabatic_temperature", s, [&] { e.adiabatic_temperature(r, {{"N2", 3}}, 1, at); });
+                drive(found, "load", s, [&] { e.load(r, 1e300, "kmol/h", "O2", {}, at); });
+                drive(found, "report", s, [&] { e.report(r, at); });
+                drive(found, "source", s, [&] { e.source(r, at); });
+            }
+        }
+    // A species table from a CSV file of each input.
+    {
+        const std::string path = std::string(RXNHEAT_BINARY_DIR) + "/tests/hostile-table.csv";
+        for (const std::string& s : inputs) {
+            for (const std::string& text : {s, "formula,phase,dHf,S,cp,tmin,tmax\n" + s + ",g,1,1,1,200,1000\n",
+                                            "formula,phase,dHf\nO3,g," + s + "\n"}) {
+                if (std::FILE* f = std::fopen(path.c_str(), "wb")) {
+                    std::fwrite(text.data(), 1, text.size(), f);
+                    std::fclose(f);
+                }
+                drive(found, "SpeciesTable::from_csv_file", s, [&] { SpeciesTable::from_csv_file(path); });
+            }
+        }
+        std::remove(path.c_str());
+        drive(found, "SpeciesTable::from_csv_file", "(no file)", [&] { SpeciesTable::from_csv_file(path); });
+        drive(found, "SpeciesTable::from_csv_file", "(empty path)", [&] { SpeciesTable::from_csv_file(""); });
+    }
     // The numeric arguments at their edges.
     for (double d : edge_doubles()) {
         const std::string s = rxnheat::number_words(d);
