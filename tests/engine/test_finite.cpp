@@ -4,6 +4,8 @@
 // below are deliberately absurd (they test the limits of a double, not chemistry).
 #include "behaviour_helpers.hpp"
 
+#include <rxnheat/catalogue.hpp>
+
 #include <cfloat>
 #include <cmath>
 #include <string>
@@ -177,4 +179,29 @@ TEST_CASE("temperature text at 0 K, denormal or underflowing is refused when rea
     CHECK(contains(attempt([] { return rxnheat::parse_temperature("1e400"); }).message, "finite"));
     CHECK(rxnheat::parse_temperature("1e-300 K") == 1e-300);
     CHECK(rxnheat::parse_temperature("-0 C") == 273.15);
+}
+
+TEST_CASE("a number argument given as text that underflows says so", "[temperature][catalogue]") {
+    // The command line hands every number over as text (HostRules::text_numbers).
+    const rxnheat::FunctionSpec* f = rxnheat::find_function("RXNLOAD");
+    REQUIRE(f);
+    rxnheat::HostRules cli;
+    cli.text_numbers = true;
+    auto load = [&](const char* quantity) {
+        return rxnheat::evaluate(*f, {rxnheat::Arg::of(std::string(CH4_COMB)), rxnheat::Arg::of(std::string(quantity)),
+                                      rxnheat::Arg::of(std::string("kmol")), rxnheat::Arg::of(std::string("CH4"))},
+                                 cli)
+            .single();
+    };
+    for (const char* q : {"1e-400", "1e-320"}) {
+        const auto o = load(q);
+        INFO(q << ": " << o.number << " " << o.text);
+        REQUIRE_FALSE(o.ok());
+        CHECK(contains(o.text, "underflows"));
+        CHECK(contains(o.text, "'quantity'"));
+    }
+    // 1e-300 kmol is small but a number: a value (−890 kJ/mol × 1e-297 mol, NASA Glenn data).
+    const auto small = load("1e-300");
+    REQUIRE(small.ok());
+    CHECK(small.number < 0);
 }
