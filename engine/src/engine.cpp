@@ -182,7 +182,7 @@ std::string scaled(const Prepared& prepared, const Rational& factor) {
 double finite_value(double v, const char* quantity, double T, const char* unit) {
     if (std::isfinite(v)) return v;
     throw Error(ErrorKind::argument, std::string(quantity) + " at " + number_words(T) + " K is not a finite number (" +
-                                         number_words(v) + " " + unit +
+                                         number_words(v) + (*unit ? " " : "") + unit +
                                          "): the data's values combine beyond the largest number a double holds "
                                          "(about 1.8e+308)");
 }

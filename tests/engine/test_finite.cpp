@@ -101,6 +101,21 @@ TEST_CASE("ΔrG° or log K that overflow are said by check() as dg() and logk() 
     CHECK(logk.message == dg.message);
 }
 
+TEST_CASE("log K that overflows alone is said by check() as logk() throws it", "[finite]") {
+    // At 1e-300 K, −ΔrG°/(R·T·ln 10) of −2e10 J/mol is about 1e309: ΔrG° is finite, log K is not.
+    const auto t = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S", "cp", "tmin", "tmax"},
+                                            {"O3", "g", "1e7", "238.9", "30", "1e-300", "1000"},
+                                            {"O2", "g", "0", "205.1", "29", "1e-300", "1000"}});
+    const char* r = "2 O3(g) -> 3 O2(g)";
+    const rxnheat::Conditions at{1e-300, &t};
+    CHECK(std::isfinite(eng().dg(r, at)));
+    const auto logk = attempt([&] { return eng().logk(r, at); });
+    REQUIRE_ENGINE_ERROR(logk);
+    INFO(logk.message);
+    CHECK(contains(logk.message, "log K at 1e-300 K is not a finite number (inf)"));
+    CHECK(eng().check(r, at) == logk.message);
+}
+
 TEST_CASE("H2O0.9999999 is not water, and the balance message shows the counts apart", "[composition]") {
     // The grammar reads 0.9999999 exactly (9999999/10000000); no record has that composition.
     const auto hf = attempt([] { return eng().species_hf("H2O0.9999999"); });
