@@ -7,6 +7,7 @@
 #include "units.hpp"
 
 #include <cerrno>
+#include <cfloat>
 #include <cmath>
 #include <cstdlib>
 #include <list>
@@ -617,6 +618,10 @@ double strict_number(const ArgSpec& a, std::string_view text) {
     const double v = std::strtod(s.c_str(), &end);
     if (s.empty() || end != s.c_str() + s.size() || !std::isfinite(v))
         bad(a, "must be a number, not '" + s + "'");
+    // strtod gives 0 or a denormal for a number closer to zero than a double holds: said, not
+    // taken as 0.
+    if (errno == ERANGE && std::fabs(v) < DBL_MIN)
+        bad(a, "'" + s + "' underflows: it is closer to zero than a double can hold (about 2.2e-308)");
     return v;
 }
 

@@ -31,33 +31,31 @@ double to_double(const Rational& r) { return r.convert_to<double>(); }
 
 namespace {
 
-std::string count_text(double x) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.6f", x);
-    std::string s(buf);
-    while (!s.empty() && s.back() == '0') s.pop_back();
-    if (!s.empty() && s.back() == '.') s.pop_back();
-    return s;
-}
-
-
 Rational rational_from_count(double x) {
     // NASA element counts are written with at most 5 decimals.
     const long long scaled = std::llround(x * 100000.0);
     return Rational(scaled, 100000);
 }
 
-std::string key_of(std::vector<std::pair<std::string, double>> atoms, int charge) {
-    std::sort(atoms.begin(), atoms.end());
+/// Exact: each element's count as a rational ("H2 O1", "C1/3"), never a formatted decimal, so
+/// that only equal compositions share a key (H2O0.9999999 is not water).
+std::string key_of(std::vector<std::pair<std::string, Rational>> atoms, int charge) {
+    std::sort(atoms.begin(), atoms.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
     std::string key;
     for (std::size_t i = 0; i < atoms.size(); ++i) {
-        double n = atoms[i].second;
+        Rational n = atoms[i].second;
         while (i + 1 < atoms.size() && atoms[i + 1].first == atoms[i].first) n += atoms[++i].second;
-        if (std::fabs(n) < 1e-9) continue;
-        key += atoms[i].first + count_text(n);
+        if (n == 0) continue;
+        key += atoms[i].first + rational_text(n) + " ";
     }
     key += "|q" + std::to_string(charge);
     return key;
+}
+
+std::string key_of(const Record& r) {
+    std::vector<std::pair<std::string, Rational>> atoms;
+    for (const auto& [s, n] : r.elements) atoms.emplace_back(s, rational_from_count(n));
+    return key_of(std::move(atoms), r.charge);
 }
 
 // The substance part of a record's name: for condensed records the final phase tag is
@@ -113,12 +111,7 @@ std::uint64_t fnv1a(std::string_view s, std::uint64_t h = 1469598103934665603ull
 
 }  // namespace
 
-std::string Composition::key() const {
-    std::vector<std::pair<std::string, double>> d;
-    d.reserve(atoms.size());
-    for (const auto& [s, n] : atoms) d.emplace_back(s, to_double(n));
-    return key_of(std::move(d), charge);
-}
+std::string Composition::key() const { return key_of(atoms, charge); }
 
 // ---------------------------------------------------------------------------------------------
 // Substance
@@ -349,7 +342,7 @@ Database::Database(std::string_view thermo, std::string_view elements, std::stri
     for (const auto& e : elements_) by_symbol_.emplace(e.symbol, &e);
     for (const auto& r : records_) {
         by_name_.emplace(r.name, &r);
-        by_composition_[key_of(r.elements, r.charge)].push_back(&r);
+        by_composition_[key_of(r)].push_back(&r);
         if (r.comment.find("Ref-Elm") != std::string::npos && r.elements.size() == 1 && r.charge == 0)
             reference_forms_[r.elements.front().first].push_back(&r);
     }

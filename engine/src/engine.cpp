@@ -15,6 +15,7 @@
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
+#include <optional>
 #include <set>
 
 #ifndef RXNHEAT_VERSION
@@ -82,9 +83,57 @@ double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view 
     return detail::from_J_per_mol(J_per_mol / n, unit, p.substances[idx].molar_mass);
 }
 
+/// Decimal text with an exponent ("1e-7", "2.5E+3", "+4e2"), read exactly; nullopt when the text
+/// is not of that form. At most grammar::max_number_digits digits before the exponent, as in a
+/// reaction's numbers; an exponent beyond what any coefficient of that many digits could hold
+/// is Error(argument) naming the factor.
+std::optional<Rational> exponent_decimal(std::string_view text) {
+    using boost::multiprecision::cpp_int;
+    const std::string_view t = trim(text);
+    std::size_t i = 0;
+    const bool minus = !t.empty() && t[0] == '-';
+    if (i < t.size() && (t[i] == '+' || t[i] == '-')) ++i;
+    cpp_int digits = 0;
+    std::size_t n_digits = 0, n_decimals = 0;
+    bool point = false;
+    for (; i < t.size() && ((t[i] >= '0' && t[i] <= '9') || (t[i] == '.' && !point)); ++i) {
+        if (t[i] == '.') {
+            point = true;
+            continue;
+        }
+        digits = digits * 10 + (t[i] - '0');
+        ++n_digits;
+        if (point) ++n_decimals;
+    }
+    if (n_digits == 0 || i == t.size() || (t[i] != 'e' && t[i] != 'E')) return std::nullopt;
+    ++i;
+    bool negative = false;
+    if (i < t.size() && (t[i] == '+' || t[i] == '-')) negative = t[i++] == '-';
+    if (i == t.size()) return std::nullopt;
+    long long exponent = 0;
+    for (; i < t.size(); ++i) {
+        if (t[i] < '0' || t[i] > '9') return std::nullopt;
+        exponent = std::min<long long>(exponent * 10 + (t[i] - '0'), 1000000);
+    }
+    if (n_digits > grammar::max_number_digits)
+        throw Error(ErrorKind::argument, "the factor '" + std::string(t) + "' has more than " +
+                                             std::to_string(grammar::max_number_digits) + " digits");
+    const long long e = (negative ? -exponent : exponent) - static_cast<long long>(n_decimals);
+    const long long limit = 2 * static_cast<long long>(grammar::max_number_digits);
+    if (digits != 0 && (e > limit || e < -limit))
+        throw Error(ErrorKind::argument, "the factor '" + std::string(t) + "' is too " + (e > 0 ? "large" : "small") +
+                                             ": scaled coefficients must have at most " +
+                                             std::to_string(grammar::max_number_digits) + " digits");
+    if (minus) digits = -digits;
+    const cpp_int power = boost::multiprecision::pow(cpp_int(10), static_cast<unsigned>(e < 0 ? -e : e));
+    if (e < 0) return Rational(digits, power);
+    return Rational(cpp_int(digits * power));
+}
+
 Rational rational_from_double(double x) {
     // The simplest fraction that is the double to 12 significant digits (0.5 -> 1/2,
-    // 0.333333333333 -> 1/3); otherwise the decimal itself.
+    // 0.333333333333 -> 1/3); otherwise the decimal itself, to 12 significant digits, read
+    // exactly (not through the grammar, which reads no exponents).
     long long h0 = 0, h1 = 1, k0 = 1, k1 = 0;
     double v = x;
     for (int i = 0; i < 40; ++i) {
@@ -100,8 +149,8 @@ Rational rational_from_double(double x) {
         v = 1.0 / frac;
     }
     char buf[64];
-    std::snprintf(buf, sizeof buf, "%.12g", x);
-    return grammar::parse_number(buf);
+    std::snprintf(buf, sizeof buf, "%.11e", x);
+    return *exponent_decimal(buf);
 }
 
 std::string scaled(const Prepared& prepared, const Rational& factor) {
@@ -109,9 +158,38 @@ std::string scaled(const Prepared& prepared, const Rational& factor) {
         throw Error(ErrorKind::argument, "the factor must be above zero (to exchange the sides, reverse the reaction)");
     const Prepared* p = &prepared;
     std::vector<Rational> l, r;
-    for (const auto& t : p->ast.reactants) l.push_back(t.coefficient * factor);
-    for (const auto& t : p->ast.products) r.push_back(t.coefficient * factor);
+    // The text must read back as a reaction: no number in it longer than the grammar reads.
+    auto times = [&](const grammar::Term& t) {
+        Rational c = t.coefficient * factor;
+        using boost::multiprecision::denominator;
+        using boost::multiprecision::numerator;
+        for (const auto& part : {numerator(c), denominator(c)})
+            if (part.str().size() > grammar::max_number_digits)
+                throw Error(ErrorKind::argument,
+                            "scaled by " + detail::rational_text(factor) + ", the coefficient of " + t.species.written +
+                                " would be " + detail::rational_text(c) + ", a number longer than the " +
+                                std::to_string(grammar::max_number_digits) +
+                                " digits a reaction's numbers may have (grammar/SYNTAX.md)");
+        return c;
+    };
+    for (const auto& t : p->ast.reactants) l.push_back(times(t));
+    for (const auto& t : p->ast.products) r.push_back(times(t));
     return detail::reaction_text(p->ast, l, r);
+}
+
+/// A value derived from the data and the arguments: itself when finite, else Error(argument)
+/// naming the quantity (finite or an error, everywhere: issue 10).
+double finite_value(double v, const char* quantity, double T, const char* unit) {
+    if (std::isfinite(v)) return v;
+    throw Error(ErrorKind::argument, std::string(quantity) + " at " + number_words(T) + " K is not a finite number (" +
+                                         number_words(v) + (*unit ? " " : "") + unit +
+                                         "): the data's values combine beyond the largest number a double holds "
+                                         "(about 1.8e+308)");
+}
+
+/// ΔrU° = ΔrH° − Δn(gas)·R·T in J/mol of extent at T.
+double internal_energy_J_per_mol(const Prepared& p, double T) {
+    return finite_value(p.dH(T) - p.dn_gas(T) * detail::R * T, "ΔrU°", T, "J/mol");
 }
 
 HeatKind kind_of(double dH_kJ, double tolerance_kJ) {
@@ -174,7 +252,7 @@ double formation_enthalpy(const Substance& s, double T) {
         el.records = {e};
         h -= -s.composition.charge * el.H(T);
     }
-    return h;
+    return finite_value(h, "ΔfH°", T, "J/mol");
 }
 
 }  // namespace
@@ -189,8 +267,7 @@ double Engine::du(std::string_view reaction, const Conditions& at, std::string_v
     check_temperature(at.temperature_K);
     const auto p = impl_->prepare(reaction, at.table);
     const double T = at.temperature_K;
-    const double dU = p->dH(T) - p->dn_gas(T) * detail::R * T;
-    return per_extent_in_unit(*p, dU, unit, per, at.table, T);
+    return per_extent_in_unit(*p, internal_energy_J_per_mol(*p, T), unit, per, at.table, T);
 }
 
 double Engine::ds(std::string_view reaction, const Conditions& at, std::string_view unit) {
@@ -201,7 +278,13 @@ double Engine::ds(std::string_view reaction, const Conditions& at, std::string_v
 
 namespace {
 /// ΔrG° in J/mol of extent at T.
-double gibbs_J_per_mol(const Prepared& p, double T) { return p.dH(T) - T * p.dS(T); }
+double gibbs_J_per_mol(const Prepared& p, double T) {
+    return finite_value(p.dH(T) - T * p.dS(T), "ΔrG°", T, "J/mol");
+}
+/// log10 K = −ΔrG°/(R·T·ln 10).
+double log10_K(const Prepared& p, double T) {
+    return finite_value(-gibbs_J_per_mol(p, T) / (detail::R * T * std::log(10.0)), "log K", T, "");
+}
 }  // namespace
 
 double Engine::dg(std::string_view reaction, const Conditions& at, std::string_view unit) {
@@ -220,7 +303,7 @@ double Engine::logk(std::string_view reaction, const Conditions& at) {
     const double T = at.temperature_K;
     check_temperature(T);
     const auto p = impl_->prepare(reaction, at.table);
-    return -gibbs_J_per_mol(*p, T) / (detail::R * T * std::log(10.0));
+    return log10_K(*p, T);
 }
 
 double Engine::load(std::string_view reaction, double quantity, std::string_view quantity_unit,
@@ -439,8 +522,12 @@ double Engine::eq_conversion(std::string_view reaction, const std::vector<FeedIt
         xi = hi;
     } else {
         std::uintmax_t iterations = 400;
-        const auto root = boost::math::tools::toms748_solve(f, a, b, f(a), f(b),
-                                                            boost::math::tools::eps_tolerance<double>(52), iterations);
+        // To double precision, or to 1e-290 of the extent's range: an extent that small (a pressure
+        // near the smallest double) lies among the denormal numbers, where relative precision
+        // cannot be had; the conversion is then 0 to any precision that matters.
+        boost::math::tools::eps_tolerance<double> relative(52);
+        const auto tolerance = [&](double x, double y) { return relative(x, y) || std::fabs(y - x) <= width * 1e-290; };
+        const auto root = boost::math::tools::toms748_solve(f, a, b, f(a), f(b), tolerance, iterations);
         if (iterations >= 400) throw Error(ErrorKind::internal, "the equilibrium extent did not converge");
         xi = 0.5 * (root.first + root.second);
     }
@@ -605,13 +692,15 @@ double Engine::adiabatic_temperature(std::string_view reaction, const std::vecto
         out[g] = std::max(0.0, sp[g].in_mol + sp[g].nu * xi);
         if (sp[g].in_mol != 0) H_in += sp[g].in_mol * sp[g].substance.H(T_feed);
     }
+    finite_value(H_in, "the feed's enthalpy Σ n·H°", T_feed, "J per mol of reaction");
     // f(T) = H_out(T) − H_in: rises with T (Cp > 0; a phase change without a written phase is a
     // step up). Throws Error(out_of_range) where a species has no data.
     const auto f = [&](double T) {
         double h = 0;
         for (std::size_t g = 0; g < sp.size(); ++g)
             if (out[g] != 0) h += out[g] * sp[g].substance.H(T);
-        return h - H_in;
+        // Not finite (amounts near the largest double): no root finder can bracket it.
+        return finite_value(h - H_in, "the outlet's enthalpy Σ n·H° minus the feed's", T, "J per mol of reaction");
     };
     const double f_feed = f(T_feed);
     if (f_feed == 0) return T_feed;
@@ -683,8 +772,19 @@ HeatKind Engine::kind(std::string_view reaction, const Conditions& at, double to
 
 std::string Engine::check(std::string_view reaction, const Conditions& at) noexcept {
     try {
-        check_temperature(at.temperature_K);
-        impl_->prepare(reaction, at.table)->dH(at.temperature_K);
+        const double T = at.temperature_K;
+        check_temperature(T);
+        const auto p = impl_->prepare(reaction, at.table);
+        p->dH(T);
+        internal_energy_J_per_mol(*p, T);
+        // What RXNDS, RXNDG and RXNLOGK would throw for values that are not finite numbers is said
+        // here too; data without entropies (a table row without S, a record of one temperature)
+        // are those functions' own diagnosis, not a problem of the reaction.
+        try {
+            log10_K(*p, T);
+        } catch (const Error& e) {
+            if (e.kind() != ErrorKind::unknown_species && e.kind() != ErrorKind::out_of_range) throw;
+        }
         return "ok";
     } catch (const std::exception& e) {
         return e.what();
@@ -715,7 +815,11 @@ std::string Engine::scale(std::string_view reaction, std::string_view factor) {
     try {
         f = grammar::parse_number(factor);
     } catch (const grammar::ParseError& e) {
-        throw Error(ErrorKind::argument, std::string("the factor: ") + e.what());
+        // A number with an exponent ("1e-7") is a number too, though no reaction writes one.
+        if (auto exact = exponent_decimal(factor))
+            f = *exact;
+        else
+            throw Error(ErrorKind::argument, std::string("the factor: ") + e.what());
     }
     return scaled(*impl_->prepare(reaction, nullptr), f);
 }
@@ -780,7 +884,7 @@ ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {
     const double dH = p->dH(T);
     r.dH_kJ_per_mol = dH / 1000.0;
     r.dn_gas = p->dn_gas(T);
-    r.dU_kJ_per_mol = (dH - r.dn_gas * detail::R * T) / 1000.0;
+    r.dU_kJ_per_mol = internal_energy_J_per_mol(*p, T) / 1000.0;
     r.canonical = p->canonical(T);
     r.kind = kind_of(r.dH_kJ_per_mol, default_tolerance_kJ_per_mol);
     std::set<std::string> seen;
@@ -806,7 +910,7 @@ double Engine::species_h(std::string_view species, const Conditions& at, double 
     check_temperature(T);
     check_temperature(Tref);
     const Substance s = resolve_one(species, at.table);
-    return (s.H(T) - s.H(Tref)) / 1000.0;
+    return finite_value(s.H(T) - s.H(Tref), "H°(T) − H°(Tref)", T, "J/mol") / 1000.0;
 }
 
 double Engine::species_s(std::string_view species, const Conditions& at) {

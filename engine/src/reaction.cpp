@@ -7,6 +7,7 @@
 #include "units.hpp"
 #include "usertable.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <list>
@@ -32,12 +33,28 @@ std::string side_text(const std::vector<grammar::Term>& terms, const std::vector
     return out;
 }
 
+/// An element or charge total exactly, so that two unequal totals never read alike: a decimal
+/// when it is one ("0.9999999", "1.5"), else a fraction ("7/3").
 std::string atom_count_text(const Rational& r) {
+    using boost::multiprecision::cpp_int;
     using boost::multiprecision::denominator;
-    if (denominator(r) == 1) return rational_text(r);
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.6g", to_double(r));
-    return buf;
+    using boost::multiprecision::numerator;
+    const cpp_int den = denominator(r);
+    if (den == 1) return rational_text(r);
+    // Decimal digits needed: den = 2^a·5^b gives max(a, b); any other factor: not a decimal.
+    cpp_int rest = den;
+    unsigned twos = 0, fives = 0;
+    while (rest % 2 == 0) rest /= 2, ++twos;
+    while (rest % 5 == 0) rest /= 5, ++fives;
+    if (rest != 1) return rational_text(r);
+    const unsigned digits = std::max(twos, fives);
+    cpp_int scaled = numerator(r) * boost::multiprecision::pow(cpp_int(10), digits) / den;
+    const bool negative = scaled < 0;
+    if (negative) scaled = -scaled;
+    std::string text = scaled.str();
+    if (text.size() <= digits) text.insert(0, digits + 1 - text.size(), '0');
+    text.insert(text.size() - digits, ".");
+    return (negative ? "-" : "") + text;
 }
 
 void check_balance(Prepared& p) {
@@ -101,6 +118,7 @@ double Prepared::dH(double T) const {
     require_thermo();
     double h = 0;
     for (std::size_t i = 0; i < terms.size(); ++i) h += to_double(nu[i]) * substances[i].H(T);
+    if (!std::isfinite(h)) not_finite_sum(*this, "ΔrH°", "J/mol", T, &Substance::H);
     return h;
 }
 
@@ -108,7 +126,25 @@ double Prepared::dS(double T) const {
     require_thermo();
     double s = 0;
     for (std::size_t i = 0; i < terms.size(); ++i) s += to_double(nu[i]) * substances[i].S(T);
+    if (!std::isfinite(s)) not_finite_sum(*this, "ΔrS°", "J/(mol·K)", T, &Substance::S);
     return s;
+}
+
+void not_finite_sum(const Prepared& p, const char* quantity, const char* unit, double T,
+                    double (Substance::*value)(double) const) {
+    // The term of largest magnitude, to say where the size comes from.
+    std::size_t big = 0;
+    double big_abs = -1;
+    for (std::size_t i = 0; i < p.terms.size(); ++i) {
+        const double a = std::fabs(to_double(p.nu[i]) * (p.substances[i].*value)(T));
+        if (!(a <= big_abs)) big = i, big_abs = a;  // NaN or larger
+    }
+    const Rational n = p.nu[big] < 0 ? Rational(-p.nu[big]) : p.nu[big];
+    throw Error(ErrorKind::argument,
+                std::string(quantity) + " at " + number_words(T) + " K is not a finite number: its terms, such as " +
+                    rational_text(n) + " × " + number_words((p.substances[big].*value)(T)) + " " + unit + " for " +
+                    p.substances[big].display_at(T) +
+                    ", add up beyond the largest number a double holds (about 1.8e+308)");
 }
 
 double Prepared::dn_gas(double T) const {

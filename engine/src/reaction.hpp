@@ -42,6 +42,11 @@ struct Prepared {
                              std::size_t* term_index) const;
 };
 
+/// Throws Error(argument) for a sum Σ νᵢ·value(T) over the reaction's species that is not finite,
+/// naming the quantity and its largest term.
+[[noreturn]] void not_finite_sum(const Prepared& p, const char* quantity, const char* unit, double T,
+                                 double (Substance::*value)(double) const);
+
 /// Prepared reactions by (table fingerprint, exact text), least recently used first out. Owned
 /// by an Engine (Engine::Impl); thread-safe. A fingerprint match is confirmed on the table's
 /// content before a hit is used, so two tables can never share a result.

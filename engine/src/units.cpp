@@ -5,8 +5,10 @@
 #include "rxnheat/rxnheat.hpp"
 
 #include <array>
+#include <cfloat>
 #include <charconv>
 #include <cmath>
+#include <cstdlib>
 #include <string>
 #include <system_error>
 
@@ -104,8 +106,18 @@ bool equal_ignoring_ascii_case(std::string_view a, std::string_view b) noexcept 
     return true;
 }
 
+bool underflows(std::string_view number) {
+    // from_chars says "out of range" both ways; strtod tells them apart (HUGE_VAL or near 0).
+    const std::string copy(number);
+    return std::fabs(std::strtod(copy.c_str(), nullptr)) < 1.0;
+}
+
 void require_finite(double v, const char* what) {
-    if (!std::isfinite(v)) throw Error(ErrorKind::argument, std::string(what) + " is not a finite number");
+    if (!std::isfinite(v))
+        throw Error(ErrorKind::argument, std::string(what) + " is " + number_words(v) + ", not a finite number" +
+                                             (std::isinf(v) ? ": the numbers combine beyond the largest a double "
+                                                              "holds (about 1.8e+308)"
+                                                            : ""));
 }
 
 double checked_molar_mass(std::optional<double> m) {
@@ -618,7 +630,12 @@ double parse_temperature(std::string_view text) {
     if (starts_numeric) {
         const auto r = std::from_chars(rest.data(), rest.data() + rest.size(), x, std::chars_format::general);
         if (r.ec == std::errc::result_out_of_range)
-            throw Error(ErrorKind::argument, "the temperature " + quote(text) + " is not a finite number");
+            throw Error(ErrorKind::argument,
+                        "the temperature " + quote(text) +
+                            (detail::underflows(rest.substr(0, static_cast<std::size_t>(r.ptr - rest.data())))
+                                 ? " holds a number that underflows: it is closer to zero than a double can "
+                                   "hold (about 2.2e-308)"
+                                 : " is not a finite number"));
         if (r.ec != std::errc()) starts_numeric = false;
         end = r.ptr;
     }
@@ -656,7 +673,16 @@ double parse_temperature(std::string_view text) {
     if (T < 0)
         throw Error(ErrorKind::argument, "the temperature " + quote(text) + " is below absolute zero (" +
                                              detail::format_number(T) + " K)");
-    return T + 0.0;  // -0 -> +0
+    // 0 K and the denormal numbers just above it are no temperature any function can use (they
+    // divide, or lose their digits): said here, where the text is read, not later in a data error.
+    if (T == 0)
+        throw Error(ErrorKind::argument, "the temperature " + quote(text) +
+                                             " is absolute zero (0 K); give a temperature above it");
+    if (T < DBL_MIN)
+        throw Error(ErrorKind::argument, "the temperature " + quote(text) + " is " + number_words(T) +
+                                             " K, too close to 0 K to compute with (a denormal number, below "
+                                             "2.2e-308)");
+    return T;
 }
 
 }  // namespace rxnheat
@@ -715,7 +741,12 @@ double parse_pressure(std::string_view text) {
     const auto r = numeric ? std::from_chars(rest.data(), rest.data() + rest.size(), x, std::chars_format::general)
                            : std::from_chars_result{rest.data(), std::errc::invalid_argument};
     if (r.ec == std::errc::result_out_of_range)
-        throw Error(ErrorKind::argument, "the pressure " + quote(text) + " is not a finite number");
+        throw Error(ErrorKind::argument,
+                    "the pressure " + quote(text) +
+                        (underflows(rest.substr(0, static_cast<std::size_t>(r.ptr - rest.data())))
+                             ? " holds a number that underflows: it is closer to zero than a double can hold "
+                               "(about 2.2e-308)"
+                             : " is not a finite number"));
     if (r.ec != std::errc())
         throw Error(ErrorKind::argument,
                     "the pressure " + quote(text) + " does not start with a number; give " + pressure_forms);

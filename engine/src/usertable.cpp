@@ -5,7 +5,9 @@
 
 #include "rxnheat/csv.hpp"
 
+#include <algorithm>
 #include <cerrno>
+#include <cfloat>
 #include <charconv>
 #include <cmath>
 #include <cstdio>
@@ -35,6 +37,67 @@ double number_cell(const std::string& text, std::size_t row, const std::string& 
 
 const char* const known_columns[] = {"formula", "phase", "dHf", "S", "cp", "a", "b", "c", "d", "e",
                                      "tmin", "tmax", "name", "source"};
+
+/// The largest magnitude of each function over the row's range, from the terms its evaluation
+/// sums (detail::shomate_*_terms, the constant-cp forms): every term's magnitude is monotone in T
+/// for T > 0, so over tmin..tmax it is largest at one end, and rounding is monotone, so a finite
+/// bound means every evaluation in the range is finite.
+struct RowBounds {
+    double H = 0, S = 0, Cp = 0;  ///< J/mol, J/(mol·K), J/(mol·K)
+};
+template <class Terms>
+double bound_of(Terms terms_at, double lo, double hi) {
+    const auto a = terms_at(lo), b = terms_at(hi);
+    double sum = 0;
+    for (std::size_t i = 0; i < a.size(); ++i) sum += std::max(std::fabs(a[i]), std::fabs(b[i]));
+    return sum;
+}
+RowBounds bounds_of(const UserSpecies& u) {
+    RowBounds r;
+    const double S298 = u.S298 ? std::fabs(*u.S298) : 0.0;
+    switch (u.cp_form) {
+    case UserSpecies::CpForm::none:
+        r.H = std::fabs(u.dHf);
+        r.S = S298;
+        break;
+    case UserSpecies::CpForm::constant:
+        r.Cp = std::fabs(u.cp);
+        r.H = std::fabs(u.dHf) + r.Cp * std::max(std::fabs(u.tmin - T_ref), std::fabs(u.tmax - T_ref));
+        r.S = S298 + r.Cp * std::max(std::fabs(std::log(u.tmin / T_ref)), std::fabs(std::log(u.tmax / T_ref)));
+        break;
+    case UserSpecies::CpForm::shomate: {
+        // The ends as check_range() lets them be reached (1e-6 K of rounding either side).
+        const double lo = (u.tmin - std::min(1e-6, u.tmin / 2)) / 1000.0, hi = (u.tmax + 1e-6) / 1000.0;
+        const double ref = T_ref / 1000.0;
+        auto h = [&u](double t) { return detail::shomate_h_terms(u, t); };
+        auto s = [&u](double t) { return detail::shomate_s_terms(u, t); };
+        auto cp = [&u](double t) { return detail::shomate_cp_terms(u, t); };
+        r.Cp = bound_of(cp, lo, hi);
+        r.H = std::fabs(u.dHf) + 1000.0 * (bound_of(h, lo, hi) + bound_of(h, ref, ref));
+        r.S = S298 + bound_of(s, lo, hi) + bound_of(s, ref, ref);
+        break;
+    }
+    }
+    return r;
+}
+
+/// Every value the row can give within its range is a finite number, or the table is refused
+/// naming the row and the cells (issue 10: finite or an error, everywhere).
+void check_row_finite(const UserSpecies& u) {
+    const RowBounds b = bounds_of(u);
+    if (std::isfinite(b.H) && std::isfinite(b.S) && std::isfinite(b.Cp)) return;
+    const char* what = !std::isfinite(b.Cp) ? "Cp°" : !std::isfinite(b.H) ? "H°" : "S°";
+    const std::string range = u.range_text();
+    const std::string why = std::string(what) + " is not finite somewhere in " + range +
+                            " (it exceeds the largest number a double holds, about 1.8e+308)";
+    switch (u.cp_form) {
+    case UserSpecies::CpForm::constant:
+        table_error(u.row, "cp", "with cp = " + number_words(u.cp) + " J/(mol·K), " + why);
+    case UserSpecies::CpForm::shomate:
+        table_error(u.row, "", "the Shomate coefficients a..e give a value that is not finite: " + why);
+    default: table_error(u.row, "dHf", why);
+    }
+}
 
 
 }  // namespace
@@ -111,6 +174,9 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
         else if (phase == "aq") u->phase = 'a';
         else table_error(row, "phase", "'" + phase + "' is not a phase; use g, l, s, cr or aq");
         u->dHf = 1000.0 * number_cell(cell(r, "dHf"), row, "dHf");
+        if (!std::isfinite(u->dHf))
+            table_error(row, "dHf", "'" + cell(r, "dHf") + "' kJ/mol is not finite in J/mol (it exceeds the largest "
+                                    "number a double holds, about 1.8e+308 J/mol)");
         if (auto s = cell(r, "S"); !s.empty()) u->S298 = number_cell(s, row, "S");
         const std::string cp = cell(r, "cp");
         bool any_shomate = false;
@@ -131,11 +197,14 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
         if (auto t = cell(r, "tmin"); !t.empty()) u->tmin = number_cell(t, row, "tmin");
         if (auto t = cell(r, "tmax"); !t.empty()) u->tmax = number_cell(t, row, "tmax");
         if (u->tmin <= 0) table_error(row, "tmin", "must be above 0 K");
+        if (u->tmin < DBL_MIN)
+            table_error(row, "tmin", number_words(u->tmin) + " K is too close to 0 K to compute with (a denormal number)");
         if (u->tmax < u->tmin) table_error(row, "tmax", "is below tmin");
         if (u->tmin > T_ref || u->tmax < T_ref)
             table_error(row, "tmin", "the range must include 298.15 K (dHf is given there)");
         if (u->cp_form == UserSpecies::CpForm::none && (u->tmin < T_ref || u->tmax > T_ref))
             table_error(row, "cp", "a range beyond 298.15 K needs cp or the Shomate a..e");
+        check_row_finite(*u);
         u->name = cell(r, "name");
         u->source = cell(r, "source");
         impl->rows.push_back(std::move(u));
@@ -191,24 +260,44 @@ void check_range(const UserSpecies& u, double T, const std::string& shown) {
         throw Error(ErrorKind::out_of_range, shown + ": the species table row " + std::to_string(u.row) + " covers " +
                                                  u.range_text() + "; " + number_words(T) + " K is outside it");
 }
-// Shomate integrals (NIST form, t = T/1000): ∫Cp dT in kJ/mol and ∫Cp/T dT in J/(mol·K).
-double shomate_h(const UserSpecies& u, double T) {
-    const double t = T / 1000.0;
-    return u.A * t + u.B * t * t / 2 + u.C * t * t * t / 3 + u.D * t * t * t * t / 4 - u.E / t;
+template <class Terms>
+double sum_of(const Terms& terms) {
+    double sum = 0;
+    for (double x : terms) sum += x;
+    return sum;
 }
-double shomate_s(const UserSpecies& u, double T) {
-    const double t = T / 1000.0;
-    return u.A * std::log(t) + u.B * t + u.C * t * t / 2 + u.D * t * t * t / 3 - u.E / (2 * t * t);
+double shomate_h(const UserSpecies& u, double T) { return sum_of(shomate_h_terms(u, T / 1000.0)); }
+double shomate_s(const UserSpecies& u, double T) { return sum_of(shomate_s_terms(u, T / 1000.0)); }
+
+/// A value of the row at T: finite within the range (the table was checked when it was read);
+/// within the 1e-6 K that check_range() allows below a tiny tmin it may not be, and is said.
+double checked(double v, const UserSpecies& u, const char* what, double T, const std::string& shown) {
+    if (std::isfinite(v)) return v;
+    throw Error(ErrorKind::argument, shown + ": the species table row " + std::to_string(u.row) + " gives " + what +
+                                         " = " + number_words(v) + " at " + number_words(T) + " K, not a finite number");
 }
 }  // namespace
+
+// Shomate integrals (NIST form, t = T/1000): ∫Cp dT in kJ/mol and ∫Cp/T dT in J/(mol·K), and
+// Cp itself, as the terms that are summed.
+std::array<double, 5> shomate_h_terms(const UserSpecies& u, double t) {
+    return {u.A * t, u.B * t * t / 2, u.C * t * t * t / 3, u.D * t * t * t * t / 4, -u.E / t};
+}
+std::array<double, 5> shomate_s_terms(const UserSpecies& u, double t) {
+    return {u.A * std::log(t), u.B * t, u.C * t * t / 2, u.D * t * t * t / 3, -u.E / (2 * t * t)};
+}
+std::array<double, 5> shomate_cp_terms(const UserSpecies& u, double t) {
+    return {u.A, u.B * t, u.C * t * t, u.D * t * t * t, u.E / (t * t)};
+}
 
 std::string UserSpecies::range_text() const { return number_words(tmin) + "–" + number_words(tmax) + " K"; }
 
 double UserSpecies::H(double T, const std::string& shown) const {
     check_range(*this, T, shown);
     switch (cp_form) {
-    case CpForm::constant: return dHf + cp * (T - T_ref);
-    case CpForm::shomate: return dHf + 1000.0 * (shomate_h(*this, T) - shomate_h(*this, T_ref));
+    case CpForm::constant: return checked(dHf + cp * (T - T_ref), *this, "H°", T, shown);
+    case CpForm::shomate:
+        return checked(dHf + 1000.0 * (shomate_h(*this, T) - shomate_h(*this, T_ref)), *this, "H°", T, shown);
     default: return dHf;
     }
 }
@@ -217,18 +306,17 @@ double UserSpecies::S(double T, const std::string& shown) const {
     check_range(*this, T, shown);
     if (!S298) throw Error(ErrorKind::unknown_species, shown + ": the species table row " + std::to_string(row) + " gives no S");
     switch (cp_form) {
-    case CpForm::constant: return *S298 + cp * std::log(T / T_ref);
-    case CpForm::shomate: return *S298 + shomate_s(*this, T) - shomate_s(*this, T_ref);
+    case CpForm::constant: return checked(*S298 + cp * std::log(T / T_ref), *this, "S°", T, shown);
+    case CpForm::shomate: return checked(*S298 + shomate_s(*this, T) - shomate_s(*this, T_ref), *this, "S°", T, shown);
     default: return *S298;
     }
 }
 
 double UserSpecies::Cp(double T, const std::string& shown) const {
     check_range(*this, T, shown);
-    const double t = T / 1000.0;
     switch (cp_form) {
     case CpForm::constant: return cp;
-    case CpForm::shomate: return A + B * t + C * t * t + D * t * t * t + E / (t * t);
+    case CpForm::shomate: return checked(sum_of(shomate_cp_terms(*this, T / 1000.0)), *this, "Cp°", T, shown);
     default: throw Error(ErrorKind::unknown_species, shown + ": the species table row " + std::to_string(row) + " gives no cp");
     }
 }

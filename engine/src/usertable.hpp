@@ -4,6 +4,7 @@
 #include "grammar/parse.hpp"
 #include "rxnheat/rxnheat.hpp"
 
+#include <array>
 #include <cstdint>
 #include <memory>
 #include <optional>
@@ -31,6 +32,12 @@ struct UserSpecies {
     double Cp(double T, const std::string& shown) const;  ///< J/(mol·K)
     std::string range_text() const;
 };
+
+/// The terms of the Shomate forms (NIST, t = T/1000) that UserSpecies sums: ∫Cp dT in kJ/mol,
+/// ∫Cp/T dT and Cp in J/(mol·K). Also bounded when a table is read (every value finite).
+std::array<double, 5> shomate_h_terms(const UserSpecies& u, double t);
+std::array<double, 5> shomate_s_terms(const UserSpecies& u, double t);
+std::array<double, 5> shomate_cp_terms(const UserSpecies& u, double t);
 
 /// The row for a parsed species, or nullptr: formula (or name) and phase must match; a species
 /// written without a phase matches when the table has exactly one row for it.

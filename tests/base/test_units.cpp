@@ -476,7 +476,6 @@ TEST_CASE("parse_temperature: every form, checked against GNU units tempC/tempF/
         {"6.2315e2 K", "623.15 K"},
         {"6.2315E+2", "623.15 K"},
         {".5e3", "500 K"},
-        {"0", "0 K"},
         {"350 C", "tempC(350)"},
         {"350C", "tempC(350)"},
         {"350 \xC2\xB0" "C", "tempC(350)"},         // °C
@@ -487,7 +486,6 @@ TEST_CASE("parse_temperature: every form, checked against GNU units tempC/tempF/
         {"350 degC", "tempC(350)"},
         {"-40 C", "tempC(-40)"},
         {"\xE2\x88\x92" "40 \xC2\xB0" "C", "tempC(-40)"},  // Unicode minus
-        {"-273.15 C", "tempC(-273.15)"},
         {"25.5\xC2\xA0\xC2\xB0" "C", "tempC(25.5)"},  // no-break space
         {"662 F", "tempF(662)"},
         {"662F", "tempF(662)"},
@@ -496,7 +494,6 @@ TEST_CASE("parse_temperature: every form, checked against GNU units tempC/tempF/
         {"662 \xE2\x84\x89", "tempF(662)"},         // ℉
         {"662 degF", "tempF(662)"},
         {"-40 F", "tempF(-40)"},
-        {"-459.67 F", "tempF(-459.67)"},
         {"60 F", "tempF(60)"},
         {"1100 R", "1100 degR"},
         {"1100R", "1100 degR"},
@@ -504,7 +501,6 @@ TEST_CASE("parse_temperature: every form, checked against GNU units tempC/tempF/
         {"1100 \xC2\xBAR", "1100 degR"},
         {"1100 degR", "1100 degR"},
         {"1.1e3 R", "1100 degR"},
-        {"0 R", "0 degR"},
     };
     for (const T& c : cases) {
         INFO("text '" << c.text << "' = " << c.gnu);
@@ -519,7 +515,13 @@ TEST_CASE("parse_temperature: every form, checked against GNU units tempC/tempF/
     CHECK(rxnheat::parse_temperature("350 C") == 350 + 273.15);
     CHECK(rxnheat::parse_temperature("662 F") == Approx((662 + 459.67) * 5 / 9).epsilon(1e-15));
     CHECK(rxnheat::parse_temperature("1100 R") == Approx(1100.0 * 5 / 9).epsilon(1e-15));
-    CHECK_FALSE(std::signbit(rxnheat::parse_temperature("-0")));
+    CHECK(rxnheat::parse_temperature("-0 C") == 273.15);
+    // Absolute zero itself is refused when read (issue 10, item 7): no function can use it.
+    for (const char* t : {"0", "-0", "0 K", "-273.15 C", "-459.67 F", "0 R"}) {
+        INFO(t);
+        const std::string msg = error_of([&] { rxnheat::parse_temperature(t); }, ErrorKind::argument);
+        CHECK(msg.find("absolute zero") != std::string::npos);
+    }
 }
 
 TEST_CASE("parse_temperature errors", "[units]") {

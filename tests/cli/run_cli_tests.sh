@@ -247,6 +247,23 @@ expect_rc "scale negative factor" 2
 run scale "$METHANE"
 expect_rc "scale missing FACTOR" 2
 expect_err_re "scale missing FACTOR: names it" 'missing FACTOR'
+# Issue 10: a factor with an exponent is read exactly; one whose coefficients would not read back
+# (over 12 digits, grammar/SYNTAX.md) is an error in words.
+run scale "H2 + 1/2 O2 -> H2O" 1e-7
+expect_out "scale 1e-7" "1/10000000 H2 + 1/20000000 O2 -> 1/10000000 H2O"
+run scale "H2 + 1/2 O2 -> H2O" 1e13
+expect_rc "scale 1e13" 2
+expect_err_re "scale 1e13: says the digits" '12 digits'
+# Issue 10: temperature text at 0 K or underflowing is refused when read, in words.
+run dh "$METHANE" -T "0 K"
+expect_rc "dh at 0 K" 2
+expect_err_re "dh at 0 K: absolute zero" 'absolute zero'
+run dh "$METHANE" -T 1e-400
+expect_rc "dh at 1e-400 K" 2
+expect_err_re "dh at 1e-400 K: underflows" 'underflows'
+# Issue 10: H2O0.9999999 is not water; the totals are shown apart.
+run check "H2O0.9999999 -> H2O"
+expect_out "check H2O0.9999999" "the reaction is not balanced: O 0.9999999 on the left, 1 on the right"
 
 # ==== species =============================================================================================
 run species "H2O(l)" --json

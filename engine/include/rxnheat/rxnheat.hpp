@@ -78,7 +78,9 @@ RXNHEAT_API std::string exact_number(double x);
 RXNHEAT_API std::string number_words(double x);
 
 /// Temperature text -> kelvin: "350 C", "350 °C", "662 F", "1100 R", "623.15 K", or a bare
-/// number (kelvin). Throws Error(unit/argument) for anything else or below 0 K.
+/// number (kelvin). Throws Error(unit/argument) for anything else, for 0 K and below, for a
+/// kelvin value too close to 0 to compute with (a denormal number) and for a number that
+/// overflows or underflows (each said in words).
 RXNHEAT_API double parse_temperature(std::string_view text);
 
 /// A user species table (engine/DATA.md, User tables), built from rows of text cells; row 0 names the columns.
@@ -221,14 +223,19 @@ public:
     /// Exothermic, endothermic or thermoneutral (|ΔrH°| <= tolerance, kJ/mol).
     HeatKind kind(std::string_view reaction, const Conditions& at = {},
                   double tolerance_kJ = default_tolerance_kJ_per_mol);
-    /// "ok", or the first problem in words (the same diagnosis dh() would throw). Never throws.
+    /// "ok", or the first problem in words: what dh(), du(), kind() and report() would throw, and
+    /// what ds(), dg() and logk() would throw for a value that is not a finite number (their
+    /// data lacking entropies is their own diagnosis, not said here). Never throws.
     std::string check(std::string_view reaction, const Conditions& at = {}) noexcept;
     /// The reaction with the smallest whole-number coefficients (exact rational null space).
     /// Only the table of `at` is used (it may name species).
     std::string balance(std::string_view reaction, const Conditions& at = {});
     /// Products and reactants exchanged.
     std::string reverse(std::string_view reaction);
-    /// Every coefficient times `factor` ("2", "0.5", "1/2", "½"); exact fractions kept.
+    /// Every coefficient times `factor` ("2", "0.5", "1/2", "½", "1e-7"); exact fractions kept.
+    /// A double factor is taken as the simplest fraction within 1e-12 of it, else its decimal
+    /// to 12 significant digits. Throws Error(argument) when a scaled coefficient would have more
+    /// digits than a reaction's numbers may (12), so that the text always reads back.
     std::string scale(std::string_view reaction, std::string_view factor);
     std::string scale(std::string_view reaction, double factor);
     /// Equilibrium conversion (0–1) of the reactant `key` (empty: the first reactant) for this one
