@@ -911,9 +911,13 @@ Result evaluate_kept(const FunctionSpec& f, const std::vector<Arg>& args, const 
     out.rows = rows;
     out.cols = cols;
     out.cells.resize(rows * cols);
+    // One Bound for every element: only the spreading arguments' values and the conditions
+    // change between elements, so copying the whole of `base` (its vectors and strings) for each
+    // of 20,000 elements was allocation for nothing (tests/bench/bench_addin_array.cpp).
+    Bound b = base;
     for (std::size_t r = 0; r < rows; ++r)
         for (std::size_t c = 0; c < cols; ++c) {
-            Bound b = base;
+            b.at = base.at;
             Outcome& o = out.cells[r * cols + c];
             bool blank = false;
             try {
@@ -922,12 +926,15 @@ Result evaluate_kept(const FunctionSpec& f, const std::vector<Arg>& args, const 
                     const Arg& arg = args[i];
                     const std::size_t at = table_form ? (k == 0 ? r : c) : r * cols + c;
                     const Cell& cell = arg.cells[at];
+                    Bound::Value& v = b.values[i];
+                    v.given = v.is_text = false;  // as a fresh Value, its text's buffer kept
+                    v.number = 0;
+                    v.text.clear();
                     if (blank_cell(cell, f.args[i], rules)) {
                         blank = true;  // a blank cell of a range stays blank in the result
                         break;
                     }
-                    b.values[i] = {};
-                    read_cell(cell, f.args[i], rules, b.values[i]);
+                    read_cell(cell, f.args[i], rules, v);
                 }
             } catch (const Error& e) {
                 o = Outcome::failed(e);
