@@ -625,7 +625,7 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
     if (c.kind == Cell::Kind::text) {
         const std::string_view t = trim(c.text);
         detail::check_input_text(t, quoted(a.name).c_str());  // the one input-length limit
-        out.text = std::string(t);
+        out.text.assign(t.data(), t.size());  // keeps the buffer of a Value used again (arrays)
     }
     const bool number = c.kind == Cell::Kind::number;
     if (number && !std::isfinite(c.number)) bad(a, "is not a finite number");
