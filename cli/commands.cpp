@@ -316,7 +316,8 @@ const CommandEntry entries[] = {
       "add-in, cli: this command line, c: the C interface).",
       "{\"functions\": [{\"calc_name\", \"cli_command\" (null when none), \"idl_method\", \"summary\", "
       "\"layers\": [\"calc\", \"cli\", \"c\"], \"arguments\": [{\"name\", \"kind\", \"required\", \"default\" "
-      "(null when none)}]}]}",
+      "(null when none), \"option\" (the command's option for it, e.g. \"--temperature\"; null for a "
+      "positional), \"repeated\" (the option is given once per item)}]}]}",
       "rxnheat functions --json\n"}},
 };
 
@@ -566,14 +567,27 @@ int run_functions(Output& out) {
         std::string layers = "[";
         for (const auto& l : layer_names(f)) layers += (layers.size() > 1 ? "," : "") + json_string(l);
         j.raw("layers", layers + "]");
+        // How the command line takes each argument (the options its command was set up with), so
+        // that another host can put the same call to this one (tests/addin/test_hostile.py).
+        const CommandDef* command = nullptr;
+        for (const auto& c : commands())
+            if (c.function == &f) command = &c;
         std::string args = "[";
-        for (const auto& a : f.args) {
+        for (std::size_t i = 0; i < f.args.size(); ++i) {
+            const ArgSpec& a = f.args[i];
             JsonObject aj;
             aj.str("name", a.name).str("kind", to_string(a.kind)).boolean("required", a.required);
             if (a.default_text && *a.default_text)
                 aj.str("default", a.default_text);
             else
                 aj.null("default");
+            const OptionDef* option = nullptr;
+            for (std::size_t k = 0; command && k < command->options.size(); ++k)
+                if (command->options[k].arg_index == i) option = &command->options[k];
+            if (option)
+                aj.str("option", "--" + option->long_name).boolean("repeated", option->repeatable);
+            else
+                aj.null("option").boolean("repeated", false);
             args += (args.size() > 1 ? "," : "") + aj.text();
         }
         j.raw("arguments", args + "]");

@@ -631,7 +631,7 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
     if (c.kind == Cell::Kind::text) {
         const std::string_view t = trim(c.text);
         detail::check_input_text(t, quoted(a.name).c_str());  // the one input-length limit
-        out.text = std::string(t);
+        out.text.assign(t.data(), t.size());  // keeps the buffer of a Value used again (arrays)
     }
     const bool number = c.kind == Cell::Kind::number;
     if (number && !std::isfinite(c.number)) bad(a, "is not a finite number");
@@ -917,9 +917,13 @@ Result evaluate_kept(const FunctionSpec& f, const std::vector<Arg>& args, const 
     out.rows = rows;
     out.cols = cols;
     out.cells.resize(rows * cols);
+    // One Bound for every element: only the spreading arguments' values and the conditions
+    // change between elements, so copying the whole of `base` (its vectors and strings) for each
+    // of 20,000 elements was allocation for nothing (tests/bench/bench_addin_array.cpp).
+    Bound b = base;
     for (std::size_t r = 0; r < rows; ++r)
         for (std::size_t c = 0; c < cols; ++c) {
-            Bound b = base;
+            b.at = base.at;
             Outcome& o = out.cells[r * cols + c];
             bool blank = false;
             try {
@@ -928,12 +932,15 @@ Result evaluate_kept(const FunctionSpec& f, const std::vector<Arg>& args, const 
                     const Arg& arg = args[i];
                     const std::size_t at = table_form ? (k == 0 ? r : c) : r * cols + c;
                     const Cell& cell = arg.cells[at];
+                    Bound::Value& v = b.values[i];
+                    v.given = v.is_text = false;  // as a fresh Value, its text's buffer kept
+                    v.number = 0;
+                    v.text.clear();
                     if (blank_cell(cell, f.args[i], rules)) {
                         blank = true;  // a blank cell of a range stays blank in the result
                         break;
                     }
-                    b.values[i] = {};
-                    read_cell(cell, f.args[i], rules, b.values[i]);
+                    read_cell(cell, f.args[i], rules, v);
                 }
             } catch (const Error& e) {
                 o = Outcome::failed(e);

@@ -967,6 +967,7 @@ double Engine::molar_mass(std::string_view formula) {
 }
 
 std::string Engine::source(std::string_view text, const Conditions& at) {
+    check_temperature(at.temperature_K);  // as every other function: -1 K names no phase
     const SpeciesTable* table = at.table;
     std::string out;
     if (looks_like_reaction(text)) {

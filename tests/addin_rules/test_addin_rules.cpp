@@ -235,3 +235,27 @@ TEST_CASE("add-in: host rules are Calc's") {
     CHECK_FALSE(r.text_numbers);
     CHECK(std::string(r.host_name) == "Calc add-in");
 }
+
+TEST_CASE("add-in: UTF-16 -> UTF-8 for ASCII, other characters and lone surrogates") {
+    // to_utf8 copies ASCII directly and converts anything else through the office's converter.
+    std::string out = "kept";
+    REQUIRE(rxnheat::addin::to_utf8(::rtl::OUString("CH4(g) -> C(s) + 2 H2(g)"), out));
+    CHECK(out == "CH4(g) -> C(s) + 2 H2(g)");
+    REQUIRE(rxnheat::addin::to_utf8(::rtl::OUString(), out));
+    CHECK(out.empty());
+    const sal_Unicode mixed[] = {'3', '5', '0', ' ', 0x00B0, 'C', ' ', 'H', 0x2082};  // "350 °C H₂"
+    REQUIRE(rxnheat::addin::to_utf8(::rtl::OUString(mixed, 9), out));
+    CHECK(out == "350 \xC2\xB0" "C H\xE2\x82\x82");
+    const sal_Unicode lone[] = {'H', 0xD83D};  // a high surrogate with no low one (UNICHAR(55357))
+    out = "untouched";
+    CHECK_FALSE(rxnheat::addin::to_utf8(::rtl::OUString(lone, 2), out));
+    CHECK(out == "untouched");
+    // Found by this test: the office's converter dropped a high surrogate at the end silently.
+    const sal_Unicode lone_low[] = {0xDE00, 'H'};
+    CHECK_FALSE(rxnheat::addin::to_utf8(::rtl::OUString(lone_low, 2), out));
+    const sal_Unicode lone_middle[] = {'H', 0xD83D, '2'};
+    CHECK_FALSE(rxnheat::addin::to_utf8(::rtl::OUString(lone_middle, 3), out));
+    const sal_Unicode pair[] = {0xD83D, 0xDE00};  // U+1F600 as a surrogate pair
+    REQUIRE(rxnheat::addin::to_utf8(::rtl::OUString(pair, 2), out));
+    CHECK(out == "\xF0\x9F\x98\x80");
+}

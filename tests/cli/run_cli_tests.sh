@@ -549,11 +549,16 @@ for f in j["functions"]:
     assert set(f) == {"calc_name", "cli_command", "idl_method", "summary", "layers", "arguments"}, f
     assert f["summary"] and set(f["layers"]) <= {"calc", "cli", "c"}, f
     for a in f["arguments"]:
-        assert set(a) == {"name", "kind", "required", "default"} and isinstance(a["required"], bool), a
+        assert set(a) == {"name", "kind", "required", "default", "option", "repeated"} and isinstance(a["required"], bool), a
+        assert a["option"] is None or a["option"].startswith("--"), a
 dh = [f for f in j["functions"] if f["calc_name"] == "RXNDH"][0]
 assert dh["cli_command"] == "dh" and dh["idl_method"] == "rxnDH", dh
 assert [a["name"] for a in dh["arguments"]] == ["reaction", "temperature", "unit", "per", "table"], dh["arguments"]
 assert dh["arguments"][1]["default"] == "298.15 K" and dh["arguments"][0]["default"] is None
+# How the command takes each argument (dh --help: REACTION positional, -T/--temperature, --per).
+assert [a["option"] for a in dh["arguments"]] == [None, "--temperature", "--unit", "--per", "--table"], dh["arguments"]
+hess = [f for f in j["functions"] if f["calc_name"] == "RXNHESS"][0]
+assert [(a["option"], a["repeated"]) for a in hess["arguments"]] == [(None, False), ("--step", True), ("--dh", True), ("--unit", False)], hess
 PYEOF
 # One command per line: a command of a group is two words ("steam tsat"), split on purpose below.
 while IFS= read -r cmd; do

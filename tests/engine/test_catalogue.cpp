@@ -240,6 +240,20 @@ TEST_CASE("ranges of one shape pair cell by cell, and other shapes are an error 
               "a range of 2×1 cells for 'reaction' and one of 3×1 for 'temperature'"));
 }
 
+TEST_CASE("a temperature below absolute zero is an error as a number as well as text", "[catalogue][args]") {
+    // Found by tests/addin/test_hostile.py: RXNSOURCE with the cell number -1 (or -1e308) as its
+    // temperature listed its sources, while the command line's "-1" was an error.
+    for (const double T : {-1.0, -1e308, -273.15}) {
+        INFO("T = " << T);
+        const auto as_number = one("RXNSOURCE", {text(CH4), Arg::omitted(), num(T)});
+        CHECK(as_number.kind == rxnheat::Outcome::Kind::error);
+        CHECK(has(as_number.text, "temperature"));
+        const auto as_text = one("RXNSOURCE", {text(CH4), Arg::omitted(), text(std::to_string(T).c_str())}, cli);
+        CHECK(as_text.kind == rxnheat::Outcome::Kind::error);
+    }
+    CHECK(one("RXNSOURCE", {text(CH4), Arg::omitted(), num(500)}).kind == rxnheat::Outcome::Kind::text);
+}
+
 TEST_CASE("too many arguments is an error", "[catalogue][args]") {
     const rxnheat::Outcome o = one("RXNREVERSE", {text(CH4), text("extra")}, calc);
     CHECK(o.kind == rxnheat::Outcome::Kind::error);
