@@ -41,7 +41,9 @@ const char* const batch_details =
      "error. Quoting follows RFC 4180 (\"...\" around cells with commas, quotes or line breaks,\n"
      "\"\" for a quote); UTF-8 passes through; a UTF-8 byte-order mark is ignored. Numbers are\n"
      "written with every digit needed to read back the same double. The file is streamed in\n"
-     "chunks of 1024 rows, so memory stays constant; a row longer than 16384 bytes is an error.\n"
+     "chunks of 1024 rows, so memory stays constant; a row longer than 16384 bytes or of more\n"
+     "than 4096 cells is an error, and input with no line end for 16 MiB stops the batch. A NUL\n"
+     "byte in a cell is written as \u2400 (U+2400, the symbol for NUL).\n"
      "Exit status 0 when the input was read (even with bad rows), 2 when it could not be read,\n"
      "1 after an internal failure.\n";
 
@@ -55,6 +57,7 @@ namespace {
 
 constexpr std::size_t batch_chunk_rows = 1024;
 constexpr unsigned max_threads = 256;
+constexpr std::size_t max_row_span_bytes = 16u << 20;
 
 struct BatchRow {
     std::size_t line = 0;
@@ -123,10 +126,18 @@ void compute_chunk(std::vector<BatchRow>& rows, unsigned threads, Engine& engine
     for (auto& t : pool) t.join();
 }
 
+// A NUL byte ends a cell or the whole file in many programs that read CSV; it is written as
+// U+2400 SYMBOL FOR NUL, which shows where it was. (JSON output escapes it as \u0000.)
+std::string without_nul(std::string s) {
+    for (std::size_t i = s.find('\0'); i != std::string::npos; i = s.find('\0', i + 3)) s.replace(i, 1, "\u2400");
+    return s;
+}
+
 std::string batch_row_csv(const BatchRow& r) {
     std::string out;
-    rxnheat::csv::append_row(out, {std::to_string(r.line), r.reaction, r.has_T ? exact_number(r.T) : "",
-                                  r.error.empty() ? exact_number(r.value) : "", r.unit, r.kind, r.error});
+    rxnheat::csv::append_row(out, {std::to_string(r.line), without_nul(r.reaction), r.has_T ? exact_number(r.T) : "",
+                                  r.error.empty() ? exact_number(r.value) : "", without_nul(r.unit), r.kind,
+                                  without_nul(r.error)});
     return out;
 }
 
@@ -175,7 +186,11 @@ int run_batch(const Parsed& p, Output& output, Engine& engine) {
     }
     const std::string default_unit = p.value_or("unit", "kJ/mol");
 
-    rxnheat::csv::Reader reader(in);
+    // A row longer than the reader holds is an error row and the batch reads on to its end, but
+    // not forever: input without a line end for 16 MiB (/dev/zero) stops the batch.
+    rxnheat::csv::Options reader_options;
+    reader_options.max_record_span = max_row_span_bytes;
+    rxnheat::csv::Reader reader(in, reader_options);
     rxnheat::csv::Record rec;
     bool first_record = true;
     std::size_t total = 0, failed = 0;
@@ -238,7 +253,9 @@ int run_batch(const Parsed& p, Output& output, Engine& engine) {
     }
 
     std::string read_failure;
-    if (reader.read_error())
+    if (!reader.stopped().empty())
+        read_failure = "cannot read '" + name + "' to its end: " + reader.stopped();
+    else if (reader.read_error())
         read_failure = "cannot read '" + name + "': " + std::strerror(reader.read_error());
 
     if (output.json()) {

@@ -43,10 +43,28 @@ struct Reader::State {
         pos = 0;
         return true;
     }
+    // Bytes taken from the source, and where the record being read started (for the limits).
+    std::size_t taken = 0, record_start = 0, record_line = 1;
+    std::string stop;  // why a limit stopped the reading; every later byte is then EOF
+
     int raw() {
         if (npushed) return static_cast<unsigned char>(pushed[--npushed]);
-        if (pos == len && !refill()) return EOF;
+        if (!stop.empty() || (pos == len && !refill())) return EOF;
+        if (opt.max_input_bytes && taken >= opt.max_input_bytes) {
+            stop = "the input is longer than " + std::to_string(opt.max_input_bytes) + " bytes; the rest is not read";
+            return EOF;
+        }
+        if (opt.max_record_span && taken - record_start >= opt.max_record_span) {
+            stop = "no line end within " + std::to_string(opt.max_record_span) + " bytes of line " +
+                   std::to_string(record_line) + "; the rest of the input is not read";
+            return EOF;
+        }
+        ++taken;
         return static_cast<unsigned char>(data[pos++]);
+    }
+    void start_record() {
+        record_start = taken;
+        record_line = line;
     }
     int get() {
         int c = raw();
@@ -90,6 +108,7 @@ Reader& Reader::operator=(Reader&&) noexcept = default;
 
 int Reader::read_error() const noexcept { return s_->read_errno; }
 std::size_t Reader::line() const noexcept { return s_->line; }
+const std::string& Reader::stopped() const noexcept { return s_->stop; }
 
 bool Reader::next(Record& out) {
     State& s = *s_;
@@ -105,6 +124,7 @@ bool Reader::next(Record& out) {
     std::string lead;
     int c;
     for (;;) {
+        s.start_record();
         lead.clear();
         c = s.get();
         while (c == ' ' || c == '\t') {
@@ -185,7 +205,9 @@ bool Reader::next(Record& out) {
         }
     }
 done:
-    if (s.read_errno)
+    if (!s.stop.empty())
+        out.error = s.stop;
+    else if (s.read_errno)
         out.error = std::string("the input could not be read to the end of this row: ") + std::strerror(s.read_errno);
     else if (unclosed)
         out.error = "a quoted cell that starts on line " + std::to_string(quote_line) +
