@@ -100,6 +100,9 @@ private:
 /// a line break or leading/trailing blanks (space, tab); unchanged otherwise.
 RXNHEAT_API std::string quote(std::string_view cell);
 
+/// Appends the cell to `out` as quote() writes it, without a string of its own.
+RXNHEAT_API void append_cell(std::string& out, std::string_view cell);
+
 /// Appends cells joined by commas, each quoted as needed, and a line feed.
 RXNHEAT_API void append_row(std::string& out, const std::vector<std::string>& cells);
 
