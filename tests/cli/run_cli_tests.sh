@@ -604,6 +604,8 @@ EOF
 run_in "$TMP/batch.csv" batch - --threads 2
 expect_rc "batch stdin --threads 2" 0
 if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch --threads 2 output differs from 1 thread"; fi
+run_in "$TMP/batch.csv" batch - --threads 5  # a reading thread, the main one and 3 helpers
+if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch --threads 5 output differs from 1 thread"; fi
 run_in "$TMP/batch.csv" batch
 if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch without FILE reads standard input"; fi
 
@@ -654,24 +656,32 @@ for n in 1 2 3 899 90001; do
     v=$(echo "$row" | "$PY" -c 'import csv,sys; print(next(csv.reader(sys.stdin))[3])')
     expect_close "batch row $n equals dh -T $temp" "$v" "$(jval value)" 0
 done
+# The same 100 chunks with 1 and with 3 threads (a reading thread ahead of two computing ones):
+# the same bytes.
+run batch "$TMP/many.csv" --threads 1
+cp "$TMP/out" "$TMP/many1.out"
+run batch "$TMP/many.csv" --threads 3
+if cmp -s "$TMP/out" "$TMP/many1.out" && cmp -s "$TMP/out" "$TMP/many.out"; then pass; else fail "batch of 100 chunks: --threads 1, 2 and 3 differ"; fi
 
 # Streaming: with standard input held open, the first chunk of 1024 rows is written before the
-# input ends.
+# input ends; with one thread, and with a reading thread ahead of the computing one.
 mkfifo "$TMP/fifo"
-timeout 60 "$BIN" batch - <"$TMP/fifo" >"$TMP/stream.out" 2>/dev/null &
-BATCH_PID=$!
-exec 3>"$TMP/fifo"
-head -n 1500 "$TMP/many.csv" >&3
-streamed=no
-for _ in $(seq 1 100); do
-    if [ "$(wc -l <"$TMP/stream.out")" -ge 1025 ]; then streamed=yes; break; fi
-    sleep 0.1
+for threads in 1 2; do
+    timeout 60 "$BIN" batch - --threads "$threads" <"$TMP/fifo" >"$TMP/stream.out" 2>/dev/null &
+    BATCH_PID=$!
+    exec 3>"$TMP/fifo"
+    head -n 1500 "$TMP/many.csv" >&3
+    streamed=no
+    for _ in $(seq 1 100); do
+        if [ "$(wc -l <"$TMP/stream.out")" -ge 1025 ]; then streamed=yes; break; fi
+        sleep 0.1
+    done
+    exec 3>&-
+    wait "$BATCH_PID"
+    RC=$?
+    if [ "$streamed" = yes ]; then pass; else fail "batch --threads $threads streams: first 1024 rows out before the input ended"; fi
+    if [ "$RC" -eq 0 ] && [ "$(wc -l <"$TMP/stream.out")" -eq 1501 ]; then pass; else fail "batch --threads $threads streamed run: all rows"; fi
 done
-exec 3>&-
-wait "$BATCH_PID"
-RC=$?
-if [ "$streamed" = yes ]; then pass; else fail "batch streams: first 1024 rows out before the input ended"; fi
-if [ "$RC" -eq 0 ] && [ "$(wc -l <"$TMP/stream.out")" -eq 1501 ]; then pass; else fail "batch streamed run: all rows"; fi
 
 run batch "$TMP/no-such.csv"
 expect_rc "batch missing file" 2
