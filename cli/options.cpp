@@ -147,7 +147,7 @@ std::vector<CommandDef> make_commands() {
     OptionDef threads;
     threads.long_name = "threads";
     threads.value_name = "N";
-    threads.help = "Rows computed in parallel; 0: one per processor.";
+    threads.help = "Threads in all: from 2, one reads ahead while the others compute; 0: one per processor.";
     threads.default_text = "1";
     batch.options = {batch_temperature, unit, threads, table};
     all.push_back(batch);

@@ -18,6 +18,33 @@ std::vector<std::size_t> reduce_rows(std::vector<std::vector<Rational>>& m, std:
 /// Basis of the null space of `m` (rows × cols, row-major), by exact Gauss-Jordan elimination.
 std::vector<std::vector<Rational>> null_space(std::vector<std::vector<Rational>> m, std::size_t cols);
 
+/// What the element-and-charge matrix says about balancing: the null space's dimension decides.
+struct BalanceSolution {
+    enum class Kind {
+        unique,     ///< exactly one balance up to scale: `coefficients`
+        none,       ///< the null space is {0}
+        several,    ///< `ways` independent balances (at least that many when !ways_exact)
+        too_large,  ///< deciding exactly would need numbers of more than `max_balance_bits` bits
+    } kind = Kind::none;
+    std::vector<Rational> coefficients;  ///< unique: whole numbers without a common factor
+    std::size_t ways = 0;
+    bool ways_exact = true;
+};
+
+/// Size cap of the exact fallback elimination (see solve_balance): about 190 decimal digits.
+inline constexpr std::size_t max_balance_bits = 640;
+
+/// One column of the element-and-charge matrix: (row, value) of its nonzero entries.
+using SparseColumn = std::vector<std::pair<std::size_t, Rational>>;
+
+/// Decides the balance of the matrix of `rows` rows and the columns `m` exactly, in time bounded by the matrix's
+/// size: the rank modulo word-sized primes gives a lower bound on the rational rank, and null
+/// vectors rebuilt from those residues (Chinese remainders, rational reconstruction) and checked
+/// exactly on the matrix give the upper bound. Only when that fails (numbers beyond 2^61, or a prime
+/// dividing a minor) does it eliminate exactly, fraction-free, stopping as soon as a second free
+/// column shows that no single balance exists, and giving up (too_large) past max_balance_bits.
+BalanceSolution solve_balance(std::size_t rows, const std::vector<SparseColumn>& m);
+
 /// Scales a rational vector to the smallest whole numbers with the same ratios (sign kept).
 std::vector<Rational> smallest_integers(const std::vector<Rational>& v);
 

@@ -43,10 +43,28 @@ struct Reader::State {
         pos = 0;
         return true;
     }
+    // Bytes taken from the source, and where the record being read started (for the limits).
+    std::size_t taken = 0, record_start = 0, record_line = 1;
+    std::string stop;  // why a limit stopped the reading; every later byte is then EOF
+
     int raw() {
         if (npushed) return static_cast<unsigned char>(pushed[--npushed]);
-        if (pos == len && !refill()) return EOF;
+        if (!stop.empty() || (pos == len && !refill())) return EOF;
+        if (opt.max_input_bytes && taken >= opt.max_input_bytes) {
+            stop = "the input is longer than " + std::to_string(opt.max_input_bytes) + " bytes; the rest is not read";
+            return EOF;
+        }
+        if (opt.max_record_span && taken - record_start >= opt.max_record_span) {
+            stop = "no line end within " + std::to_string(opt.max_record_span) + " bytes of line " +
+                   std::to_string(record_line) + "; the rest of the input is not read";
+            return EOF;
+        }
+        ++taken;
         return static_cast<unsigned char>(data[pos++]);
+    }
+    void start_record() {
+        record_start = taken;
+        record_line = line;
     }
     int get() {
         int c = raw();
@@ -90,10 +108,10 @@ Reader& Reader::operator=(Reader&&) noexcept = default;
 
 int Reader::read_error() const noexcept { return s_->read_errno; }
 std::size_t Reader::line() const noexcept { return s_->line; }
+const std::string& Reader::stopped() const noexcept { return s_->stop; }
 
 bool Reader::next(Record& out) {
     State& s = *s_;
-    out.cells.clear();
     out.error.clear();
     out.line = 0;
     if (s.at_start) {
@@ -105,6 +123,7 @@ bool Reader::next(Record& out) {
     std::string lead;
     int c;
     for (;;) {
+        s.start_record();
         lead.clear();
         c = s.get();
         while (c == ' ' || c == '\t') {
@@ -134,13 +153,39 @@ bool Reader::next(Record& out) {
         ++bytes;
         cell.push_back(static_cast<char>(ch));
     };
+    // The record's cells reuse the strings of the record before (swapped in and out), so rows of
+    // the same shape cost no allocation.
+    std::size_t kept = 0;  // cells of this record in out.cells[0..kept)
     auto end_cell = [&] {
         ++ncells;
-        if (out.cells.size() < s.opt.max_cells)
-            out.cells.push_back(std::move(cell));
-        else
+        if (kept >= s.opt.max_cells)
             too_many = true;
+        else if (kept < out.cells.size())
+            out.cells[kept++].swap(cell);
+        else
+            out.cells.push_back(std::move(cell)), ++kept;
         cell.clear();
+    };
+    // A run of ordinary bytes straight from the buffer: none of , " CR LF, within the limits
+    // raw() keeps. Only where get() would give the same bytes one by one.
+    auto take_run = [&] {
+        if (s.npushed || s.skip_lf || !s.stop.empty()) return;
+        std::size_t limit = s.len;
+        if (s.opt.max_input_bytes) limit = std::min(limit, s.pos + (s.opt.max_input_bytes - std::min(s.taken, s.opt.max_input_bytes)));
+        if (s.opt.max_record_span)
+            limit = std::min(limit, s.pos + (s.opt.max_record_span - std::min(s.taken - s.record_start, s.opt.max_record_span)));
+        std::size_t end = s.pos;
+        while (end < limit) {
+            const char ch = s.data[end];
+            if (ch == ',' || ch == '"' || ch == '\n' || ch == '\r') break;
+            ++end;
+        }
+        const std::size_t n = end - s.pos, room = s.opt.max_record_bytes - std::min(bytes, s.opt.max_record_bytes);
+        cell.append(s.data + s.pos, std::min(n, room));
+        if (n > room) truncated = true;
+        bytes += std::min(n, room);
+        s.taken += n;
+        s.pos = end;
     };
     for (char b : lead) add(static_cast<unsigned char>(b));
     if (!lead.empty()) st = Where::unquoted;
@@ -153,6 +198,7 @@ bool Reader::next(Record& out) {
             if (c == ',') { end_cell(); break; }
             if (c == '\n' || c == '\r') { s.line_end(c); end_cell(); goto done; }
             add(c);
+            take_run();
             st = Where::unquoted;
             break;
         case Where::unquoted:
@@ -163,6 +209,7 @@ bool Reader::next(Record& out) {
                 misplaced = "a '\"' inside the unquoted field (cell " + std::to_string(ncells + 1) +
                             "): quote the whole cell and write \"\" for a quote";
             add(c);
+            take_run();
             break;
         case Where::quoted:
             if (c == EOF) { unclosed = true; end_cell(); goto done; }
@@ -170,6 +217,7 @@ bool Reader::next(Record& out) {
             // A line break inside quotes is cell text; CRLF counts as one line end.
             if (c == '\r' || (c == '\n' && prev != '\r')) ++s.line;
             add(c);
+            if (c != '\r') take_run();  // a run holds no line break, so `prev` stays right
             break;
         case Where::after_quote:
             if (c == '"') { add('"'); st = Where::quoted; break; }
@@ -185,7 +233,10 @@ bool Reader::next(Record& out) {
         }
     }
 done:
-    if (s.read_errno)
+    out.cells.resize(kept);
+    if (!s.stop.empty())
+        out.error = s.stop;
+    else if (s.read_errno)
         out.error = std::string("the input could not be read to the end of this row: ") + std::strerror(s.read_errno);
     else if (unclosed)
         out.error = "a quoted cell that starts on line " + std::to_string(quote_line) +
@@ -199,28 +250,38 @@ done:
     return true;
 }
 
-std::string quote(std::string_view cell) {
-    bool needs = false;
+namespace {
+bool needs_quotes(std::string_view cell) {
     for (char ch : cell)
-        if (ch == ',' || ch == '"' || ch == '\n' || ch == '\r') needs = true;
-    if (!cell.empty() && (cell.front() == ' ' || cell.front() == '\t' || cell.back() == ' ' || cell.back() == '\t'))
-        needs = true;
-    if (!needs) return std::string(cell);
-    std::string out;
-    out.reserve(cell.size() + 2);
+        if (ch == ',' || ch == '"' || ch == '\n' || ch == '\r') return true;
+    return !cell.empty() && (cell.front() == ' ' || cell.front() == '\t' || cell.back() == ' ' || cell.back() == '\t');
+}
+}  // namespace
+
+void append_cell(std::string& out, std::string_view cell) {
+    if (!needs_quotes(cell)) {
+        out.append(cell.data(), cell.size());
+        return;
+    }
     out.push_back('"');
     for (char ch : cell) {
         if (ch == '"') out.push_back('"');
         out.push_back(ch);
     }
     out.push_back('"');
+}
+
+std::string quote(std::string_view cell) {
+    std::string out;
+    out.reserve(cell.size() + 2);
+    append_cell(out, cell);
     return out;
 }
 
 void append_row(std::string& out, const std::vector<std::string>& cells) {
     for (std::size_t i = 0; i < cells.size(); ++i) {
         if (i) out.push_back(',');
-        out += quote(cells[i]);
+        append_cell(out, cells[i]);
     }
     out.push_back('\n');
 }

@@ -57,26 +57,58 @@ std::string atom_count_text(const Rational& r) {
     return (negative ? "-" : "") + text;
 }
 
-void check_balance(Prepared& p) {
-    std::map<std::string, std::pair<Rational, Rational>> totals;  // element -> (left, right)
-    Rational q_left = 0, q_right = 0;
+bool add_product(long long& total, long long a, long long b) {
+    long long prod;
+    return !__builtin_mul_overflow(a, b, &prod) && !__builtin_add_overflow(total, prod, &total);
+}
+bool add_product(Rational& total, const Rational& a, const Rational& b) {
+    total += a * b;
+    return true;
+}
+
+// Each element's total on the left and on the right, and the charge's, as text; empty when
+// every total matches. In 64-bit integers when every coefficient and count is a whole number
+// small enough (nearly every reaction: no rational arithmetic at all), exactly otherwise.
+template <class Number, class Convert, class Text>
+bool side_totals(const Prepared& p, Convert convert, Text text, std::string& bad) {
+    std::map<std::string_view, std::pair<Number, Number>> totals;  // element -> (left, right)
+    Number q_left = 0, q_right = 0;
     for (std::size_t i = 0; i < p.terms.size(); ++i) {
-        const bool product = p.nu[i] > 0;
-        const Rational n = product ? p.nu[i] : Rational(-p.nu[i]);
+        const bool product = p.nu[i].sign() > 0;
+        Number n;
+        if (!convert(product ? p.nu[i] : Rational(-p.nu[i]), n)) return false;
         for (const auto& [sym, count] : p.compositions[i].atoms) {
+            Number c;
+            if (!convert(count, c)) return false;
             auto& t = totals[sym];
-            (product ? t.second : t.first) += n * count;
+            if (!add_product(product ? t.second : t.first, n, c)) return false;
         }
-        (product ? q_right : q_left) += n * p.compositions[i].charge;
+        if (!add_product(product ? q_right : q_left, n, Number(p.compositions[i].charge))) return false;
     }
-    std::string bad;
     for (const auto& [sym, t] : totals)
         if (t.first != t.second)
-            bad += std::string(bad.empty() ? "" : "; ") + sym + " " + atom_count_text(t.first) + " on the left, " +
-                   atom_count_text(t.second) + " on the right";
+            bad += std::string(bad.empty() ? "" : "; ") + std::string(sym) + " " + text(t.first) + " on the left, " +
+                   text(t.second) + " on the right";
     if (q_left != q_right)
-        bad += std::string(bad.empty() ? "" : "; ") + "charge " + atom_count_text(q_left) + " on the left, " +
-               atom_count_text(q_right) + " on the right";
+        bad += std::string(bad.empty() ? "" : "; ") + "charge " + text(q_left) + " on the left, " + text(q_right) +
+               " on the right";
+    return true;
+}
+
+void check_balance(Prepared& p) {
+    using boost::multiprecision::denominator;
+    using boost::multiprecision::numerator;
+    std::string bad;
+    const auto to_integer = [](const Rational& r, long long& out) {
+        if (denominator(r) != 1 || numerator(r) > 1'000'000'000'000'000LL || numerator(r) < -1'000'000'000'000'000LL)
+            return false;
+        out = numerator(r).convert_to<long long>();
+        return true;
+    };
+    if (!side_totals<long long>(p, to_integer, [](long long x) { return std::to_string(x); }, bad)) {
+        bad.clear();
+        side_totals<Rational>(p, [](const Rational& r, Rational& out) { out = r; return true; }, atom_count_text, bad);
+    }
     if (bad.empty()) return;
     std::string msg = "the reaction is not balanced: " + bad;
     try {
@@ -205,38 +237,46 @@ std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational
 std::string balanced_text(const Prepared& prepared) {
     const Prepared* p = &prepared;
     p->require_compositions();
-    std::vector<std::string> symbols;
-    {
-        std::set<std::string> seen;
-        for (const auto& c : p->compositions)
-            for (const auto& a : c.atoms)
-                if (seen.insert(a.first).second) symbols.push_back(a.first);
-    }
-    const std::size_t n = p->terms.size();
-    std::vector<std::vector<Rational>> m;
-    for (const auto& sym : symbols) {
-        std::vector<Rational> row(n, Rational(0));
-        for (std::size_t j = 0; j < n; ++j)
-            for (const auto& a : p->compositions[j].atoms)
-                if (a.first == sym) row[j] = (p->nu[j] < 0 ? a.second : Rational(-a.second));
-        m.push_back(std::move(row));
-    }
-    std::vector<Rational> charge(n, Rational(0));
+    // One row per element (in order of first appearance) and one for the charge when any
+    // species is charged; one column per term, reactants positive.
+    std::map<std::string, std::size_t> row_of;
+    for (const auto& c : p->compositions)
+        for (const auto& a : c.atoms) row_of.emplace(a.first, row_of.size());
     bool charged = false;
-    for (std::size_t j = 0; j < n; ++j) {
-        const int q = p->compositions[j].charge;
-        charged = charged || q != 0;
-        charge[j] = p->nu[j] < 0 ? Rational(q) : Rational(-q);
-    }
-    if (charged) m.push_back(charge);
-    const auto basis = null_space(m, n);
-    if (basis.empty())
-        throw Error(ErrorKind::unbalanced, "no coefficients balance these species: check the formulas, or a species is missing");
-    if (basis.size() > 1)
+    for (const auto& c : p->compositions) charged = charged || c.charge != 0;
+    const std::size_t n = p->terms.size();
+    const std::size_t rows = row_of.size() + (charged ? 1 : 0);
+    // The rank is at most the number of rows, so the null space has at least n − rows
+    // dimensions: decided before any matrix is built (thousands of terms cost nothing more).
+    if (n >= rows + 2)
         throw Error(ErrorKind::unbalanced,
-                    "these species balance in " + std::to_string(basis.size()) +
+                    "these " + std::to_string(n) + " species balance in at least " + std::to_string(n - rows) +
+                        " independent ways (only " + std::to_string(rows) +
+                        " element and charge totals fix their coefficients), so no single balance exists; give "
+                        "the coefficients yourself or split the reaction");
+    std::vector<SparseColumn> m(n);
+    for (std::size_t j = 0; j < n; ++j) {
+        const bool left = p->nu[j].sign() < 0;
+        for (const auto& a : p->compositions[j].atoms)
+            if (!a.second.is_zero()) m[j].emplace_back(row_of[a.first], left ? a.second : Rational(-a.second));
+        if (const int q = p->compositions[j].charge) m[j].emplace_back(rows - 1, Rational(left ? q : -q));
+    }
+    const BalanceSolution sol = solve_balance(rows, m);
+    switch (sol.kind) {
+    case BalanceSolution::Kind::none:
+        throw Error(ErrorKind::unbalanced, "no coefficients balance these species: check the formulas, or a species is missing");
+    case BalanceSolution::Kind::several:
+        throw Error(ErrorKind::unbalanced,
+                    "these species balance in " + std::string(sol.ways_exact ? "" : "at least ") +
+                        std::to_string(sol.ways) +
                         " independent ways, so no single balance exists; give the coefficients yourself or split the reaction");
-    auto v = smallest_integers(basis.front());
+    case BalanceSolution::Kind::too_large:
+        throw Error(ErrorKind::unbalanced, "balancing these species exactly would need numbers of more than " +
+                                               std::to_string(max_balance_bits * 30103 / 100000) +
+                                               " digits; give the coefficients yourself");
+    case BalanceSolution::Kind::unique: break;
+    }
+    auto v = sol.coefficients;
     bool any_neg = false, any_pos = false;
     for (const auto& x : v) {
         any_neg = any_neg || x < 0;
@@ -250,6 +290,17 @@ std::string balanced_text(const Prepared& prepared) {
                                                    p->terms[j]->species.written +
                                                    (v[j] == 0 ? " would get a coefficient of zero"
                                                               : " belongs on the other side"));
+    // The suggestion is capped where rxnheat's own reader stops: a coefficient it could not read
+    // back is no use as a balance.
+    for (std::size_t j = 0; j < n; ++j) {
+        const std::string digits = rational_text(v[j]);
+        if (digits.size() > grammar::max_number_digits)
+            throw Error(ErrorKind::unbalanced,
+                        "the only balance needs " + std::to_string(digits.size()) + " digits for " +
+                            p->terms[j]->species.written + ", and rxnheat reads numbers of at most " +
+                            std::to_string(grammar::max_number_digits) +
+                            " digits; give the coefficients yourself");
+    }
     const std::size_t nl = p->ast.reactants.size();
     return reaction_text(p->ast, std::vector<Rational>(v.begin(), v.begin() + nl),
                                  std::vector<Rational>(v.begin() + nl, v.end()));
@@ -336,11 +387,15 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     }
     if (!p->composition_error) {
         check_balance(*p);
-        try {
-            for (const auto* t : p->terms) p->substances.push_back(db.resolve(t->species, table));
-        } catch (const Error& e) {
-            p->resolve_error = e;
-            p->substances.clear();
+        // An unbalanced reaction's data is never used (require_thermo throws the balance error
+        // first), so it is not looked up: a long unbalanced input costs its parse only.
+        if (!p->balance_error) {
+            try {
+                for (const auto* t : p->terms) p->substances.push_back(db.resolve(t->species, table));
+            } catch (const Error& e) {
+                p->resolve_error = e;
+                p->substances.clear();
+            }
         }
     }
     if (cache) cache->put(text, table, p);

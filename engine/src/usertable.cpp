@@ -12,6 +12,7 @@
 #include <cmath>
 #include <cstdio>
 #include <cstring>
+#include <iterator>
 
 #include <sys/stat.h>
 
@@ -34,6 +35,12 @@ double number_cell(const std::string& text, std::size_t row, const std::string& 
         table_error(row, column, "'" + t + "' is not a number");
     return v;
 }
+
+// Limits of a species table read from a file (from_csv_file).
+constexpr std::size_t max_table_rows = 100000;
+constexpr std::size_t max_table_row_cells = 256;
+constexpr std::size_t max_table_cells = 1000000;
+constexpr std::size_t max_table_file_bytes = 64u << 20;
 
 const char* const known_columns[] = {"formula", "phase", "dHf", "S", "cp", "a", "b", "c", "d", "e",
                                      "tmin", "tmax", "name", "source"};
@@ -235,17 +242,32 @@ SpeciesTable SpeciesTable::from_csv_file(const std::string& path) {
     // a typo, and reading on would give a formula or number that is not what was meant.
     csv::Options options;
     options.strict_quotes = true;
+    // Memory and time bounded whatever the file holds (a device such as /dev/zero never ends):
+    // a table has 14 columns, so 256 cells leave room for a spreadsheet's padding; the whole
+    // table is held as cells, so their number and the bytes read are capped too.
+    options.max_cells = max_table_row_cells;
+    options.max_record_span = max_table_file_bytes / 4;
+    options.max_input_bytes = max_table_file_bytes;
     csv::Reader reader(f, options);
     csv::Record rec;
     std::vector<std::vector<std::string>> rows;
+    std::size_t cells = 0;
     while (reader.next(rec)) {
-        if (reader.read_error()) break;  // reported below, for the whole file
+        if (!reader.stopped().empty() || reader.read_error()) break;  // reported below, for the whole file
         // Rows are numbered as from_rows numbers them (the header is row 1), which is what a
         // spreadsheet shows; the reader's words name the line where that differs.
         if (!rec.error.empty()) table_error(rows.size() + 1, "", rec.error);
-        rows.push_back(std::move(rec.cells));
-        if (rows.size() > 100000) throw Error(ErrorKind::table, "species table '" + path + "' has over 100000 rows");
+        cells += rec.cells.size();
+        if (cells > max_table_cells)
+            throw Error(ErrorKind::table, what + " has more than " + std::to_string(max_table_cells) +
+                                              " cells; a species table holds at most that many");
+        // Moved into a vector of exactly its size: the reader's grows by doubling, and a table
+        // of many rows would hold up to twice its cells.
+        rows.emplace_back(std::make_move_iterator(rec.cells.begin()), std::make_move_iterator(rec.cells.end()));
+        if (rows.size() > max_table_rows)
+            throw Error(ErrorKind::table, "species table '" + path + "' has over " + std::to_string(max_table_rows) + " rows");
     }
+    if (!reader.stopped().empty()) throw Error(ErrorKind::table, "cannot read " + what + ": " + reader.stopped());
     if (reader.read_error())
         throw Error(ErrorKind::table, "cannot read " + what + ": " + std::strerror(reader.read_error()));
     return from_rows(rows);

@@ -626,6 +626,8 @@ EOF
 run_in "$TMP/batch.csv" batch - --threads 2
 expect_rc "batch stdin --threads 2" 0
 if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch --threads 2 output differs from 1 thread"; fi
+run_in "$TMP/batch.csv" batch - --threads 5  # a reading thread, the main one and 3 helpers
+if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch --threads 5 output differs from 1 thread"; fi
 run_in "$TMP/batch.csv" batch
 if cmp -s "$TMP/out" "$TMP/batch1.out"; then pass; else fail "batch without FILE reads standard input"; fi
 
@@ -676,24 +678,32 @@ for n in 1 2 3 899 90001; do
     v=$(echo "$row" | "$PY" -c 'import csv,sys; print(next(csv.reader(sys.stdin))[3])')
     expect_close "batch row $n equals dh -T $temp" "$v" "$(jval value)" 0
 done
+# The same 100 chunks with 1 and with 3 threads (a reading thread ahead of two computing ones):
+# the same bytes.
+run batch "$TMP/many.csv" --threads 1
+cp "$TMP/out" "$TMP/many1.out"
+run batch "$TMP/many.csv" --threads 3
+if cmp -s "$TMP/out" "$TMP/many1.out" && cmp -s "$TMP/out" "$TMP/many.out"; then pass; else fail "batch of 100 chunks: --threads 1, 2 and 3 differ"; fi
 
 # Streaming: with standard input held open, the first chunk of 1024 rows is written before the
-# input ends.
+# input ends; with one thread, and with a reading thread ahead of the computing one.
 mkfifo "$TMP/fifo"
-timeout 60 "$BIN" batch - <"$TMP/fifo" >"$TMP/stream.out" 2>/dev/null &
-BATCH_PID=$!
-exec 3>"$TMP/fifo"
-head -n 1500 "$TMP/many.csv" >&3
-streamed=no
-for _ in $(seq 1 100); do
-    if [ "$(wc -l <"$TMP/stream.out")" -ge 1025 ]; then streamed=yes; break; fi
-    sleep 0.1
+for threads in 1 2; do
+    timeout 60 "$BIN" batch - --threads "$threads" <"$TMP/fifo" >"$TMP/stream.out" 2>/dev/null &
+    BATCH_PID=$!
+    exec 3>"$TMP/fifo"
+    head -n 1500 "$TMP/many.csv" >&3
+    streamed=no
+    for _ in $(seq 1 100); do
+        if [ "$(wc -l <"$TMP/stream.out")" -ge 1025 ]; then streamed=yes; break; fi
+        sleep 0.1
+    done
+    exec 3>&-
+    wait "$BATCH_PID"
+    RC=$?
+    if [ "$streamed" = yes ]; then pass; else fail "batch --threads $threads streams: first 1024 rows out before the input ended"; fi
+    if [ "$RC" -eq 0 ] && [ "$(wc -l <"$TMP/stream.out")" -eq 1501 ]; then pass; else fail "batch --threads $threads streamed run: all rows"; fi
 done
-exec 3>&-
-wait "$BATCH_PID"
-RC=$?
-if [ "$streamed" = yes ]; then pass; else fail "batch streams: first 1024 rows out before the input ended"; fi
-if [ "$RC" -eq 0 ] && [ "$(wc -l <"$TMP/stream.out")" -eq 1501 ]; then pass; else fail "batch streamed run: all rows"; fi
 
 run batch "$TMP/no-such.csv"
 expect_rc "batch missing file" 2
@@ -720,6 +730,71 @@ expect_out_re "batch unterminated quote: error row" 'not closed'
 { printf '%s\n' "$(printf 'x%.0s' $(seq 20000))"; printf '"%s"\n' "$SHIFT"; } >"$TMP/long.csv"
 run batch "$TMP/long.csv" --json
 jcheck "batch over-long row" 'j["rows"] == 2 and "longer than" in j["results"][0]["error"] and "value" in j["results"][1]'
+
+# ---- bounded memory and time on hostile input (issue 10, items 6 and 7) -------------------------
+# Each is an error in words, under a time limit (no hang) and a peak resident set below 64 MiB
+# (GNU time's %M, KiB; the engine and its data take about 8 MiB).
+# run_rss SECONDS INPUT ARGS...: the binary with INPUT as standard input under `timeout SECONDS`
+# and GNU time; sets RC and RSS_KB.
+run_rss() {
+    local secs=$1 input=$2
+    shift 2
+    LAST_ARGS="$* < $input"
+    /usr/bin/time -f %M -o "$TMP/rss" timeout "$secs" "$BIN" "$@" <"$input" >"$TMP/out" 2>"$TMP/err"
+    RC=$?
+    RSS_KB=$(tail -n 1 "$TMP/rss")
+}
+expect_rss() {  # NAME: peak RSS below 64 MiB
+    if [ "${RSS_KB:-999999999}" -lt 65536 ]; then pass; else fail "$1: peak RSS ${RSS_KB:-?} KiB, limit 65536 KiB"; fi
+}
+"$PY" -c 'import sys; sys.stdout.write("," * 10**7 + "\n\"CO(g) + H2O(g) -> CO2(g) + H2(g)\"\n")' >"$TMP/commas.csv"
+run_rss 20 /dev/null batch "$TMP/commas.csv"
+expect_rc "batch, a line of 10^7 commas: exit 0, an error row" 0
+expect_out_re "batch, a line of 10^7 commas: words" '^1,.*the row has more than 4096 cells$'
+expect_out_re "batch, a line of 10^7 commas: the next row is read" '^2,CO\(g\) \+ H2O\(g\) -> CO2\(g\) \+ H2\(g\),298.15,'
+expect_rss "batch, a line of 10^7 commas"
+run_rss 20 /dev/zero batch -
+expect_rc "batch of /dev/zero: cannot be read, exit 2" 2
+expect_err_re "batch of /dev/zero: words" 'no line end'
+expect_rss "batch of /dev/zero"
+{ echo "formula,phase,dHf"; "$PY" -c 'import sys; sys.stdout.write("," * (5 * 10**6) + "\n")'; } >"$TMP/table-commas.csv"
+run_rss 20 /dev/null dh "$METHANE" --table "$TMP/table-commas.csv"
+expect_rc "--table with a row of 5x10^6 commas: exit 2" 2
+expect_err_re "--table with a row of 5x10^6 commas: words" 'row 2: the row has more than [0-9]+ cells'
+expect_rss "--table with a row of 5x10^6 commas"
+# 60,000 rows of 100 cells: each row within the limits, the table as a whole is not.
+"$PY" -c '
+import sys
+with open(sys.argv[1], "w") as f:
+    f.write("formula,phase,dHf" + "," * 97 + "\n")
+    for i in range(60000):
+        f.write("H2O,l,-285.83" + "," * 97 + "\n")
+' "$TMP/table-wide.csv"
+run_rss 20 /dev/null dh "$METHANE" --table "$TMP/table-wide.csv"
+expect_rc "--table of 6x10^6 cells: exit 2" 2
+expect_err_re "--table of 6x10^6 cells: words" 'more than [0-9,]+ cells'
+expect_rss "--table of 6x10^6 cells"
+run_rss 20 /dev/null dh "$METHANE" --table /dev/zero
+expect_rc "--table /dev/zero: exit 2" 2
+expect_err_re "--table /dev/zero: words" "species table file '/dev/zero'.*(longer than|no line end)"
+expect_rss "--table /dev/zero"
+run_rss 20 /dev/null batch "$TMP/batch.csv" --table /dev/zero
+expect_rc "batch --table /dev/zero: exit 2" 2
+expect_rss "batch --table /dev/zero"
+run dh "$METHANE" --table "$TMP"
+expect_rc "--table DIRECTORY: exit 2" 2
+expect_err_re "--table DIRECTORY: says it is a directory" 'is a directory'
+run batch "$TMP/batch.csv" --table "$TMP"
+expect_err_re "batch --table DIRECTORY: says it is a directory" 'is a directory'
+# A NUL byte in a cell is written as U+2400 (the symbol for NUL), never as a raw NUL.
+printf 'H2\000 + O2 -> H2O,300\n' >"$TMP/nul.csv"
+run batch "$TMP/nul.csv"
+if "$PY" -c 'import sys; sys.exit(b"\0" in open(sys.argv[1], "rb").read())' "$TMP/out"; then
+    pass
+else
+    fail "batch output holds a raw NUL byte"
+fi
+expect_out_re "batch NUL: written as the symbol for NUL" $'^1,H2\u2400 \\+ O2 -> H2O,300,'
 
 
 # =================================================================================================

@@ -25,6 +25,10 @@
 //   an error; a record of more than Options::max_cells cells keeps the first max_cells and
 //   carries an error. In both cases the reader reads on to the record's real end, so the next
 //   record is read normally.
+// - Time and memory are bounded per input as well, for input that never ends (/dev/zero):
+//   with Options::max_record_span, a record still without its end after that many bytes stops
+//   the reader; with Options::max_input_bytes, so does an input longer than that. The record
+//   being read carries the error, and stopped() says why in words; next() is false after it.
 // - A failed read (e.g. the path is a directory) ends the input: read_error() gives the errno,
 //   and a record that was cut short by it carries an error in words.
 // - When a record has several faults, its error names one, in this order: a failed read, an
@@ -63,6 +67,8 @@ struct Options {
     std::size_t max_cells = 4096;          ///< cells held per record
     char comment = '\0';                   ///< comment-line character, or '\0' for none
     bool strict_quotes = false;            ///< a '"' inside an unquoted cell is an error
+    std::size_t max_record_span = 0;       ///< bytes one record may span before reading stops (0: any)
+    std::size_t max_input_bytes = 0;       ///< bytes of input read at most (0: any)
 };
 
 /// Reads records one at a time from a stdio stream or from text in memory.
@@ -82,6 +88,8 @@ public:
     int read_error() const noexcept;
     /// The line the reader has reached: 1 + the number of line ends read so far.
     std::size_t line() const noexcept;
+    /// Empty, or why a limit (Options::max_record_span, max_input_bytes) stopped the reading.
+    const std::string& stopped() const noexcept;
 
 private:
     struct State;
@@ -91,6 +99,9 @@ private:
 /// A cell as written to CSV: quoted (with inner quotes doubled) when it holds a comma, a quote,
 /// a line break or leading/trailing blanks (space, tab); unchanged otherwise.
 RXNHEAT_API std::string quote(std::string_view cell);
+
+/// Appends the cell to `out` as quote() writes it, without a string of its own.
+RXNHEAT_API void append_cell(std::string& out, std::string_view cell);
 
 /// Appends cells joined by commas, each quoted as needed, and a line feed.
 RXNHEAT_API void append_row(std::string& out, const std::vector<std::string>& cells);
