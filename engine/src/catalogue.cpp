@@ -635,6 +635,11 @@ void read_cell(const Cell& c, const ArgSpec& a, const HostRules& rules, Bound::V
     }
     const bool number = c.kind == Cell::Kind::number;
     if (number && !std::isfinite(c.number)) bad(a, "is not a finite number");
+    // A denormal cell value (Calc computes one from =1E-300*1E-20) is what a text such as
+    // "1e-320" underflows to: refused in the same words the text gets, so every host agrees.
+    if (number && std::fpclassify(c.number) == FP_SUBNORMAL)
+        bad(a, "is a denormal number: it is closer to zero than a double can hold with its digits "
+               "(about 2.2e-308)");
     switch (a.kind) {
     case ArgKind::reaction:
     case ArgKind::species:

@@ -220,3 +220,32 @@ TEST_CASE("a number argument given as text that underflows says so", "[temperatu
     REQUIRE(small.ok());
     CHECK(small.number < 0);
 }
+
+TEST_CASE("a denormal number from a cell is refused as its text is", "[finite]") {
+    // Calc computes a denormal from =1E-300*1E-20 and hands it over as a number, where the command
+    // line hands "1e-320" over as text (refused above as underflowing): both hosts refuse it.
+    const double denormal = 1e-300 * 1e-20;
+    REQUIRE(std::fpclassify(denormal) == FP_SUBNORMAL);
+    const rxnheat::HostRules calc;  // numbers as numbers
+    const auto call = [&](const char* name, std::vector<rxnheat::Arg> args) {
+        const rxnheat::FunctionSpec* f = rxnheat::find_function(name);
+        REQUIRE(f);
+        return rxnheat::evaluate(*f, args, calc).single();
+    };
+    const auto r = rxnheat::Arg::of(std::string(CH4_COMB));
+    const auto load = call("RXNLOAD", {r, rxnheat::Arg::of(denormal), rxnheat::Arg::of(std::string("kmol")),
+                                       rxnheat::Arg::of(std::string("CH4"))});
+    INFO(load.text);
+    REQUIRE_FALSE(load.ok());
+    CHECK(contains(load.text, "denormal"));
+    CHECK(contains(load.text, "'quantity'"));
+    const auto source = call("RXNSOURCE", {r, rxnheat::Arg{}, rxnheat::Arg::of(denormal)});
+    INFO(source.text);
+    REQUIRE_FALSE(source.ok());
+    CHECK(contains(source.text, "denormal"));
+    // The smallest normal double is still a number.
+    const auto tiny = call("RXNLOAD", {r, rxnheat::Arg::of(DBL_MIN), rxnheat::Arg::of(std::string("kmol")),
+                                       rxnheat::Arg::of(std::string("CH4"))});
+    INFO(tiny.text);
+    CHECK(tiny.ok());
+}
