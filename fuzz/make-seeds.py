@@ -75,7 +75,7 @@ write("grammar", "long-4097", "H" * 4097)
 write("grammar", "many-terms", " + ".join(f"C{i}H{2*i+2}" for i in range(1, 200)) + " -> CO2")
 
 # engine: line 1 the function (and host flags), then one argument per line (fuzz_common.hpp).
-table_range = "|formula;phase;dHf;S;cp;name;source|XQ2;g;-12.5;200;30;quorvane gas;Hallistry Marsh Works demo row"
+table_range = "|formula;phase;dHf;S;cp;name;source|C9H7N3S2;g;-12.5;200;30;quorvane gas;Hallistry Marsh Works demo row"
 engine = [
     "RXNDH\nCH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)",
     "RXNDH\nCH4 + 2 O2 -> CO2 + 2 H2O\n350 C\nMJ/kg\nCH4",
@@ -97,7 +97,7 @@ engine = [
     "RXNLOAD\nCH4 + 2 O2 -> CO2 + 2 H2O\n=-1e300\nNm3/min\nO2\nkJ",
     "RXNKIND\nH2O(l) -> H2O(g)\n373.15\n=0.5",
     "RXNCHECK\nCH4 + O2 -> CO2 + H2O",
-    "RXNCHECK\nXQ2 -> X + Q2\n\n" + table_range,
+    "RXNCHECK\nC9H7N3S2 -> X + Q2\n\n" + table_range,
     "RXNBALANCE\nC3H8 + O2 -> CO2 + H2O",
     "RXNBALANCE\nKMnO4 + HCl -> KCl + MnCl2 + H2O + Cl2",
     "RXNBALANCE\nH2 + O2 -> H2O + H2O2",
@@ -108,7 +108,7 @@ engine = [
     "RXNWHY\nRXNDH\nCH4 + 2 O2 -> CO2 + 2 H2O\n350 X",
     "RXNWHY\nSPECIESCP\nQ2",
     "SPECIESHF\nCO2(g)\n1000 K\nkcal/mol",
-    "SPECIESHF\nXQ2(g)\n\n\n" + table_range,
+    "SPECIESHF\nC9H7N3S2(g)\n\n\n" + table_range,
     "SPECIESCP\nH2O(g)\n500",
     "SPECIESH\nFe\n1300\n298.15",
     "MOLARMASS\nCuSO4·5H2O",
@@ -140,28 +140,29 @@ for e in engine:
 
 # table: line 1 the reaction or species, line 2 the temperature, then the table as CSV.
 header_rows = [
-    "formula,phase,dHf\nXQ2,g,-12.5\n",
-    "formula,phase,dHf,S,cp,name,source\nXQ2,g,-12.5,200,30,quorvane gas,Hallistry Marsh Works demo row\n",
-    "phase,formula,dHf,S\ng,XQ2,-12.5,200\n",
-    "formula,phase,dHf,cp,S\nXQ2,g,-12.5,200,30\n",
-    "formula,phase,dHf,a,b,c,d,e,tmin,tmax\nXQ2,g,-12.5,30,1,0.1,0.01,0.1,200,1500\n",
-    "formula,phase,dHf,tmin,tmax\nXQ2,g,-12.5,200,1500\n",
-    "formula,phase,dHf\nXQ2,g,1e306\n",
-    "formula,phase,dHf,a,b,c,d,e,tmin,tmax\nXQ2,g,0,1e300,1e300,1e300,1e300,1e300,200,6000\n",
-    "formula,phase,dHf\nXQ2(g),g,-12.5\n",
-    "formula,phase,dHf\nXQ2,plasma,-12.5\n",
-    "formula,phase,dHf,dHf\nXQ2,g,-12.5,-13\n",
-    "formula,phase\nXQ2,g\n",
-    "formula,phase,dHf\nXQ2,g,abc\n",
-    "formula,phase,dHf\nXQ2,g,-12.5\nXQ2,l,-30\n",
-    "formula,phase,dHf\n\"XQ2\",\"g\",\"-12.5\"\n",
-    "formula,phase,dHf\nXQ2,g,\"-12.5\"x\n",
+    "formula,phase,dHf\nC9H7N3S2,g,-12.5\n",
+    "formula,phase,dHf,S,cp,name,source\nC9H7N3S2,g,-12.5,200,30,quorvane gas,Hallistry Marsh Works demo row\n",
+    "phase,formula,dHf,S\ng,C9H7N3S2,-12.5,200\n",
+    "formula,phase,dHf,cp,S\nC9H7N3S2,g,-12.5,200,30\n",
+    "formula,phase,dHf,a,b,c,d,e,tmin,tmax\nC9H7N3S2,g,-12.5,30,1,0.1,0.01,0.1,200,1500\n",
+    "formula,phase,dHf,tmin,tmax\nC9H7N3S2,g,-12.5,200,1500\n",
+    "formula,phase,dHf\nC9H7N3S2,g,1e306\n",
+    "formula,phase,dHf,a,b,c,d,e,tmin,tmax\nC9H7N3S2,g,0,1e300,1e300,1e300,1e300,1e300,200,6000\n",
+    "formula,phase,dHf\nC9H7N3S2(g),g,-12.5\n",
+    "formula,phase,dHf\nC9H7N3S2,plasma,-12.5\n",
+    "formula,phase,dHf,dHf\nC9H7N3S2,g,-12.5,-13\n",
+    "formula,phase\nC9H7N3S2,g\n",
+    "formula,phase,dHf\nC9H7N3S2,g,abc\n",
+    "formula,phase,dHf\nC9H7N3S2,g,-12.5\nC9H7N3S2,l,-30\n",
+    "formula,phase,dHf\n\"C9H7N3S2\",\"g\",\"-12.5\"\n",
+    "formula,phase,dHf\nC9H7N3S2,g,\"-12.5\"x\n",
     "formula,phase,dHf\r\nNa+,aq,-240.1\r\n",
     "formula,phase,dHf,name\nCH4,g,-74.6,quorvane marsh gas\n",
-    "formula,phase,dHf,cp,a\nXQ2,g,-12.5,30,30\n",
+    "formula,phase,dHf,cp,a\nC9H7N3S2,g,-12.5,30,30\n",
+    "formula,phase,dHf\nXQ2,g,-12.5\n",
 ]
-subjects = [("XQ2 -> X + Q2", ""), ("XQ2(g)", "500 K"), ("CH4 + 2 O2 -> CO2 + 2 H2O", "1000"),
-            ("quorvane gas", ""), ("Na+(aq) + Cl-(aq) -> NaCl(s)", ""), ("XQ2", "1e308")]
+subjects = [("C9H7N3S2 -> X + Q2", ""), ("C9H7N3S2(g)", "500 K"), ("CH4 + 2 O2 -> CO2 + 2 H2O", "1000"),
+            ("quorvane gas", ""), ("Na+(aq) + Cl-(aq) -> NaCl(s)", ""), ("C9H7N3S2", "1e308")]
 for i, t in enumerate(header_rows):
     s, temp = subjects[i % len(subjects)]
     text = f"{s}\n{temp}\n{t}"
