@@ -2,6 +2,8 @@
 """Writes the seed corpus of fuzz/corpus/ (grammar, engine, table): inputs from the syntax,
 the function catalogue and the user-table columns, good and bad. Findings saved by fuzzing are
 added to the corpus by hand (fuzz/corpus/*/finding-*) and are kept when this runs again.
+The other files (named by their SHA-1) are units that a fuzzing run found new coverage with,
+merged in with `fuzz_X -merge=1 fuzz/corpus/X RUN_DIR` (DEVELOPERS.md); this script leaves them.
 Run: python3 fuzz/make-seeds.py"""
 import hashlib
 import pathlib
