@@ -597,7 +597,11 @@ Substance Database::resolve_records(const grammar::Species& sp, std::vector<cons
     };
     std::vector<Group> groups;
     for (const Record* r : found) {
-        auto [base, tag] = base_and_tag(*r);
+        // Plain references into the pair, not a structured binding: a lambda may capture one
+        // only from C++20 on (GCC 12 accepts that in C++17, clang 14 refuses it).
+        const auto base_tag = base_and_tag(*r);
+        const std::string& base = base_tag.first;
+        const std::string& tag = base_tag.second;
         auto g = std::find_if(groups.begin(), groups.end(), [&](const Group& g) {
             return lower(g.base) == lower(base) && tags_compatible(g.tag, tag);
         });

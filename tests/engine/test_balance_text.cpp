@@ -26,7 +26,11 @@ TEST_CASE("balance gives the smallest whole numbers", "[behaviour][balance]") {
         {"MnO4- + Fe^2+ + H+ -> Mn^2+ + Fe^3+ + H2O", "MnO4- + 5 Fe^2+ + 8 H+ -> Mn^2+ + 5 Fe^3+ + 4 H2O"},
         {"Cr2O7^2- + Fe^2+ + H+ -> Cr^3+ + Fe^3+ + H2O", "Cr2O7^2- + 6 Fe^2+ + 14 H+ -> 2 Cr^3+ + 6 Fe^3+ + 7 H2O"},
     };
-    for (const auto& [in, expected] : cases) {
+    for (const auto& c : cases) {
+        // Named references rather than a structured binding, which a lambda may capture only
+        // from C++20 on (clang 14 refuses it in C++17).
+        const auto& in = c.first;
+        const auto& expected = c.second;
         auto o = attempt([&] { return eng().balance(in); });
         INFO(in << " -> " << o.text << o.message);
         CHECK(o.text == expected);  // hand-balanced by counting atoms and charge (see comment above)
