@@ -33,7 +33,7 @@ using detail::Substance;
 struct Engine::Impl {
     const Database& db;
     detail::PreparedCache cache;
-    explicit Impl(const EngineOptions& o) : db(Database::get()), cache(o.prepared_cache_entries) {}
+    explicit Impl(const EngineOptions& o) : db(Database::get()), cache(o.prepared_cache_entries, o.prepared_cache_bytes) {}
     std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table) {
         return detail::prepare(text, table, &cache);
     }

@@ -4,7 +4,7 @@
 #include "database.hpp"
 #include "rxnheat/rxnheat.hpp"
 
-#include <list>
+#include <cstdint>
 #include <memory>
 #include <mutex>
 #include <unordered_map>
@@ -21,6 +21,7 @@ struct Prepared {
     grammar::Reaction ast;
     std::vector<const grammar::Term*> terms;  ///< reactants then products
     std::vector<Rational> nu;                 ///< signed: reactants < 0, products > 0
+    std::vector<double> nu_double;            ///< nu as doubles, converted once (hot path)
     std::vector<Composition> compositions;    ///< per term (empty if composition_error)
     std::vector<std::string> composition_keys;  ///< Composition::key() per term, for matching `per`/`key`
     std::optional<Error> composition_error;   ///< a bad element symbol or unknown name
@@ -42,30 +43,37 @@ struct Prepared {
                              std::size_t* term_index) const;
 };
 
-/// Prepared reactions by (table fingerprint, exact text), least recently used first out. Owned
-/// by an Engine (Engine::Impl); thread-safe. A fingerprint match is confirmed on the table's
-/// content before a hit is used, so two tables can never share a result.
+/// Prepared reactions by (table fingerprint, exact text). Owned by an Engine (Engine::Impl);
+/// thread-safe and read-mostly: a hit takes a shared lock on one shard and changes nothing but
+/// atomics, so threads that evaluate cached reactions never wait for each other; a miss's insert
+/// takes that shard's exclusive lock. Eviction is CLOCK (second chance: an entry used since the
+/// hand last passed stays), bounded by entries and by estimated bytes.
+///
+/// User tables: an entry remembers its table by fingerprint and by a weak reference, so the cache
+/// never keeps a table alive; a hit needs the table's content to be the same (the same object, or
+/// equal identity text, engine/src/usertable.hpp), so two tables never share a result. Rows of a
+/// table that an entry's species use are held by the entry and counted once per shard in its bytes.
 class PreparedCache {
 public:
-    explicit PreparedCache(std::size_t capacity) : capacity_(capacity) {}
+    PreparedCache(std::size_t capacity_entries, std::size_t capacity_bytes);
+    ~PreparedCache();
+    PreparedCache(const PreparedCache&) = delete;
+    PreparedCache& operator=(const PreparedCache&) = delete;
     std::shared_ptr<const Prepared> find(std::string_view text, const SpeciesTable* table);
     void put(std::string_view text, const SpeciesTable* table, std::shared_ptr<const Prepared> value);
     CacheStats stats() const;
     void clear();
 
 private:
-    struct Entry {
-        std::string key;                                  ///< fingerprint (16 hex) + text
-        std::shared_ptr<const SpeciesTable::Impl> table;  ///< to confirm a fingerprint match
-        std::shared_ptr<const Prepared> value;
-    };
-    static std::string key_of(std::string_view text, const SpeciesTable* table);
-    std::size_t capacity_;
-    mutable std::mutex mutex_;
-    std::list<Entry> lru_;
-    std::unordered_map<std::string, std::list<Entry>::iterator> map_;
-    std::size_t hits_ = 0, misses_ = 0;
+    struct Shard;
+    std::size_t capacity_, capacity_bytes_;
+    std::vector<std::unique_ptr<Shard>> shards_;
+    Shard& shard_of(std::uint64_t hash) const;
 };
+
+/// Estimated bytes of a prepared reaction: its own parts (sizes and string capacities), not the
+/// user-table rows it refers to. Public for the tests of the cache's bound.
+std::size_t estimated_bytes(const Prepared& p);
 
 /// Parses and prepares (parse errors throw); through `cache` when one is given.
 std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table,

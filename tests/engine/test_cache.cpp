@@ -77,6 +77,15 @@ TEST_CASE("cache: no cell text forges another table's identity", "[cache][userta
     CHECK(s2.find("user species table row 3") != std::string::npos);
 }
 
+TEST_CASE("cache: a byte bound smaller than one entry caches nothing, and values stay right", "[cache][memory]") {
+    Engine e(rxnheat::EngineOptions{64, 100});
+    const double a = e.dh("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)");
+    CHECK(e.cache_stats().entries == 0);
+    CHECK(e.cache_stats().bytes == 0);
+    CHECK(e.dh("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)") == a);
+    CHECK(a == Engine::shared().dh("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)"));
+}
+
 TEST_CASE("cache: the same content in a new table object still hits", "[cache][usertable]") {
     Engine e(rxnheat::EngineOptions{64});
     const auto a = SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"XeF6", "g", "-279"}});
@@ -109,6 +118,12 @@ TEST_CASE("cache: memory stays bounded with multi-MB tables and hundreds of reac
             const std::string r2 = "Xe(g) +" + std::string(static_cast<std::size_t>(i + 1), ' ') + "F2(g) -> XeF2(g)";
             CHECK(e.dh(r2, {rxnheat::T_ref, &t5}) == Approx(-100).margin(1e-9));
         }
+        const auto stats = e.cache_stats();
+        INFO("cache: " << stats.entries << " entries, " << stats.bytes << " bytes (bound " << stats.byte_capacity << ")");
+        CHECK(stats.byte_capacity == std::size_t(32) << 20);  // EngineOptions' default
+        CHECK(stats.bytes <= stats.byte_capacity);
+        CHECK(stats.bytes > 0);
+        CHECK(stats.entries > 10);  // bounded, not emptied: small entries stay
         const std::size_t held = heap_in_use() - before;
         INFO("heap held by the engine with its cache: " << held << " bytes");
         // The table t5 itself (≈ 5 MiB of cells, kept twice: cells and identity) plus a cache
