@@ -81,6 +81,7 @@ void check_balance(Prepared& p) {
 static_assert(max_input_chars == grammar::max_input_characters, "one input-length limit");
 
 void check_input_text(std::string_view text, const char* what) {
+    if (text.size() <= max_input_chars) return;  // bytes >= characters: nothing to count
     std::size_t chars = 0;
     for (unsigned char c : text)
         if ((c & 0xC0) != 0x80) ++chars;
@@ -100,8 +101,73 @@ void Prepared::require_thermo() const {
     if (resolve_error) throw *resolve_error;
 }
 
+namespace {
+
+/// Prepared::segments for a reaction whose species are all NASA records of a written phase.
+void build_segments(Prepared& p) {
+    if (p.substances.empty()) return;
+    std::vector<double> ends;
+    for (const auto& s : p.substances) {
+        if (s.user || s.aqueous || s.phase_assumed || s.records.empty()) return;
+        for (const Record* r : s.records) {
+            if (r->intervals.empty()) return;
+            for (const auto& iv : r->intervals) {
+                ends.push_back(iv.tmin);
+                ends.push_back(iv.tmax);
+            }
+        }
+    }
+    std::sort(ends.begin(), ends.end());
+    ends.erase(std::unique(ends.begin(), ends.end()), ends.end());
+    // The intervals at one temperature, selecting records and intervals exactly as
+    // Substance::H does; false when some species has no data there (the per-species path then
+    // says so).
+    auto intervals_at = [&p](double T) {
+        for (const auto& s : p.substances) {
+            const Record* hit = nullptr;
+            for (const Record* r : s.records)
+                if (covers(*r, T)) {
+                    hit = r;
+                    break;
+                }
+            if (!hit) return false;
+            p.segment_intervals.push_back(&interval_at(*hit, T));
+        }
+        return true;
+    };
+    auto add = [&](double lo, double hi, double at) {
+        const std::size_t first = p.segment_intervals.size();
+        if (intervals_at(at)) p.segments.push_back({lo, hi, first});
+        else p.segment_intervals.resize(first);
+    };
+    for (std::size_t k = 0; k < ends.size(); ++k) {
+        add(ends[k], ends[k], ends[k]);
+        if (k + 1 < ends.size() && ends[k + 1] - ends[k] > 1e-5) {
+            const double lo = ends[k] + 2e-6, hi = ends[k + 1] - 2e-6;
+            add(lo, hi, 0.5 * (lo + hi));
+        }
+    }
+}
+
+}  // namespace
+
+const Prepared::Segment* Prepared::segment_at(double T) const noexcept {
+    if (std::fabs(T - T_ref) < 1e-9) return nullptr;  // tabulated ΔfH° there (Substance::H)
+    for (const auto& s : segments)
+        if (T >= s.lo_K && T <= s.hi_K) return &s;
+    return nullptr;
+}
+
 double Prepared::dH(double T) const {
     require_thermo();
+    if (has_dH_ref && T == T_ref) return dH_ref_J;
+    if (const Segment* g = segment_at(T)) {
+        const double lnT = std::log(T);
+        double h = 0;
+        for (std::size_t i = 0; i < terms.size(); ++i)
+            h += nu_double[i] * (h_over_RT(*segment_intervals[g->first + i], T, lnT) * R_nasa * T);
+        return h;
+    }
     double h = 0;
     for (std::size_t i = 0; i < terms.size(); ++i) h += nu_double[i] * substances[i].H(T);
     return h;
@@ -109,6 +175,13 @@ double Prepared::dH(double T) const {
 
 double Prepared::dS(double T) const {
     require_thermo();
+    if (const Segment* g = segment_at(T)) {
+        const double lnT = std::log(T);
+        double s = 0;
+        for (std::size_t i = 0; i < terms.size(); ++i)
+            s += nu_double[i] * (s_over_R(*segment_intervals[g->first + i], T, lnT) * R_nasa);
+        return s;
+    }
     double s = 0;
     for (std::size_t i = 0; i < terms.size(); ++i) s += nu_double[i] * substances[i].S(T);
     return s;
@@ -264,6 +337,7 @@ std::size_t estimated_bytes(const Prepared& p) {
     for (const auto* t : p.terms) n += species_bytes(t->species);
     n += p.terms.capacity() * sizeof(void*) + p.nu.capacity() * sizeof(Rational) +
          p.nu_double.capacity() * sizeof(double);
+    n += p.segments.capacity() * sizeof(Prepared::Segment) + p.segment_intervals.capacity() * sizeof(void*);
     n += p.compositions.capacity() * sizeof(Composition);
     for (const auto& c : p.compositions) {
         n += c.atoms.capacity() * sizeof(c.atoms[0]);
@@ -487,6 +561,15 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         check_balance(*p);
         try {
             for (const auto* t : p->terms) p->substances.push_back(db.resolve(t->species, table));
+            build_segments(*p);
+            if (!p->balance_error) {
+                try {
+                    p->dH_ref_J = p->dH(T_ref);
+                    p->has_dH_ref = true;
+                } catch (const Error&) {
+                    // no value at 298.15 K: each call says why
+                }
+            }
         } catch (const Error& e) {
             p->resolve_error = e;
             p->substances.clear();

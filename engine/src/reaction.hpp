@@ -4,6 +4,7 @@
 #include "database.hpp"
 #include "rxnheat/rxnheat.hpp"
 
+#include <array>
 #include <cstdint>
 #include <memory>
 #include <mutex>
@@ -28,6 +29,24 @@ struct Prepared {
     std::optional<Error> balance_error;       ///< unbalanced elements or charge
     std::vector<Substance> substances;        ///< per term (empty if resolve_error)
     std::optional<Error> resolve_error;       ///< no data, ambiguous, missing phase
+
+    /// Each species' NASA polynomial interval per temperature segment, found once when every
+    /// species is a NASA record of a written phase, so an evaluation searches no records and
+    /// takes one logarithm for all species (the same arithmetic as Substance::H and S, so the
+    /// same bits). A segment is an open stretch between the records' range and interval ends
+    /// (2e-6 K inside them, beyond the selection's 1e-6 K slack) or one such end exactly; any
+    /// other T (and 298.15 K, where tabulated ΔfH° are used) takes the per-species path, which
+    /// also gives every error.
+    struct Segment {
+        double lo_K, hi_K;
+        std::size_t first;  ///< intervals [first, first + terms.size()) of segment_intervals
+    };
+    std::vector<Segment> segments;
+    std::vector<const Interval*> segment_intervals;
+    const Segment* segment_at(double T) const noexcept;
+    /// ΔrH° at exactly 298.15 K (the default temperature), computed once by the per-species path.
+    bool has_dH_ref = false;
+    double dH_ref_J = 0;
 
     /// Throws the first error of the stages a function needs.
     void require_compositions() const;
