@@ -730,7 +730,7 @@ std::string Engine::check(std::string_view reaction, const Conditions& at) noexc
 }
 
 std::string Engine::balance(std::string_view reaction, const Conditions& at) {
-    return detail::balanced_text(*impl_->prepare(reaction, at.table));  // a table may name species
+    return impl_->prepare(reaction, at.table)->balanced();  // a table may name species
 }
 
 std::string Engine::reverse(std::string_view reaction) {

@@ -236,6 +236,18 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     return net;
 }
 
+std::string Prepared::balanced() const {
+    std::call_once(balanced_once_, [this] {
+        try {
+            balanced_text_ = balanced_text(*this);
+        } catch (const Error& e) {
+            balanced_error_ = e;
+        }
+    });
+    if (balanced_error_) throw *balanced_error_;
+    return balanced_text_;
+}
+
 std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
                           const std::vector<Rational>& product_coefs) {
     return side_text(r.reactants, reactant_coefs, nullptr, 0, T_ref) + " " + r.arrow + " " +
@@ -312,7 +324,7 @@ std::size_t species_bytes(const grammar::Species& sp) {
 }
 
 std::size_t error_bytes(const std::optional<Error>& e) {
-    return e ? std::char_traits<char>::length(e->what()) + 1 + sizeof(void*) * 4 : 0;
+    return e ? std::char_traits<char>::length(e->what()) + 1 + sizeof(void*) * 4 : 0;  // message + object
 }
 
 /// Bytes of a user-table row held by an entry (its strings can be long: a source cell).
@@ -476,7 +488,9 @@ void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::s
     e->fingerprint = fp;
     e->table_address = want;
     if (want) e->table = table->shared_impl();
-    e->bytes = sizeof(Shard::Entry) + string_bytes(e->text) + estimated_bytes(*value) + 4 * sizeof(void*);
+    // + room for the balanced text Prepared::balanced() may keep later (about the text's size).
+    e->bytes = sizeof(Shard::Entry) + string_bytes(e->text) + estimated_bytes(*value) + 4 * sizeof(void*) +
+               2 * text.size() + 64;
     e->value = std::move(value);
     const std::size_t n = shards_.size();
     const std::size_t max_entries = capacity_ / n, max_bytes = capacity_bytes_ / n;

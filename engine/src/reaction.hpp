@@ -48,6 +48,10 @@ struct Prepared {
     bool has_dH_ref = false;
     double dH_ref_J = 0;
 
+    /// balanced_text(*this), computed on first use and kept (the null space is the costly part
+    /// of RXNBALANCE; a sheet asks for the same reaction's balance again and again). Thread-safe.
+    std::string balanced() const;
+
     /// Throws the first error of the stages a function needs.
     void require_compositions() const;
     void require_thermo() const;              ///< compositions, balance and data
@@ -60,6 +64,11 @@ struct Prepared {
     /// and by phase when `key` has one). Throws when absent, netted to zero or ambiguous.
     Rational key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
                              std::size_t* term_index) const;
+
+private:
+    mutable std::once_flag balanced_once_;
+    mutable std::string balanced_text_;
+    mutable std::optional<Error> balanced_error_;
 };
 
 /// Prepared reactions by (table fingerprint, exact text). Owned by an Engine (Engine::Impl);

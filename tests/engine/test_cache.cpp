@@ -10,8 +10,10 @@
 
 #include <malloc.h>
 
+#include <atomic>
 #include <cstddef>
 #include <string>
+#include <thread>
 #include <vector>
 
 using rxnheat::Engine;
@@ -130,4 +132,49 @@ TEST_CASE("cache: memory stays bounded with multi-MB tables and hundreds of reac
         // within its 32 MiB default bound, plus allocator slack.
         CHECK(held < std::size_t(56) << 20);
     }
+}
+
+TEST_CASE("cache: threads hitting, missing and evicting give one thread's values", "[cache][threads]") {
+    // A small cache (eviction all the time) shared by 4 threads over 48 texts and 3 tables
+    // (two of the same content in different objects), against values from a cache-less engine.
+    Engine shared(rxnheat::EngineOptions{16});
+    Engine reference(rxnheat::EngineOptions{0});
+    const auto t1 = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-279", "300"}});
+    const auto t2 = SpeciesTable::from_rows({{"formula", "phase", "S", "dHf"}, {"XeF6", "g", "-279", "300"}});
+    const auto t1b = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-279", "300"}});
+    const SpeciesTable* tables[] = {nullptr, &t1, &t2, &t1b};
+    std::vector<std::string> texts;
+    for (int i = 0; i < 16; ++i) {
+        const std::string pad(static_cast<std::size_t>(i), ' ');
+        texts.push_back("CO(g) + H2O(g) ->" + pad + " CO2(g) + H2(g)");
+        texts.push_back("Xe(g) + 3 F2(g) ->" + pad + " XeF6(g)");
+        texts.push_back("N2(g) + 3 H2(g) ->" + pad + " 2 NH3(g)");
+    }
+    const double temps[] = {298.15, 500, 1000};
+    auto value = [](Engine& e, const std::string& r, double T, const SpeciesTable* t) {
+        try {
+            return std::to_string(e.dh(r, {T, t}));
+        } catch (const rxnheat::Error& err) {
+            return std::string(err.what());
+        }
+    };
+    std::vector<std::string> expected;
+    for (const auto& r : texts)
+        for (double T : temps)
+            for (const auto* t : tables) expected.push_back(value(reference, r, T, t));
+    std::atomic<int> mismatches{0};
+    std::vector<std::thread> pool;
+    for (int k = 0; k < 4; ++k)
+        pool.emplace_back([&, k] {
+            for (int n = 0; n < 3000; ++n) {
+                const std::size_t i = static_cast<std::size_t>(n * 7 + k * 13) % expected.size();
+                const std::size_t r = i / (3 * 4), T = (i / 4) % 3, t = i % 4;
+                if (value(shared, texts[r], temps[T], tables[t]) != expected[i]) ++mismatches;
+            }
+        });
+    for (auto& th : pool) th.join();
+    CHECK(mismatches.load() == 0);
+    const auto s = shared.cache_stats();
+    CHECK(s.entries <= 16);
+    CHECK(s.hits + s.misses == 12000);
 }
