@@ -516,6 +516,21 @@ void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::s
     s.evict(max_entries, max_bytes);  // may evict the new entry itself when it alone is too big
 }
 
+std::optional<PreparedCache::SpeciesMemo> PreparedCache::find_species(std::string_view written) const {
+    if (capacity_ == 0 || written.size() > 64) return std::nullopt;
+    std::shared_lock<std::shared_mutex> lock(species_mutex_);
+    const auto it = species_.find(std::string(written));
+    if (it == species_.end()) return std::nullopt;
+    return it->second;
+}
+
+void PreparedCache::put_species(std::string_view written, SpeciesMemo memo) {
+    if (capacity_ == 0 || written.size() > 64) return;
+    std::unique_lock<std::shared_mutex> lock(species_mutex_);
+    if (species_.size() >= species_memo_entries) species_.clear();
+    species_.emplace(std::string(written), std::move(memo));
+}
+
 CacheStats PreparedCache::stats() const {
     CacheStats out;
     out.capacity = capacity_;
@@ -531,6 +546,10 @@ CacheStats PreparedCache::stats() const {
 }
 
 void PreparedCache::clear() {
+    {
+        std::unique_lock<std::shared_mutex> lock(species_mutex_);
+        species_.clear();
+    }
     for (auto& s : shards_) {
         std::unique_lock<std::shared_mutex> lock(s->mutex);
         s->clock.clear();
@@ -561,10 +580,20 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     }
     for (const auto& n : p->nu) p->nu_double.push_back(to_double(n));
     const Database& db = Database::get();
+    // Species already resolved by this engine (no user table only: a table's rows come first).
+    const bool memo = cache && !(table && table->impl());
+    std::vector<std::optional<PreparedCache::SpeciesMemo>> known(p->terms.size());
+    if (memo)
+        for (std::size_t i = 0; i < p->terms.size(); ++i) known[i] = cache->find_species(p->terms[i]->species.written);
     try {
-        for (const auto* t : p->terms) {
-            p->compositions.push_back(db.composition(t->species, table));
-            p->composition_keys.push_back(p->compositions.back().key());
+        for (std::size_t i = 0; i < p->terms.size(); ++i) {
+            if (known[i]) {
+                p->compositions.push_back(known[i]->composition);
+                p->composition_keys.push_back(known[i]->composition_key);
+            } else {
+                p->compositions.push_back(db.composition(p->terms[i]->species, table));
+                p->composition_keys.push_back(p->compositions.back().key());
+            }
         }
     } catch (const Error& e) {
         p->composition_error = e;
@@ -574,7 +603,16 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     if (!p->composition_error) {
         check_balance(*p);
         try {
-            for (const auto* t : p->terms) p->substances.push_back(db.resolve(t->species, table));
+            for (std::size_t i = 0; i < p->terms.size(); ++i) {
+                if (known[i] && known[i]->substance) {
+                    p->substances.push_back(*known[i]->substance);
+                    continue;
+                }
+                p->substances.push_back(db.resolve(p->terms[i]->species, table));
+                if (memo)
+                    cache->put_species(p->terms[i]->species.written,
+                                       {p->compositions[i], p->composition_keys[i], p->substances.back()});
+            }
             build_segments(*p);
             if (!p->balance_error) {
                 try {

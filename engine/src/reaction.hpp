@@ -10,6 +10,7 @@
 #include <mutex>
 #include <unordered_map>
 #include <optional>
+#include <shared_mutex>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -92,11 +93,27 @@ public:
     CacheStats stats() const;
     void clear();
 
+    /// Species resolved without a user table, by their exact written text ("CH4(g)"): a sheet's
+    /// reactions share few species, so a new reaction text mostly finds its species here and
+    /// skips their composition and data look-ups. Only successes are kept (errors name positions
+    /// in the reaction); at most species_memo_entries species of at most 64 bytes of text each,
+    /// emptied when full. Thread-safe (read-mostly, as the cache).
+    struct SpeciesMemo {
+        Composition composition;
+        std::string composition_key;
+        std::optional<Substance> substance;  ///< empty when resolving failed (not kept)
+    };
+    static constexpr std::size_t species_memo_entries = 1024;
+    std::optional<SpeciesMemo> find_species(std::string_view written) const;
+    void put_species(std::string_view written, SpeciesMemo memo);
+
 private:
     struct Shard;
     std::size_t capacity_, capacity_bytes_;
     std::vector<std::unique_ptr<Shard>> shards_;
     Shard& shard_of(std::uint64_t hash) const;
+    mutable std::shared_mutex species_mutex_;
+    std::unordered_map<std::string, SpeciesMemo> species_;
 };
 
 /// Estimated bytes of a prepared reaction: its own parts (sizes and string capacities), not the
