@@ -90,6 +90,9 @@ const char* phase_word(char p) {
     }
 }
 
+
+}  // namespace
+
 bool covers(const Record& r, double T) {
     if (r.intervals.empty()) return std::fabs(T - r.t_single) < 0.005;
     return T >= r.tmin() - 1e-6 && T <= r.tmax() + 1e-6;
@@ -100,6 +103,8 @@ const Interval& interval_at(const Record& r, double T) {
         if (T <= iv.tmax + 1e-6) return iv;
     return r.intervals.back();
 }
+
+namespace {
 
 std::uint64_t fnv1a(std::string_view s, std::uint64_t h = 1469598103934665603ull) {
     for (unsigned char c : s) {

@@ -75,6 +75,13 @@ struct Substance {
     std::string source(double T = 298.15) const;  ///< one citation line, for the phase used at T
 };
 
+/// Whether a record's data cover T (its range, 1e-6 K of slack; a single-temperature record
+/// within 0.005 K of its temperature).
+bool covers(const Record& r, double T);
+/// The record's polynomial interval used at T: the first whose upper end (1e-6 K of slack) is
+/// at or above T. The record must have intervals.
+const Interval& interval_at(const Record& r, double T);
+
 /// Charge as written in labels: "+", "-", "^2+", "^3-"; empty for 0.
 std::string charge_suffix(int charge);
 

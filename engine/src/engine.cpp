@@ -34,7 +34,7 @@ using detail::Substance;
 struct Engine::Impl {
     const Database& db;
     detail::PreparedCache cache;
-    explicit Impl(const EngineOptions& o) : db(Database::get()), cache(o.prepared_cache_entries) {}
+    explicit Impl(const EngineOptions& o) : db(Database::get()), cache(o.prepared_cache_entries, o.prepared_cache_bytes) {}
     std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table) {
         return detail::prepare(text, table, &cache);
     }
@@ -794,7 +794,7 @@ std::string Engine::check(std::string_view reaction, const Conditions& at) noexc
 }
 
 std::string Engine::balance(std::string_view reaction, const Conditions& at) {
-    return detail::balanced_text(*impl_->prepare(reaction, at.table));  // a table may name species
+    return impl_->prepare(reaction, at.table)->balanced();  // a table may name species
 }
 
 std::string Engine::reverse(std::string_view reaction) {

@@ -329,16 +329,4 @@ double cp_over_R(const Interval& iv, double T) {
     return a[0] / (T * T) + a[1] / T + a[2] + T * (a[3] + T * (a[4] + T * (a[5] + T * a[6])));
 }
 
-double h_over_RT(const Interval& iv, double T) {
-    const auto& a = iv.a;
-    return -a[0] / (T * T) + a[1] * std::log(T) / T + a[2] +
-           T * (a[3] / 2 + T * (a[4] / 3 + T * (a[5] / 4 + T * a[6] / 5))) + iv.b[0] / T;
-}
-
-double s_over_R(const Interval& iv, double T) {
-    const auto& a = iv.a;
-    return -a[0] / (2 * T * T) - a[1] / T + a[2] * std::log(T) +
-           T * (a[3] + T * (a[4] / 2 + T * (a[5] / 3 + T * a[6] / 4))) + iv.b[1];
-}
-
 }  // namespace rxnheat::detail

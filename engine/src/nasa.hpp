@@ -3,6 +3,7 @@
 #pragma once
 
 #include <array>
+#include <cmath>
 #include <cstddef>
 #include <string>
 #include <string_view>
@@ -56,7 +57,19 @@ const Interval* find_interval(const Record& r, double T);
 
 /// Cp°/R, H°/(R·T) and S°/R of one interval at T (closed forms of TP-2002-211556 eqs. 1-3).
 double cp_over_R(const Interval& iv, double T);
-double h_over_RT(const Interval& iv, double T);
-double s_over_R(const Interval& iv, double T);
+/// The `lnT` forms take ln(T) from the caller, so a reaction's species share one logarithm
+/// (Prepared::dH); both forms give the same bits.
+inline double h_over_RT(const Interval& iv, double T, double lnT) {
+    const auto& a = iv.a;
+    return -a[0] / (T * T) + a[1] * lnT / T + a[2] +
+           T * (a[3] / 2 + T * (a[4] / 3 + T * (a[5] / 4 + T * a[6] / 5))) + iv.b[0] / T;
+}
+inline double h_over_RT(const Interval& iv, double T) { return h_over_RT(iv, T, std::log(T)); }
+inline double s_over_R(const Interval& iv, double T, double lnT) {
+    const auto& a = iv.a;
+    return -a[0] / (2 * T * T) - a[1] / T + a[2] * lnT +
+           T * (a[3] + T * (a[4] / 2 + T * (a[5] / 3 + T * a[6] / 4))) + iv.b[1];
+}
+inline double s_over_R(const Interval& iv, double T) { return s_over_R(iv, T, std::log(T)); }
 
 }  // namespace rxnheat::detail

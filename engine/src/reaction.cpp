@@ -10,10 +10,13 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
-#include <list>
-#include <set>
+#include <algorithm>
+#include <atomic>
+#include <deque>
+#include <functional>
 #include <map>
-#include <mutex>
+#include <set>
+#include <shared_mutex>
 #include <unordered_map>
 
 namespace rxnheat::detail {
@@ -127,6 +130,7 @@ void check_balance(Prepared& p) {
 static_assert(max_input_chars == grammar::max_input_characters, "one input-length limit");
 
 void check_input_text(std::string_view text, const char* what) {
+    if (text.size() <= max_input_chars) return;  // bytes >= characters: nothing to count
     std::size_t chars = 0;
     for (unsigned char c : text)
         if ((c & 0xC0) != 0x80) ++chars;
@@ -146,18 +150,92 @@ void Prepared::require_thermo() const {
     if (resolve_error) throw *resolve_error;
 }
 
+namespace {
+
+/// Prepared::segments for a reaction whose species are all NASA records of a written phase.
+void build_segments(Prepared& p) {
+    if (p.substances.empty()) return;
+    std::vector<double> ends;
+    for (const auto& s : p.substances) {
+        if (s.user || s.aqueous || s.phase_assumed || s.records.empty()) return;
+        for (const Record* r : s.records) {
+            if (r->intervals.empty()) return;
+            for (const auto& iv : r->intervals) {
+                ends.push_back(iv.tmin);
+                ends.push_back(iv.tmax);
+            }
+        }
+    }
+    std::sort(ends.begin(), ends.end());
+    ends.erase(std::unique(ends.begin(), ends.end()), ends.end());
+    // The intervals at one temperature, selecting records and intervals exactly as
+    // Substance::H does; false when some species has no data there (the per-species path then
+    // says so).
+    auto intervals_at = [&p](double T) {
+        for (const auto& s : p.substances) {
+            const Record* hit = nullptr;
+            for (const Record* r : s.records)
+                if (covers(*r, T)) {
+                    hit = r;
+                    break;
+                }
+            if (!hit) return false;
+            p.segment_intervals.push_back(&interval_at(*hit, T));
+        }
+        return true;
+    };
+    auto add = [&](double lo, double hi, double at) {
+        const std::size_t first = p.segment_intervals.size();
+        if (intervals_at(at)) p.segments.push_back({lo, hi, first});
+        else p.segment_intervals.resize(first);
+    };
+    for (std::size_t k = 0; k < ends.size(); ++k) {
+        add(ends[k], ends[k], ends[k]);
+        if (k + 1 < ends.size() && ends[k + 1] - ends[k] > 1e-5) {
+            const double lo = ends[k] + 2e-6, hi = ends[k + 1] - 2e-6;
+            add(lo, hi, 0.5 * (lo + hi));
+        }
+    }
+}
+
+}  // namespace
+
+const Prepared::Segment* Prepared::segment_at(double T) const noexcept {
+    if (std::fabs(T - T_ref) < 1e-9) return nullptr;  // tabulated ΔfH° there (Substance::H)
+    for (const auto& s : segments)
+        if (T >= s.lo_K && T <= s.hi_K) return &s;
+    return nullptr;
+}
+
 double Prepared::dH(double T) const {
     require_thermo();
+    if (has_dH_ref && T == T_ref) return dH_ref_J;
+    if (const Segment* g = segment_at(T)) {
+        const double lnT = std::log(T);
+        double h = 0;
+        for (std::size_t i = 0; i < terms.size(); ++i)
+            h += nu_double[i] * (h_over_RT(*segment_intervals[g->first + i], T, lnT) * R_nasa * T);
+        if (!std::isfinite(h)) not_finite_sum(*this, "ΔrH°", "J/mol", T, &Substance::H);
+        return h;
+    }
     double h = 0;
-    for (std::size_t i = 0; i < terms.size(); ++i) h += to_double(nu[i]) * substances[i].H(T);
+    for (std::size_t i = 0; i < terms.size(); ++i) h += nu_double[i] * substances[i].H(T);
     if (!std::isfinite(h)) not_finite_sum(*this, "ΔrH°", "J/mol", T, &Substance::H);
     return h;
 }
 
 double Prepared::dS(double T) const {
     require_thermo();
+    if (const Segment* g = segment_at(T)) {
+        const double lnT = std::log(T);
+        double s = 0;
+        for (std::size_t i = 0; i < terms.size(); ++i)
+            s += nu_double[i] * (s_over_R(*segment_intervals[g->first + i], T, lnT) * R_nasa);
+        if (!std::isfinite(s)) not_finite_sum(*this, "ΔrS°", "J/(mol·K)", T, &Substance::S);
+        return s;
+    }
     double s = 0;
-    for (std::size_t i = 0; i < terms.size(); ++i) s += to_double(nu[i]) * substances[i].S(T);
+    for (std::size_t i = 0; i < terms.size(); ++i) s += nu_double[i] * substances[i].S(T);
     if (!std::isfinite(s)) not_finite_sum(*this, "ΔrS°", "J/(mol·K)", T, &Substance::S);
     return s;
 }
@@ -183,7 +261,7 @@ double Prepared::dn_gas(double T) const {
     require_thermo();
     double n = 0;
     for (std::size_t i = 0; i < terms.size(); ++i)
-        if (substances[i].phase_at(T) == 'g') n += to_double(nu[i]);
+        if (substances[i].phase_at(T) == 'g') n += nu_double[i];
     return n;
 }
 
@@ -226,6 +304,18 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
         throw Error(ErrorKind::argument, "'" + key.written + "' appears on both sides with the same amount, so "
                                                              "nothing of it reacts or forms");
     return net;
+}
+
+std::string Prepared::balanced() const {
+    std::call_once(balanced_once_, [this] {
+        try {
+            balanced_text_ = balanced_text(*this);
+        } catch (const Error& e) {
+            balanced_error_ = e;
+        }
+    });
+    if (balanced_error_) throw *balanced_error_;
+    return balanced_text_;
 }
 
 std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
@@ -306,53 +396,256 @@ std::string balanced_text(const Prepared& prepared) {
                                  std::vector<Rational>(v.begin() + nl, v.end()));
 }
 
-std::string PreparedCache::key_of(std::string_view text, const SpeciesTable* table) {
-    char fp[17] = "0000000000000000";
-    if (table && table->impl())
-        std::snprintf(fp, sizeof fp, "%016llx", static_cast<unsigned long long>(table->fingerprint()));
-    std::string key(fp, 16);
-    key.append(text.data(), text.size());
-    return key;
+// ---- the cache ----------------------------------------------------------------------------------
+
+namespace {
+
+std::size_t string_bytes(const std::string& s) {
+    // Short strings live inside the object (counted by its sizeof); longer ones on the heap.
+    return s.capacity() > 15 ? s.capacity() + 1 : 0;
 }
+
+std::size_t species_bytes(const grammar::Species& sp) {
+    std::size_t n = string_bytes(sp.name) + string_bytes(sp.formula) + string_bytes(sp.phase) +
+                    string_bytes(sp.written) + sp.atoms.capacity() * sizeof(grammar::Atom);
+    for (const auto& a : sp.atoms) n += string_bytes(a.symbol);
+    return n;
+}
+
+std::size_t error_bytes(const std::optional<Error>& e) {
+    return e ? std::char_traits<char>::length(e->what()) + 1 + sizeof(void*) * 4 : 0;  // message + object
+}
+
+/// Bytes of a user-table row held by an entry (its strings can be long: a source cell).
+std::size_t user_row_bytes(const UserSpecies& u) {
+    return sizeof(UserSpecies) + string_bytes(u.formula) + string_bytes(u.name) + string_bytes(u.source) +
+           species_bytes(u.parsed);
+}
+
+std::uint64_t mix64(std::uint64_t x) {  // splitmix64's finaliser: spreads a fingerprint's bits
+    x ^= x >> 30;
+    x *= 0xbf58476d1ce4e5b9ull;
+    x ^= x >> 27;
+    x *= 0x94d049bb133111ebull;
+    return x ^ (x >> 31);
+}
+
+}  // namespace
+
+std::size_t estimated_bytes(const Prepared& p) {
+    std::size_t n = sizeof(Prepared) + string_bytes(p.ast.arrow);
+    n += (p.ast.reactants.capacity() + p.ast.products.capacity()) * sizeof(grammar::Term);
+    for (const auto* t : p.terms) n += species_bytes(t->species);
+    n += p.terms.capacity() * sizeof(void*) + p.nu.capacity() * sizeof(Rational) +
+         p.nu_double.capacity() * sizeof(double);
+    n += p.segments.capacity() * sizeof(Prepared::Segment) + p.segment_intervals.capacity() * sizeof(void*);
+    n += p.compositions.capacity() * sizeof(Composition);
+    for (const auto& c : p.compositions) {
+        n += c.atoms.capacity() * sizeof(c.atoms[0]);
+        for (const auto& a : c.atoms) n += string_bytes(a.first);
+    }
+    n += p.composition_keys.capacity() * sizeof(std::string);
+    for (const auto& k : p.composition_keys) n += string_bytes(k);
+    n += p.substances.capacity() * sizeof(Substance);
+    for (const auto& s : p.substances) {
+        n += string_bytes(s.label) + string_bytes(s.display) + s.composition.atoms.capacity() * sizeof(s.composition.atoms[0]);
+        for (const auto& a : s.composition.atoms) n += string_bytes(a.first);
+        n += (s.records.capacity() + s.candidates.capacity() + s.vapour.capacity()) * sizeof(void*);
+    }
+    return n + error_bytes(p.composition_error) + error_bytes(p.balance_error) + error_bytes(p.resolve_error);
+}
+
+struct PreparedCache::Shard {
+    struct Entry {
+        std::string text;
+        std::uint64_t hash = 0;
+        std::uint64_t fingerprint = 0;                    ///< of the table; 0: none
+        const SpeciesTable::Impl* table_address = nullptr;  ///< fast check only, never dereferenced
+        std::weak_ptr<const SpeciesTable::Impl> table;    ///< to confirm content; never keeps it alive
+        std::shared_ptr<const Prepared> value;
+        std::size_t bytes = 0;
+        mutable std::atomic<bool> used{false};            ///< CLOCK's reference bit
+    };
+    mutable std::shared_mutex mutex;
+    std::unordered_multimap<std::uint64_t, std::unique_ptr<Entry>> map;  ///< by hash
+    std::deque<Entry*> clock;                           ///< the hand takes from the front
+    std::unordered_map<const UserSpecies*, std::size_t> rows_held;  ///< row -> entries holding it
+    std::size_t bytes = 0;
+    std::atomic<std::size_t> hits{0}, misses{0};
+
+    /// Whether `e` was prepared for `text` with the table `want` (or its equal).
+    static bool matches(const Entry& e, std::string_view text, std::uint64_t fp, const SpeciesTable::Impl* want) {
+        if (e.fingerprint != fp || e.text != text) return false;
+        if (!want) return !e.table_address;
+        if (e.table_address == want && !e.table.expired()) return true;  // the same live table object
+        const auto held = e.table.lock();
+        return held && (held.get() == want || held->identity == want->identity);
+    }
+
+    void hold_rows(const Prepared& p, int delta) {
+        for (const auto& s : p.substances) {
+            if (!s.user) continue;
+            if (delta > 0) {
+                if (rows_held[s.user.get()]++ == 0) bytes += user_row_bytes(*s.user);
+            } else {
+                auto it = rows_held.find(s.user.get());
+                if (--it->second == 0) {
+                    bytes -= user_row_bytes(*s.user);
+                    rows_held.erase(it);
+                }
+            }
+        }
+    }
+
+    void erase(Entry* e) {
+        bytes -= e->bytes;
+        hold_rows(*e->value, -1);
+        auto range = map.equal_range(e->hash);
+        for (auto it = range.first; it != range.second; ++it)
+            if (it->second.get() == e) {
+                map.erase(it);
+                return;
+            }
+    }
+
+    /// CLOCK: evicts until within both bounds; an entry used since the hand's last pass gets a
+    /// second chance (at most one full turn of the hand clears every bit).
+    void evict(std::size_t max_entries, std::size_t max_bytes) {
+        while (!clock.empty() && (map.size() > max_entries || bytes > max_bytes)) {
+            Entry* e = clock.front();
+            clock.pop_front();
+            if (e->used.load(std::memory_order_relaxed)) {
+                e->used.store(false, std::memory_order_relaxed);
+                clock.push_back(e);
+                continue;
+            }
+            erase(e);
+        }
+    }
+};
+
+PreparedCache::PreparedCache(std::size_t capacity_entries, std::size_t capacity_bytes)
+    : capacity_(capacity_entries), capacity_bytes_(capacity_bytes) {
+    // Shards spread the shared lock's counter (one cache line written by every reader) over
+    // several lines when many threads read; a small cache keeps one shard so its bound is exact.
+    const std::size_t n = capacity_entries >= 1024 ? 8 : 1;
+    for (std::size_t i = 0; i < n; ++i) shards_.push_back(std::make_unique<Shard>());
+}
+
+PreparedCache::~PreparedCache() = default;
+
+PreparedCache::Shard& PreparedCache::shard_of(std::uint64_t hash) const {
+    return *shards_[(hash >> 56) % shards_.size()];
+}
+
+namespace {
+std::uint64_t key_hash(std::string_view text, std::uint64_t fingerprint) {
+    return std::hash<std::string_view>{}(text) ^ mix64(fingerprint);
+}
+}  // namespace
 
 std::shared_ptr<const Prepared> PreparedCache::find(std::string_view text, const SpeciesTable* table) {
     if (capacity_ == 0) return nullptr;
-    const std::string key = key_of(text, table);
     const SpeciesTable::Impl* want = table ? table->impl() : nullptr;
-    std::lock_guard<std::mutex> lock(mutex_);
-    auto it = map_.find(key);
-    if (it == map_.end() || (it->second->table.get() != want &&
-                             (!want || !it->second->table || it->second->table->identity != want->identity))) {
-        ++misses_;
-        return nullptr;
+    const std::uint64_t fp = want ? want->fingerprint : 0;
+    const std::uint64_t h = key_hash(text, fp);
+    Shard& s = shard_of(h);
+    {
+        std::shared_lock<std::shared_mutex> lock(s.mutex);
+        auto range = s.map.equal_range(h);
+        for (auto it = range.first; it != range.second; ++it) {
+            const auto& e = *it->second;
+            if (!Shard::matches(e, text, fp, want)) continue;
+            // Written only when not yet set: readers of a hot entry do not keep writing its line.
+            if (!e.used.load(std::memory_order_relaxed)) e.used.store(true, std::memory_order_relaxed);
+            s.hits.fetch_add(1, std::memory_order_relaxed);
+            return e.value;
+        }
     }
-    ++hits_;
-    lru_.splice(lru_.begin(), lru_, it->second);
-    return it->second->value;
+    s.misses.fetch_add(1, std::memory_order_relaxed);
+    return nullptr;
 }
 
 void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::shared_ptr<const Prepared> value) {
     if (capacity_ == 0) return;
-    std::string key = key_of(text, table);
-    std::lock_guard<std::mutex> lock(mutex_);
-    if (map_.count(key)) return;  // a colliding table keeps the first entry; the other is not cached
-    lru_.push_front({key, table ? table->shared_impl() : nullptr, std::move(value)});
-    map_.emplace(std::move(key), lru_.begin());
-    if (map_.size() > capacity_) {
-        map_.erase(lru_.back().key);
-        lru_.pop_back();
-    }
+    const SpeciesTable::Impl* want = table ? table->impl() : nullptr;
+    const std::uint64_t fp = want ? want->fingerprint : 0;
+    const std::uint64_t h = key_hash(text, fp);
+    auto e = std::make_unique<Shard::Entry>();
+    e->text.assign(text.data(), text.size());
+    e->hash = h;
+    e->fingerprint = fp;
+    e->table_address = want;
+    if (want) e->table = table->shared_impl();
+    // + room for the balanced text Prepared::balanced() may keep later (about the text's size).
+    e->bytes = sizeof(Shard::Entry) + string_bytes(e->text) + estimated_bytes(*value) + 4 * sizeof(void*) +
+               2 * text.size() + 64;
+    e->value = std::move(value);
+    const std::size_t n = shards_.size();
+    const std::size_t max_entries = capacity_ / n, max_bytes = capacity_bytes_ / n;
+    Shard& s = shard_of(h);
+    std::unique_lock<std::shared_mutex> lock(s.mutex);
+    auto range = s.map.equal_range(h);
+    for (auto it = range.first; it != range.second; ++it)
+        if (Shard::matches(*it->second, text, fp, want)) return;  // another thread put it first
+    // An entry for the same text and fingerprint whose table is gone (or is another table of the
+    // same fingerprint) can never hit again: replace it.
+    for (auto it = range.first; it != range.second; ++it)
+        if (it->second->fingerprint == fp && it->second->text == text) {
+            Shard::Entry* old = it->second.get();
+            s.clock.erase(std::find(s.clock.begin(), s.clock.end(), old));
+            s.erase(old);
+            break;
+        }
+    Shard::Entry* raw = e.get();
+    s.map.emplace(h, std::move(e));
+    s.clock.push_back(raw);
+    s.bytes += raw->bytes;
+    s.hold_rows(*raw->value, +1);
+    s.evict(max_entries, max_bytes);  // may evict the new entry itself when it alone is too big
+}
+
+std::optional<PreparedCache::SpeciesMemo> PreparedCache::find_species(std::string_view written) const {
+    if (capacity_ == 0 || written.size() > 64) return std::nullopt;
+    std::shared_lock<std::shared_mutex> lock(species_mutex_);
+    const auto it = species_.find(std::string(written));
+    if (it == species_.end()) return std::nullopt;
+    return it->second;
+}
+
+void PreparedCache::put_species(std::string_view written, SpeciesMemo memo) {
+    if (capacity_ == 0 || written.size() > 64) return;
+    std::unique_lock<std::shared_mutex> lock(species_mutex_);
+    if (species_.size() >= species_memo_entries) species_.clear();
+    species_.emplace(std::string(written), std::move(memo));
 }
 
 CacheStats PreparedCache::stats() const {
-    std::lock_guard<std::mutex> lock(mutex_);
-    return {map_.size(), capacity_, hits_, misses_};
+    CacheStats out;
+    out.capacity = capacity_;
+    out.byte_capacity = capacity_bytes_;
+    for (const auto& s : shards_) {
+        std::shared_lock<std::shared_mutex> lock(s->mutex);
+        out.entries += s->map.size();
+        out.bytes += s->bytes;
+        out.hits += s->hits.load(std::memory_order_relaxed);
+        out.misses += s->misses.load(std::memory_order_relaxed);
+    }
+    return out;
 }
 
 void PreparedCache::clear() {
-    std::lock_guard<std::mutex> lock(mutex_);
-    map_.clear();
-    lru_.clear();
+    {
+        std::unique_lock<std::shared_mutex> lock(species_mutex_);
+        species_.clear();
+    }
+    for (auto& s : shards_) {
+        std::unique_lock<std::shared_mutex> lock(s->mutex);
+        s->clock.clear();
+        s->map.clear();
+        s->rows_held.clear();
+        s->bytes = 0;
+    }
 }
 
 std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table, PreparedCache* cache) {
@@ -374,11 +667,22 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         p->terms.push_back(&t);
         p->nu.push_back(t.coefficient);
     }
+    for (const auto& n : p->nu) p->nu_double.push_back(to_double(n));
     const Database& db = Database::get();
+    // Species already resolved by this engine (no user table only: a table's rows come first).
+    const bool memo = cache && !(table && table->impl());
+    std::vector<std::optional<PreparedCache::SpeciesMemo>> known(p->terms.size());
+    if (memo)
+        for (std::size_t i = 0; i < p->terms.size(); ++i) known[i] = cache->find_species(p->terms[i]->species.written);
     try {
-        for (const auto* t : p->terms) {
-            p->compositions.push_back(db.composition(t->species, table));
-            p->composition_keys.push_back(p->compositions.back().key());
+        for (std::size_t i = 0; i < p->terms.size(); ++i) {
+            if (known[i]) {
+                p->compositions.push_back(known[i]->composition);
+                p->composition_keys.push_back(known[i]->composition_key);
+            } else {
+                p->compositions.push_back(db.composition(p->terms[i]->species, table));
+                p->composition_keys.push_back(p->compositions.back().key());
+            }
         }
     } catch (const Error& e) {
         p->composition_error = e;
@@ -391,7 +695,23 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         // first), so it is not looked up: a long unbalanced input costs its parse only.
         if (!p->balance_error) {
             try {
-                for (const auto* t : p->terms) p->substances.push_back(db.resolve(t->species, table));
+                for (std::size_t i = 0; i < p->terms.size(); ++i) {
+                    if (known[i] && known[i]->substance) {
+                        p->substances.push_back(*known[i]->substance);
+                        continue;
+                    }
+                    p->substances.push_back(db.resolve(p->terms[i]->species, table));
+                    if (memo)
+                        cache->put_species(p->terms[i]->species.written,
+                                           {p->compositions[i], p->composition_keys[i], p->substances.back()});
+                }
+                build_segments(*p);
+                try {
+                    p->dH_ref_J = p->dH(T_ref);
+                    p->has_dH_ref = true;
+                } catch (const Error&) {
+                    // no value at 298.15 K: each call says why
+                }
             } catch (const Error& e) {
                 p->resolve_error = e;
                 p->substances.clear();

@@ -4,11 +4,13 @@
 #include "database.hpp"
 #include "rxnheat/rxnheat.hpp"
 
-#include <list>
+#include <array>
+#include <cstdint>
 #include <memory>
 #include <mutex>
 #include <unordered_map>
 #include <optional>
+#include <shared_mutex>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -21,12 +23,35 @@ struct Prepared {
     grammar::Reaction ast;
     std::vector<const grammar::Term*> terms;  ///< reactants then products
     std::vector<Rational> nu;                 ///< signed: reactants < 0, products > 0
+    std::vector<double> nu_double;            ///< nu as doubles, converted once (hot path)
     std::vector<Composition> compositions;    ///< per term (empty if composition_error)
     std::vector<std::string> composition_keys;  ///< Composition::key() per term, for matching `per`/`key`
     std::optional<Error> composition_error;   ///< a bad element symbol or unknown name
     std::optional<Error> balance_error;       ///< unbalanced elements or charge
     std::vector<Substance> substances;        ///< per term (empty if resolve_error)
     std::optional<Error> resolve_error;       ///< no data, ambiguous, missing phase
+
+    /// Each species' NASA polynomial interval per temperature segment, found once when every
+    /// species is a NASA record of a written phase, so an evaluation searches no records and
+    /// takes one logarithm for all species (the same arithmetic as Substance::H and S, so the
+    /// same bits). A segment is an open stretch between the records' range and interval ends
+    /// (2e-6 K inside them, beyond the selection's 1e-6 K slack) or one such end exactly; any
+    /// other T (and 298.15 K, where tabulated ΔfH° are used) takes the per-species path, which
+    /// also gives every error.
+    struct Segment {
+        double lo_K, hi_K;
+        std::size_t first;  ///< intervals [first, first + terms.size()) of segment_intervals
+    };
+    std::vector<Segment> segments;
+    std::vector<const Interval*> segment_intervals;
+    const Segment* segment_at(double T) const noexcept;
+    /// ΔrH° at exactly 298.15 K (the default temperature), computed once by the per-species path.
+    bool has_dH_ref = false;
+    double dH_ref_J = 0;
+
+    /// balanced_text(*this), computed on first use and kept (the null space is the costly part
+    /// of RXNBALANCE; a sheet asks for the same reaction's balance again and again). Thread-safe.
+    std::string balanced() const;
 
     /// Throws the first error of the stages a function needs.
     void require_compositions() const;
@@ -40,6 +65,11 @@ struct Prepared {
     /// and by phase when `key` has one). Throws when absent, netted to zero or ambiguous.
     Rational key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
                              std::size_t* term_index) const;
+
+private:
+    mutable std::once_flag balanced_once_;
+    mutable std::string balanced_text_;
+    mutable std::optional<Error> balanced_error_;
 };
 
 /// Throws Error(argument) for a sum Σ νᵢ·value(T) over the reaction's species that is not finite,
@@ -47,30 +77,53 @@ struct Prepared {
 [[noreturn]] void not_finite_sum(const Prepared& p, const char* quantity, const char* unit, double T,
                                  double (Substance::*value)(double) const);
 
-/// Prepared reactions by (table fingerprint, exact text), least recently used first out. Owned
-/// by an Engine (Engine::Impl); thread-safe. A fingerprint match is confirmed on the table's
-/// content before a hit is used, so two tables can never share a result.
+/// Prepared reactions by (table fingerprint, exact text). Owned by an Engine (Engine::Impl);
+/// thread-safe and read-mostly: a hit takes a shared lock on one shard and changes nothing but
+/// atomics, so threads that evaluate cached reactions never wait for each other; a miss's insert
+/// takes that shard's exclusive lock. Eviction is CLOCK (second chance: an entry used since the
+/// hand last passed stays), bounded by entries and by estimated bytes.
+///
+/// User tables: an entry remembers its table by fingerprint and by a weak reference, so the cache
+/// never keeps a table alive; a hit needs the table's content to be the same (the same object, or
+/// equal identity text, engine/src/usertable.hpp), so two tables never share a result. Rows of a
+/// table that an entry's species use are held by the entry and counted once per shard in its bytes.
 class PreparedCache {
 public:
-    explicit PreparedCache(std::size_t capacity) : capacity_(capacity) {}
+    PreparedCache(std::size_t capacity_entries, std::size_t capacity_bytes);
+    ~PreparedCache();
+    PreparedCache(const PreparedCache&) = delete;
+    PreparedCache& operator=(const PreparedCache&) = delete;
     std::shared_ptr<const Prepared> find(std::string_view text, const SpeciesTable* table);
     void put(std::string_view text, const SpeciesTable* table, std::shared_ptr<const Prepared> value);
     CacheStats stats() const;
     void clear();
 
-private:
-    struct Entry {
-        std::string key;                                  ///< fingerprint (16 hex) + text
-        std::shared_ptr<const SpeciesTable::Impl> table;  ///< to confirm a fingerprint match
-        std::shared_ptr<const Prepared> value;
+    /// Species resolved without a user table, by their exact written text ("CH4(g)"): a sheet's
+    /// reactions share few species, so a new reaction text mostly finds its species here and
+    /// skips their composition and data look-ups. Only successes are kept (errors name positions
+    /// in the reaction); at most species_memo_entries species of at most 64 bytes of text each,
+    /// emptied when full. Thread-safe (read-mostly, as the cache).
+    struct SpeciesMemo {
+        Composition composition;
+        std::string composition_key;
+        std::optional<Substance> substance;  ///< empty when resolving failed (not kept)
     };
-    static std::string key_of(std::string_view text, const SpeciesTable* table);
-    std::size_t capacity_;
-    mutable std::mutex mutex_;
-    std::list<Entry> lru_;
-    std::unordered_map<std::string, std::list<Entry>::iterator> map_;
-    std::size_t hits_ = 0, misses_ = 0;
+    static constexpr std::size_t species_memo_entries = 1024;
+    std::optional<SpeciesMemo> find_species(std::string_view written) const;
+    void put_species(std::string_view written, SpeciesMemo memo);
+
+private:
+    struct Shard;
+    std::size_t capacity_, capacity_bytes_;
+    std::vector<std::unique_ptr<Shard>> shards_;
+    Shard& shard_of(std::uint64_t hash) const;
+    mutable std::shared_mutex species_mutex_;
+    std::unordered_map<std::string, SpeciesMemo> species_;
 };
+
+/// Estimated bytes of a prepared reaction: its own parts (sizes and string capacities), not the
+/// user-table rows it refers to. Public for the tests of the cache's bound.
+std::size_t estimated_bytes(const Prepared& p);
 
 /// Parses and prepares (parse errors throw); through `cache` when one is given.
 std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table,

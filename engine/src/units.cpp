@@ -286,6 +286,20 @@ const std::string& quantity_known_text() {
 
 // The factor of a per-mole or per-mass energy unit; `per_mass` tells which.
 double energy_factor(std::string_view unit_text, bool& per_mass) {
+    // Fast path, no string built: the empty text and a unit written exactly as named (no unit
+    // name has spaces, so normalise() leaves each unchanged and this finds what it would find).
+    if (unit_text.empty()) {
+        per_mass = false;
+        return find(molar_units, "kJ/mol")->factor;
+    }
+    if (const Named* u = find(molar_units, unit_text)) {
+        per_mass = false;
+        return u->factor;
+    }
+    if (const Named* u = find(mass_units, unit_text)) {
+        per_mass = true;
+        return u->factor;
+    }
     const std::string unit = normalise(unit_text);
     const std::string_view name = unit.empty() ? std::string_view("kJ/mol") : std::string_view(unit);
     if (const Named* u = find(molar_units, name)) {
@@ -334,6 +348,11 @@ double to_J_per_mol(double value, std::string_view unit, std::optional<double> m
 }
 
 double from_J_per_molK(double J_per_molK, std::string_view unit_text) {
+    // Fast path as in energy_factor(): a unit written exactly as named needs no normalising.
+    if (const Named* u = unit_text.empty() ? find(entropy_units, "J/(mol\xC2\xB7K)") : find(entropy_units, unit_text)) {
+        require_finite(J_per_molK, "the value");
+        return J_per_molK / u->factor;
+    }
     const std::string unit = normalise(unit_text);
     const std::string_view name = unit.empty() ? std::string_view("J/(mol\xC2\xB7K)") : std::string_view(unit);
     const Named* u = find(entropy_units, name);

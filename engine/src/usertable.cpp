@@ -153,10 +153,12 @@ SpeciesTable SpeciesTable::from_rows(const std::vector<std::vector<std::string>>
     for (std::size_t i = 1; i < rows.size(); ++i) {
         const auto& r = rows[i];
         const std::size_t row = i + 1;
+        // Blank rows count too: they move the numbers of the rows below, which messages and
+        // sources cite, so a table with one is not the table without it.
+        add_row_identity(r);
         bool blank = true;
         for (const auto& c : r) blank = blank && trim(c).empty();
         if (blank) continue;
-        add_row_identity(r);
         auto u = std::make_shared<UserSpecies>();
         u->row = row;
         const std::string formula = cell(r, "formula");

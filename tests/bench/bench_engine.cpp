@@ -5,11 +5,21 @@
 //          the engine's cache of prepared reactions misses.
 //  cached  the same text again and again: the cache hits and only the evaluation at T runs.
 //  load, balance, check, species_h: typical cell functions on cached text.
+//  floor   what a cached evaluation cannot avoid, measured in the same run for the ratios
+//          (scripts/bench): `floor/hash_lookup` finds the reaction text in a hash table of 4,096
+//          texts (hash the text, compare it once: a cache hit can do no less), and
+//          `floor/nasa_4_species` evaluates four NASA 7-term H°/RT polynomials (one shared ln T) and
+//          sums them with coefficients (the arithmetic ΔrH° of a four-species reaction needs
+//          when each species keeps its own data). Their sum is the floor of a cached dh.
 #include <benchmark/benchmark.h>
 
 #include <rxnheat/rxnheat.hpp>
 
+#include <cmath>
 #include <cstddef>
+#include <functional>
+#include <string_view>
+#include <unordered_map>
 #include <string>
 #include <utility>
 #include <vector>
@@ -146,7 +156,47 @@ void BM_molar_mass(benchmark::State& state) {
     state.SetItemsProcessed(state.iterations());
 }
 
+void BM_floor_hash_lookup(benchmark::State& state) {
+    // 4,096 distinct texts of the typical length (the engine cache's default entry count).
+    const auto& texts = unique_texts("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)");
+    std::unordered_map<std::string_view, double> table;
+    for (std::size_t k = 0; k < 4096; ++k) table.emplace(texts[k], static_cast<double>(k));
+    const std::string text = texts[123];
+    for (auto _ : state) {
+        benchmark::DoNotOptimize(text.data());
+        const auto it = table.find(std::string_view(text));
+        benchmark::DoNotOptimize(it->second);
+    }
+    state.SetItemsProcessed(state.iterations());
+}
+
+void BM_floor_nasa_4_species(benchmark::State& state) {
+    // H°/RT = -a1/T² + a2 ln(T)/T + a3 + a4 T/2 + a5 T²/3 + a6 T³/4 + a7 T⁴/5 + b1/T (NASA 7-term
+    // form, NASA/TP-2002-211556). The coefficient values do not change the time; these are
+    // arbitrary numbers of the usual magnitudes, not data.
+    double a[4][8];
+    for (int i = 0; i < 4; ++i)
+        for (int j = 0; j < 8; ++j) a[i][j] = (j + 1) * 0.37 * (i + 1) * std::pow(10.0, -3.0 * (j > 2 ? j - 2 : 0));
+    const double nu[4] = {-1, -2, 1, 2};
+    double T = 1000;
+    for (auto _ : state) {
+        benchmark::DoNotOptimize(T);
+        double h = 0;
+        const double lnT = std::log(T);  // one logarithm shared by the species
+        for (int i = 0; i < 4; ++i) {
+            const double* c = a[i];
+            const double hrt = -c[0] / (T * T) + c[1] * lnT / T + c[2] +
+                               T * (c[3] / 2 + T * (c[4] / 3 + T * (c[5] / 4 + T * c[6] / 5))) + c[7] / T;
+            h += nu[i] * hrt * 8.31446261815324 * T;
+        }
+        benchmark::DoNotOptimize(h);
+    }
+    state.SetItemsProcessed(state.iterations());
+}
+
 int register_all() {
+    benchmark::RegisterBenchmark("floor/hash_lookup", BM_floor_hash_lookup);
+    benchmark::RegisterBenchmark("floor/nasa_4_species", BM_floor_nasa_4_species);
     for (const auto& r : typical) {
         benchmark::RegisterBenchmark((std::string("cold_dh/") + r.name).c_str(), BM_cold_dh, &r);
         benchmark::RegisterBenchmark((std::string("cached_dh/") + r.name).c_str(), BM_cached_dh, &r);

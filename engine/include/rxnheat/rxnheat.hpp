@@ -141,10 +141,14 @@ RXNHEAT_API const char* to_string(HeatKind kind) noexcept;
 /// Sizes of an engine's own caches (prepared reactions), for tests and hosts that watch memory.
 struct EngineOptions {
     std::size_t prepared_cache_entries = 4096;  ///< 0: no cache
+    /// Bound on the cache's own memory (an estimate from its parts' sizes: texts, syntax trees,
+    /// resolved species and the user-table rows they hold; tables are never kept alive by it).
+    std::size_t prepared_cache_bytes = std::size_t(32) << 20;
 };
 struct CacheStats {
     std::size_t entries = 0, capacity = 0;
     std::size_t hits = 0, misses = 0;
+    std::size_t bytes = 0, byte_capacity = 0;  ///< estimated bytes held, and the bound
 };
 
 /// Where one number came from, for RXNSOURCE and --json "sources".

@@ -1,0 +1,180 @@
+// The cache of prepared reactions and user tables (issue 10, item 1): a result is never shared
+// between two tables unless their content is the same, no cell text can forge another table's
+// identity, and the cache's memory stays within a byte bound however large the tables are.
+//
+// Row values are our own test values (invented rows for XeF6; elements are 0 by definition), so
+// each expected number is the table's own cell, not a value from an outside source.
+#include <catch2/catch.hpp>
+
+#include "rxnheat/rxnheat.hpp"
+
+#include <malloc.h>
+
+#include <atomic>
+#include <cstddef>
+#include <string>
+#include <thread>
+#include <vector>
+
+using rxnheat::Engine;
+using rxnheat::SpeciesTable;
+
+namespace {
+const char* const XEF6 = "Xe(g) + 3 F2(g) -> XeF6(g)";
+
+// Bytes the allocator has handed out and not taken back (glibc: small blocks plus mmapped ones).
+std::size_t heap_in_use() {
+    const struct mallinfo2 m = mallinfo2();
+    return m.uordblks + m.hblkhd;
+}
+}  // namespace
+
+TEST_CASE("cache: a header renamed (S to cp) is another table", "[cache][usertable]") {
+    Engine e(rxnheat::EngineOptions{64});
+    const auto with_s = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-279", "300"}});
+    const auto with_cp = SpeciesTable::from_rows({{"formula", "phase", "dHf", "cp"}, {"XeF6", "g", "-279", "300"}});
+    // ΔrS° with the S column: the row's S minus the built-in Xe(g) and F2(g) (NASA Glenn).
+    const double ds = e.ds(XEF6, {rxnheat::T_ref, &with_s});
+    CHECK(ds < 300);  // 300 J/(mol·K) minus the reactants' entropies
+    // The same cells under "cp": the row gives no entropy, so ΔrS° is an error, not the first
+    // table's number.
+    CHECK_THROWS_AS(e.ds(XEF6, {rxnheat::T_ref, &with_cp}), rxnheat::Error);
+    CHECK(e.ds(XEF6, {rxnheat::T_ref, &with_s}) == ds);
+}
+
+TEST_CASE("cache: columns swapped are another table", "[cache][usertable]") {
+    Engine e(rxnheat::EngineOptions{64});
+    const auto a = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-279", "300"}});
+    const auto b = SpeciesTable::from_rows({{"formula", "phase", "S", "dHf"}, {"XeF6", "g", "-279", "300"}});
+    CHECK(e.dh(XEF6, {rxnheat::T_ref, &a}) == Approx(-279).margin(1e-9));
+    CHECK(e.dh(XEF6, {rxnheat::T_ref, &b}) == Approx(300).margin(1e-9));
+    CHECK(e.dh(XEF6, {rxnheat::T_ref, &a}) == Approx(-279).margin(1e-9));
+}
+
+TEST_CASE("cache: no cell text forges another table's identity", "[cache][usertable]") {
+    Engine e(rxnheat::EngineOptions{64});
+    // The cells joined without separators read the same ("XeF6g-279300") in both tables.
+    const auto a = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-279", "300"}});
+    const auto b = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-27", "9300"}});
+    CHECK(e.dh(XEF6, {rxnheat::T_ref, &a}) == Approx(-279).margin(1e-9));
+    CHECK(e.dh(XEF6, {rxnheat::T_ref, &b}) == Approx(-27).margin(1e-9));
+    // Joined with commas and line ends, a cell holding ",", a line end or a length prefix would
+    // read as other cells: here a name cell "x\n4:XeF6" against a row that really has those cells.
+    const auto c = SpeciesTable::from_rows(
+        {{"formula", "phase", "dHf", "name"}, {"XeF6", "g", "-279", "x\n4:XeF6,1:g,4:-100,0:"}});
+    const auto d = SpeciesTable::from_rows(
+        {{"formula", "phase", "dHf", "name"}, {"XeF6", "g", "-279", "x"}, {"XeF6", "g", "-100", ""}});
+    CHECK(c.fingerprint() != d.fingerprint());
+    CHECK(e.dh(XEF6, {rxnheat::T_ref, &c}) == Approx(-279).margin(1e-9));
+    // d has XeF6(g) twice; the first row wins (engine/DATA.md, User tables)
+    CHECK(e.source(XEF6, {rxnheat::T_ref, &d}).find("row 2") != std::string::npos);
+    // A blank row between the header and a row moves the row's number (which the messages and
+    // sources cite): the two tables are not the same table.
+    const auto one = SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"XeF6", "g", "-279"}});
+    const auto two = SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"", "", ""}, {"XeF6", "g", "-279"}});
+    const std::string s1 = e.source(XEF6, {rxnheat::T_ref, &one});
+    const std::string s2 = e.source(XEF6, {rxnheat::T_ref, &two});
+    INFO(s1 << "\n" << s2);
+    CHECK(s1.find("user species table row 2") != std::string::npos);
+    CHECK(s2.find("user species table row 3") != std::string::npos);
+}
+
+TEST_CASE("cache: a byte bound smaller than one entry caches nothing, and values stay right", "[cache][memory]") {
+    Engine e(rxnheat::EngineOptions{64, 100});
+    const double a = e.dh("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)");
+    CHECK(e.cache_stats().entries == 0);
+    CHECK(e.cache_stats().bytes == 0);
+    CHECK(e.dh("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)") == a);
+    CHECK(a == Engine::shared().dh("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)"));
+}
+
+TEST_CASE("cache: the same content in a new table object still hits", "[cache][usertable]") {
+    Engine e(rxnheat::EngineOptions{64});
+    const auto a = SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"XeF6", "g", "-279"}});
+    const double first = e.dh(XEF6, {rxnheat::T_ref, &a});
+    const auto a2 = SpeciesTable::from_rows({{"formula", "phase", "dHf"}, {"XeF6", "g", "-279"}});
+    const std::size_t hits = e.cache_stats().hits;
+    CHECK(e.dh(XEF6, {rxnheat::T_ref, &a2}) == first);
+    CHECK(e.cache_stats().hits == hits + 1);
+}
+
+TEST_CASE("cache: memory stays bounded with multi-MB tables and hundreds of reactions", "[cache][memory]") {
+    // 200 tables of 1 MiB each (a long source cell), each used for one reaction and then dropped
+    // by the caller: the cache must not keep them alive.
+    const std::string big(std::size_t(1) << 20, 's');
+    const std::size_t before = heap_in_use();
+    {
+        Engine e(rxnheat::EngineOptions{4096});
+        for (int i = 0; i < 200; ++i) {
+            const auto t = SpeciesTable::from_rows(
+                {{"formula", "phase", "dHf", "source"}, {"XeF6", "g", std::to_string(-200 - i), big}});
+            CHECK(e.dh(XEF6, {rxnheat::T_ref, &t}) == Approx(-200 - i).margin(1e-9));
+        }
+        // One table of ≈ 5 MB (5 long source cells) and 300 distinct reactions on it.
+        std::vector<std::vector<std::string>> rows{{"formula", "phase", "dHf", "source"}};
+        for (int k = 0; k < 5; ++k) rows.push_back({"XeF" + std::to_string(k + 1), "g", std::to_string(-50 * (k + 1)), big});
+        const auto t5 = SpeciesTable::from_rows(rows);
+        for (int i = 0; i < 300; ++i) {
+            const std::string r = "Xe(g) +" + std::string(static_cast<std::size_t>(i + 1), ' ') + "3 F2(g) -> XeF6(g)";
+            CHECK_THROWS_AS(e.dh(r, {rxnheat::T_ref, &t5}), rxnheat::Error);  // XeF6 is not in t5
+            const std::string r2 = "Xe(g) +" + std::string(static_cast<std::size_t>(i + 1), ' ') + "F2(g) -> XeF2(g)";
+            CHECK(e.dh(r2, {rxnheat::T_ref, &t5}) == Approx(-100).margin(1e-9));
+        }
+        const auto stats = e.cache_stats();
+        INFO("cache: " << stats.entries << " entries, " << stats.bytes << " bytes (bound " << stats.byte_capacity << ")");
+        CHECK(stats.byte_capacity == std::size_t(32) << 20);  // EngineOptions' default
+        CHECK(stats.bytes <= stats.byte_capacity);
+        CHECK(stats.bytes > 0);
+        CHECK(stats.entries > 10);  // bounded, not emptied: small entries stay
+        const std::size_t held = heap_in_use() - before;
+        INFO("heap held by the engine with its cache: " << held << " bytes");
+        // The table t5 itself (≈ 5 MiB of cells, kept twice: cells and identity) plus a cache
+        // within its 32 MiB default bound, plus allocator slack.
+        CHECK(held < std::size_t(56) << 20);
+    }
+}
+
+TEST_CASE("cache: threads hitting, missing and evicting give one thread's values", "[cache][threads]") {
+    // A small cache (eviction all the time) shared by 4 threads over 48 texts and 3 tables
+    // (two of the same content in different objects), against values from a cache-less engine.
+    Engine shared(rxnheat::EngineOptions{16});
+    Engine reference(rxnheat::EngineOptions{0});
+    const auto t1 = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-279", "300"}});
+    const auto t2 = SpeciesTable::from_rows({{"formula", "phase", "S", "dHf"}, {"XeF6", "g", "-279", "300"}});
+    const auto t1b = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S"}, {"XeF6", "g", "-279", "300"}});
+    const SpeciesTable* tables[] = {nullptr, &t1, &t2, &t1b};
+    std::vector<std::string> texts;
+    for (int i = 0; i < 16; ++i) {
+        const std::string pad(static_cast<std::size_t>(i), ' ');
+        texts.push_back("CO(g) + H2O(g) ->" + pad + " CO2(g) + H2(g)");
+        texts.push_back("Xe(g) + 3 F2(g) ->" + pad + " XeF6(g)");
+        texts.push_back("N2(g) + 3 H2(g) ->" + pad + " 2 NH3(g)");
+    }
+    const double temps[] = {298.15, 500, 1000};
+    auto value = [](Engine& e, const std::string& r, double T, const SpeciesTable* t) {
+        try {
+            return std::to_string(e.dh(r, {T, t}));
+        } catch (const rxnheat::Error& err) {
+            return std::string(err.what());
+        }
+    };
+    std::vector<std::string> expected;
+    for (const auto& r : texts)
+        for (double T : temps)
+            for (const auto* t : tables) expected.push_back(value(reference, r, T, t));
+    std::atomic<int> mismatches{0};
+    std::vector<std::thread> pool;
+    for (int k = 0; k < 4; ++k)
+        pool.emplace_back([&, k] {
+            for (int n = 0; n < 3000; ++n) {
+                const std::size_t i = static_cast<std::size_t>(n * 7 + k * 13) % expected.size();
+                const std::size_t r = i / (3 * 4), T = (i / 4) % 3, t = i % 4;
+                if (value(shared, texts[r], temps[T], tables[t]) != expected[i]) ++mismatches;
+            }
+        });
+    for (auto& th : pool) th.join();
+    CHECK(mismatches.load() == 0);
+    const auto s = shared.cache_stats();
+    CHECK(s.entries <= 16);
+    CHECK(s.hits + s.misses == 12000);
+}
