@@ -60,7 +60,6 @@ struct IntColumns {
 // Four primes below 2^31: products of two residues fit 64 bits, and together they give a modulus
 // above 2^123, enough to rebuild any fraction whose numerator and denominator are below 2^61.
 constexpr std::uint64_t primes[] = {2147483647u, 2147483629u, 2147483587u, 2147483579u};
-constexpr std::size_t n_primes = sizeof primes / sizeof primes[0];
 
 struct ModEchelon {
     std::vector<std::size_t> pivots;  // pivot column of row i, in order
