@@ -138,45 +138,39 @@ def main():
         off.install_extension(args.oxt)
         off.stop()
         off = officelib.Office(workdir, "demo", log=quiet).start()
-        doc = off.load(args.workbook)
-        if doc is None:
-            raise officelib.OfficeError("LibreOffice could not open %s" % args.workbook)
-        doc.calculateAll()
-        sheet = named(doc, "LoadTable").getSpreadsheet()
-        print(sheet.getCellRangeByName("A1").getString())
-        print(sheet.getCellRangeByName("A2").getString())
-        print()
-        lines, good = table_text(doc)
-        for text in lines:
-            print("  " + text)
-        print()
-        for label, name in (("Heat to supply (endothermic)", "HeatToSupply"),
-                            ("Heat to remove (exothermic)", "HeatToRemove")):
-            print("  %-30s %12s kW" % (label, named(doc, name).getString()))
-        print("  %-30s %12s EUR/yr  (at %s h/yr, example prices)" % (
-            "Total utility cost", named(doc, "TotalCost").getString(),
-            named(doc, "OperatingHours").getString()))
-        print()
-        print("  Screening estimates: standard state, ideal gas, complete conversion, reaction")
-        print("  heat only. Runaway and relief sizing need calorimetry and a process hazard")
-        print("  analysis; defer to local codes and licensed engineers.")
-        doc.storeToURL(officelib.file_url(pdf),
-                       (officelib.prop("FilterName", "calc_pdf_Export"),))
-        doc.close(True)
+        with off.opened(args.workbook) as doc:
+            doc.calculateAll()
+            sheet = named(doc, "LoadTable").getSpreadsheet()
+            print(sheet.getCellRangeByName("A1").getString())
+            print(sheet.getCellRangeByName("A2").getString())
+            print()
+            lines, good = table_text(doc)
+            for text in lines:
+                print("  " + text)
+            print()
+            for label, name in (("Heat to supply (endothermic)", "HeatToSupply"),
+                                ("Heat to remove (exothermic)", "HeatToRemove")):
+                print("  %-30s %12s kW" % (label, named(doc, name).getString()))
+            print("  %-30s %12s EUR/yr  (at %s h/yr, example prices)" % (
+                "Total utility cost", named(doc, "TotalCost").getString(),
+                named(doc, "OperatingHours").getString()))
+            print()
+            print("  Screening estimates: standard state, ideal gas, complete conversion, reaction")
+            print("  heat only. Runaway and relief sizing need calorimetry and a process hazard")
+            print("  analysis; defer to local codes and licensed engineers.")
+            doc.storeToURL(officelib.file_url(pdf),
+                           (officelib.prop("FilterName", "calc_pdf_Export"),))
         pdfs = [pdf]
         for workbook, lines in ((args.furnace, FURNACE_LINES), (args.duty, DUTY_LINES)):
-            doc = off.load(workbook)
-            if doc is None:
-                raise officelib.OfficeError("LibreOffice could not open %s" % workbook)
-            doc.calculateAll()
-            print()
-            print(doc.Sheets.getByIndex(0).getCellRangeByName("A1").getString())
-            text, ok = results_text(doc, lines)
-            for t in text:
-                print(t)
-            good = good and ok
-            pdfs.append(export_pdf(doc, args.out, workbook))
-            doc.close(True)
+            with off.opened(workbook) as doc:
+                doc.calculateAll()
+                print()
+                print(doc.Sheets.getByIndex(0).getCellRangeByName("A1").getString())
+                text, ok = results_text(doc, lines)
+                for t in text:
+                    print(t)
+                good = good and ok
+                pdfs.append(export_pdf(doc, args.out, workbook))
         print()
         print("  The same cautions hold for the furnace and the duty: screening estimates, not")
         print("  a design; the steam figures are IAPWS-IF97 properties of real water.")

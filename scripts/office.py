@@ -5,6 +5,7 @@ Each Office runs with its own throw-away profile (-env:UserInstallation) in its 
 group, listens on a private pipe, and is killed (the whole group) when stopped or when anything
 goes wrong. Needs the system Python with the `uno` module (Debian: python3-uno).
 """
+import contextlib
 import os
 import shutil
 import signal
@@ -143,6 +144,18 @@ class Office:
     def load(self, path):
         return self.desktop.loadComponentFromURL(file_url(path), "_blank", 0,
                                                  (prop("Hidden", True),))
+
+    @contextlib.contextmanager
+    def opened(self, path):
+        """The document at `path`, closed (unsaved) when the block ends, however it ends; an
+        OfficeError if the office cannot open it."""
+        doc = self.load(path)
+        if doc is None:
+            raise OfficeError("LibreOffice could not open %s" % path)
+        try:
+            yield doc
+        finally:
+            doc.close(True)
 
     # --- extensions -----------------------------------------------------------------------
     def extension_manager(self):

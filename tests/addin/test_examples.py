@@ -231,8 +231,7 @@ def check_common(checks, name, path, doc, sheet, formula_cells, words=CAUTION_WO
 # ------------------------------------------------------------------------------------------
 def check_costing(checks, office, path, cli):
     name = "costing"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         table = rng(doc, "LoadTable")
         sheet = table.getSpreadsheet()
         rows = table.Rows.Count
@@ -351,15 +350,12 @@ def check_costing(checks, office, path, cli):
                   table.getCellByPosition(8, 0).getError() == ERR_ILLEGAL_ARGUMENT)
         checks.ok("costing: ... and the total is an error too, not a smaller number",
                   rng(doc, "TotalCost").getError() != 0)
-    finally:
-        doc.close(True)
 
 
 # ------------------------------------------------------------------------------------------
 def check_operator(checks, office, path, cli):
     name = "operator"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         inputs = ["Reaction", "KeySpecies", "Feed", "FeedUnit", "InletTemperature"]
         results = ["Status", "ReactionEnthalpy", "Kind", "HeatLoad", "HeatReleased", "Sources",
                    "Version"]
@@ -445,8 +441,6 @@ def check_operator(checks, office, path, cli):
                   status() == "the feed must be greater than zero")
         rng(doc, "Feed").setValue(feed)
         checks.ok("operator: good inputs again -> ok", status() == "ok", status())
-    finally:
-        doc.close(True)
 
 
 # ------------------------------------------------------------------------------------------
@@ -456,8 +450,7 @@ ZERO_CELSIUS_K = 273.15
 
 def check_design(checks, office, path, cli):
     name = "design"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         table = rng(doc, "DesignTable")
         reactions_rng = rng(doc, "DesignReactions")
         temps_rng = rng(doc, "DesignTemperatures")
@@ -598,15 +591,12 @@ def check_design(checks, office, path, cli):
         others = [cell_number(table.getCellByPosition(c, r)) for r in range(n_r)
                   for c in range(n_t - 1)]
         checks.ok("design: ... and the other columns are still numbers", None not in others)
-    finally:
-        doc.close(True)
 
 
 # ------------------------------------------------------------------------------------------
 def check_hess(checks, office, path, cli):
     name = "hess"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         sheet = doc.Sheets.getByName("Hess")
         steps = rng(doc, "HessSteps")
         values = rng(doc, "HessStepValues")
@@ -678,14 +668,11 @@ def check_hess(checks, office, path, cli):
                   first_dh.getString())
         checks.ok("hess: the status says why", "do not cancel" in first_status.getString(),
                   first_status.getString())
-    finally:
-        doc.close(True)
 
 
 def check_neutralisation(checks, office, path, cli):
     name = "neutralisation"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         inputs = ["Reaction", "Acid", "AcidCharge", "AcidStrength", "AcidProtons", "Base",
                   "BaseCharge", "BaseStrength", "BaseHydroxides", "BatchMass", "BatchCp",
                   "StartTemperature", "RiseLimit"]
@@ -838,8 +825,6 @@ def check_neutralisation(checks, office, path, cli):
                 rng(doc, cell).setValue(old)
         checks.ok("neutralisation: good inputs again -> ok", calc("Status") == "ok",
                   calc("Status"))
-    finally:
-        doc.close(True)
 
 
 # ------------------------------------------------------------------------------------------
@@ -869,8 +854,7 @@ def ammonia_conversion(log10_k, feed, pressure_bar):
 
 def check_equilibrium(checks, office, path, cli):
     name = "equilibrium"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         temps_rng = rng(doc, "EqTemperatures")
         conv = rng(doc, "EqConversion")
         heat = rng(doc, "EqHeat")
@@ -994,8 +978,6 @@ def check_equilibrium(checks, office, path, cli):
         checks.ok("equilibrium: ... the other pressure still computed",
                   all(cell_number(conv.getCellByPosition(1, r)) is not None
                       for r in range(n_t)))
-    finally:
-        doc.close(True)
 
 
 # ------------------------------------------------------------------------------------------
@@ -1045,8 +1027,7 @@ def iapws97():
 
 def check_furnace(checks, office, path, cli):
     name = "furnace"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         results = ["HHVVolume", "LHVVolume", "HHVMass", "LHVMass", "LHVMolar", "AnalysisStatus",
                    "FiredHeat", "FuelVolumeFlow", "FuelMassFlow", "FuelMolarFlow",
                    "AirMolarFlow", "FuelReaction", "FuelReactionCheck", "StoichO2",
@@ -1258,14 +1239,11 @@ def check_furnace(checks, office, path, cli):
         doc.calculateAll()
         checks.rel("furnace: inputs restored -> the same flame temperature",
                    num("FlameTemperatureK"), t_ad, 1e-12)
-    finally:
-        doc.close(True)
 
 
 def check_duty(checks, office, path, cli):
     name = "duty"
-    doc = office.load(path)
-    try:
+    with office.opened(path) as doc:
         results = ["KeyFed", "KeyConverted", "ReactionHeat", "Duty", "SensibleHeat",
                    "DutyStatus", "SteamTsat", "SteamLatent", "SteamFlow", "SteamFromFeedWater",
                    "SteamCheck", "CoolingWater", "CoolingWaterByCp"]
@@ -1389,8 +1367,6 @@ def check_duty(checks, office, path, cli):
         rng(doc, "SteamPressure").setString(header)
         doc.calculateAll()
         checks.rel("duty: inputs restored -> the same duty", num("Duty"), duty, 1e-12)
-    finally:
-        doc.close(True)
 
 
 def main():
