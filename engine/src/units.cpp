@@ -288,28 +288,21 @@ const std::string& quantity_known_text() {
 double energy_factor(std::string_view unit_text, bool& per_mass) {
     // Fast path, no string built: the empty text and a unit written exactly as named (no unit
     // name has spaces, so normalise() leaves each unchanged and this finds what it would find).
-    if (unit_text.empty()) {
-        per_mass = false;
-        return find(molar_units, "kJ/mol")->factor;
-    }
-    if (const Named* u = find(molar_units, unit_text)) {
-        per_mass = false;
-        return u->factor;
-    }
-    if (const Named* u = find(mass_units, unit_text)) {
-        per_mass = true;
-        return u->factor;
-    }
+    const auto look_up = [&per_mass](std::string_view name) -> const Named* {
+        if (const Named* u = find(molar_units, name)) {
+            per_mass = false;
+            return u;
+        }
+        if (const Named* u = find(mass_units, name)) {
+            per_mass = true;
+            return u;
+        }
+        return nullptr;
+    };
+    if (const Named* u = look_up(unit_text.empty() ? std::string_view("kJ/mol") : unit_text)) return u->factor;
     const std::string unit = normalise(unit_text);
     const std::string_view name = unit.empty() ? std::string_view("kJ/mol") : std::string_view(unit);
-    if (const Named* u = find(molar_units, name)) {
-        per_mass = false;
-        return u->factor;
-    }
-    if (const Named* u = find(mass_units, name)) {
-        per_mass = true;
-        return u->factor;
-    }
+    if (const Named* u = look_up(name)) return u->factor;
     std::string hint;
     add_case_hint(hint, molar_units, name);
     add_case_hint(hint, mass_units, name);
