@@ -549,8 +549,8 @@ Text ascii_digits(const Text& s) {
 /// "0.5" for fractions with a terminating decimal, else "a/b".
 std::string rational_text(const Rational& r) {
     using boost::multiprecision::cpp_int;
-    cpp_int const num = boost::multiprecision::numerator(r);
-    cpp_int const den = boost::multiprecision::denominator(r);
+    cpp_int const num = numerator(r);
+    cpp_int const den = denominator(r);
     cpp_int d = den;
     int twos = 0, fives = 0;
     while (d % 2 == 0) d /= 2, ++twos;

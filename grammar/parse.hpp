@@ -3,7 +3,7 @@
 // phases, arrows); it knows nothing of thermodynamics or of which element symbols exist.
 #pragma once
 
-#include <boost/multiprecision/cpp_int.hpp>
+#include "grammar/rational.hpp"
 
 #include <cstddef>
 #include <stdexcept>
@@ -12,8 +12,6 @@
 #include <vector>
 
 namespace rxnheat::grammar {
-
-using Rational = boost::multiprecision::cpp_rational;
 
 /// One element symbol occurrence, counts multiplied out through groups and hydrate parts.
 struct Atom {
