@@ -5,6 +5,7 @@
 #include "usertable.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <cstdio>
 #include <limits>
@@ -20,12 +21,7 @@ std::string lower(std::string_view s) {
     return out;
 }
 
-std::string rational_text(const Rational& r) {
-    using boost::multiprecision::denominator;
-    using boost::multiprecision::numerator;
-    if (denominator(r) == 1) return numerator(r).str();
-    return numerator(r).str() + "/" + denominator(r).str();
-}
+std::string rational_text(const Rational& r) { return r.str(); }  // "n" or "n/d", as cpp_rational writes it
 
 double to_double(const Rational& r) { return r.convert_to<double>(); }
 
@@ -39,16 +35,32 @@ Rational rational_from_count(double x) {
 
 /// Exact: each element's count as a rational ("H2 O1", "C1/3"), never a formatted decimal, so
 /// that only equal compositions share a key (H2O0.9999999 is not water).
-std::string key_of(std::vector<std::pair<std::string, Rational>> atoms, int charge) {
-    std::sort(atoms.begin(), atoms.end(), [](const auto& a, const auto& b) { return a.first < b.first; });
-    std::string key;
-    for (std::size_t i = 0; i < atoms.size(); ++i) {
-        Rational n = atoms[i].second;
-        while (i + 1 < atoms.size() && atoms[i + 1].first == atoms[i].first) n += atoms[++i].second;
-        if (n == 0) continue;
-        key += atoms[i].first + rational_text(n) + " ";
+std::string key_of(const std::vector<std::pair<std::string, Rational>>& atoms, int charge) {
+    // Sorted by symbol through indices (no copy of the symbols or counts: keys are built for
+    // every term of every new reaction).
+    std::array<std::uint16_t, 64> small_order;
+    std::vector<std::uint16_t> large_order;
+    std::uint16_t* order = small_order.data();
+    if (atoms.size() > small_order.size()) {
+        large_order.resize(atoms.size());
+        order = large_order.data();
     }
-    key += "|q" + std::to_string(charge);
+    for (std::size_t i = 0; i < atoms.size(); ++i) order[i] = static_cast<std::uint16_t>(i);
+    std::stable_sort(order, order + atoms.size(),
+                     [&](std::uint16_t a, std::uint16_t b) { return atoms[a].first < atoms[b].first; });
+    std::string key;
+    key.reserve(atoms.size() * 6 + 8);
+    for (std::size_t i = 0; i < atoms.size(); ++i) {
+        const auto& [symbol, count] = atoms[order[i]];
+        Rational n = count;
+        while (i + 1 < atoms.size() && atoms[order[i + 1]].first == symbol) n += atoms[order[++i]].second;
+        if (n == 0) continue;
+        key += symbol;
+        key += n.str();
+        key += ' ';
+    }
+    key += "|q";
+    key += std::to_string(charge);
     return key;
 }
 

@@ -80,7 +80,7 @@ double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view 
     std::size_t idx = 0;
     const Rational nu = p.key_coefficient(key, table, T, &idx);
     const double n = std::fabs(detail::to_double(nu));
-    return detail::from_J_per_mol(J_per_mol / n, unit, p.substances[idx].molar_mass);
+    return detail::from_J_per_mol(J_per_mol / n, unit, p.substances[idx]->molar_mass);
 }
 
 /// Decimal text with an exponent ("1e-7", "2.5E+3", "+4e2"), read exactly; nullopt when the text
@@ -319,7 +319,7 @@ double Engine::load(std::string_view reaction, double quantity, std::string_view
     std::size_t idx = 0;
     const double nu = std::fabs(detail::to_double(p->key_coefficient(sp, at.table, at.temperature_K, &idx)));
     const auto qu = detail::quantity_unit(quantity_unit);
-    const double mol = detail::quantity_to_mol(quantity, quantity_unit, p->substances[idx].molar_mass);
+    const double mol = detail::quantity_to_mol(quantity, quantity_unit, p->substances[idx]->molar_mass);
     return detail::load_result(dH * mol / nu, result_unit, qu.is_rate(), quantity_unit);
 }
 
@@ -349,10 +349,10 @@ std::vector<StreamSpecies> reaction_species(const Prepared& p, double T, std::ve
     std::vector<StreamSpecies> sp;
     group.assign(p.terms.size(), 0);
     for (std::size_t i = 0; i < p.terms.size(); ++i) {
-        const std::string id = p.substances[i].identity();
+        const std::string id = p.substances[i]->identity();
         std::size_t g = 0;
         while (g < sp.size() && sp[g].substance.identity() != id) ++g;
-        if (g == sp.size()) sp.push_back({p.substances[i], p.substances[i].display_at(T), 0, 0, false});
+        if (g == sp.size()) sp.push_back({*p.substances[i], p.substances[i]->display_at(T), 0, 0, false});
         sp[g].nu += detail::to_double(p.nu[i]);
         group[i] = g;
     }
@@ -379,7 +379,7 @@ void add_feed(std::vector<StreamSpecies>& sp, std::size_t reacting, const Prepar
         std::size_t match = reacting;
         for (std::size_t i = 0; i < p.terms.size(); ++i) {
             if (p.composition_keys[i] != want) continue;
-            if (want_phase && p.substances[i].phase_at(T) != want_phase) continue;
+            if (want_phase && p.substances[i]->phase_at(T) != want_phase) continue;
             if (match != reacting && match != group[i])
                 throw Error(ErrorKind::argument, std::string("the ") + what + " species '" + item.species +
                                                      "' fits more than one species of the reaction (" +
@@ -888,7 +888,8 @@ ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {
     r.canonical = p->canonical(T);
     r.kind = kind_of(r.dH_kJ_per_mol, default_tolerance_kJ_per_mol);
     std::set<std::string> seen;
-    for (const auto& s : p->substances) {
+    for (const auto& sp : p->substances) {
+        const Substance& s = *sp;
         if (!seen.insert(s.identity()).second) continue;
         r.sources.push_back({s.display_at(T), record_name(s, T), s.source(T)});
     }
@@ -975,7 +976,7 @@ std::string Engine::source(std::string_view text, const Conditions& at) {
         p->require_thermo();
         std::set<std::string> seen;
         for (const auto& s : p->substances)
-            if (seen.insert(s.identity()).second) out += s.source(at.temperature_K) + "\n";
+            if (seen.insert(s->identity()).second) out += s->source(at.temperature_K) + "\n";
     } else {
         out += resolve_one(text, table).source(at.temperature_K) + "\n";
     }

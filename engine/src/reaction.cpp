@@ -26,12 +26,12 @@ namespace {
 Error from_parse_error(const grammar::ParseError& e) { return Error(ErrorKind::syntax, e.what()); }
 
 std::string side_text(const std::vector<grammar::Term>& terms, const std::vector<Rational>& coefs,
-                      const std::vector<Substance>* resolved, std::size_t offset, double T) {
+                      const std::vector<std::shared_ptr<const Substance>>* resolved, std::size_t offset, double T) {
     std::string out;
     for (std::size_t i = 0; i < terms.size(); ++i) {
         if (i) out += " + ";
         if (coefs[i] != 1) out += rational_text(coefs[i]) + " ";
-        out += resolved ? (*resolved)[offset + i].display_at(T) : terms[i].species.written;
+        out += resolved ? (*resolved)[offset + i]->display_at(T) : terms[i].species.written;
     }
     return out;
 }
@@ -156,7 +156,8 @@ namespace {
 void build_segments(Prepared& p) {
     if (p.substances.empty()) return;
     std::vector<double> ends;
-    for (const auto& s : p.substances) {
+    for (const auto& sp : p.substances) {
+        const Substance& s = *sp;
         if (s.user || s.aqueous || s.phase_assumed || s.records.empty()) return;
         for (const Record* r : s.records) {
             if (r->intervals.empty()) return;
@@ -172,7 +173,8 @@ void build_segments(Prepared& p) {
     // Substance::H does; false when some species has no data there (the per-species path then
     // says so).
     auto intervals_at = [&p](double T) {
-        for (const auto& s : p.substances) {
+        for (const auto& sp : p.substances) {
+        const Substance& s = *sp;
             const Record* hit = nullptr;
             for (const Record* r : s.records)
                 if (covers(*r, T)) {
@@ -219,7 +221,7 @@ double Prepared::dH(double T) const {
         return h;
     }
     double h = 0;
-    for (std::size_t i = 0; i < terms.size(); ++i) h += nu_double[i] * substances[i].H(T);
+    for (std::size_t i = 0; i < terms.size(); ++i) h += nu_double[i] * substances[i]->H(T);
     if (!std::isfinite(h)) not_finite_sum(*this, "ΔrH°", "J/mol", T, &Substance::H);
     return h;
 }
@@ -235,7 +237,7 @@ double Prepared::dS(double T) const {
         return s;
     }
     double s = 0;
-    for (std::size_t i = 0; i < terms.size(); ++i) s += nu_double[i] * substances[i].S(T);
+    for (std::size_t i = 0; i < terms.size(); ++i) s += nu_double[i] * substances[i]->S(T);
     if (!std::isfinite(s)) not_finite_sum(*this, "ΔrS°", "J/(mol·K)", T, &Substance::S);
     return s;
 }
@@ -246,14 +248,14 @@ void not_finite_sum(const Prepared& p, const char* quantity, const char* unit, d
     std::size_t big = 0;
     double big_abs = -1;
     for (std::size_t i = 0; i < p.terms.size(); ++i) {
-        const double a = std::fabs(to_double(p.nu[i]) * (p.substances[i].*value)(T));
+        const double a = std::fabs(to_double(p.nu[i]) * ((*p.substances[i]).*value)(T));
         if (!(a <= big_abs)) big = i, big_abs = a;  // NaN or larger
     }
     const Rational n = p.nu[big] < 0 ? Rational(-p.nu[big]) : p.nu[big];
     throw Error(ErrorKind::argument,
                 std::string(quantity) + " at " + number_words(T) + " K is not a finite number: its terms, such as " +
-                    rational_text(n) + " × " + number_words((p.substances[big].*value)(T)) + " " + unit + " for " +
-                    p.substances[big].display_at(T) +
+                    rational_text(n) + " × " + number_words(((*p.substances[big]).*value)(T)) + " " + unit + " for " +
+                    p.substances[big]->display_at(T) +
                     ", add up beyond the largest number a double holds (about 1.8e+308)");
 }
 
@@ -261,7 +263,7 @@ double Prepared::dn_gas(double T) const {
     require_thermo();
     double n = 0;
     for (std::size_t i = 0; i < terms.size(); ++i)
-        if (substances[i].phase_at(T) == 'g') n += nu_double[i];
+        if (substances[i]->phase_at(T) == 'g') n += nu_double[i];
     return n;
 }
 
@@ -286,14 +288,14 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     bool found = false;
     for (std::size_t i = 0; i < terms.size(); ++i) {
         if (composition_keys[i] != want_key) continue;
-        if (want_phase && substances[i].phase_at(T) != want_phase) continue;
-        if (found && substances[i].identity() != identity)
+        if (want_phase && substances[i]->phase_at(T) != want_phase) continue;
+        if (found && substances[i]->identity() != identity)
             throw Error(ErrorKind::argument, "'" + key.written + "' fits more than one species of the reaction (" +
-                                                 substances[*term_index].display_at(T) + ", " +
-                                                 substances[i].display_at(T) +
+                                                 substances[*term_index]->display_at(T) + ", " +
+                                                 substances[i]->display_at(T) +
                                                  "); write its phase");
         if (!found) {
-            identity = substances[i].identity();
+            identity = substances[i]->identity();
             *term_index = i;
         }
         found = true;
@@ -446,8 +448,9 @@ std::size_t estimated_bytes(const Prepared& p) {
     }
     n += p.composition_keys.capacity() * sizeof(std::string);
     for (const auto& k : p.composition_keys) n += string_bytes(k);
-    n += p.substances.capacity() * sizeof(Substance);
-    for (const auto& s : p.substances) {
+    n += p.substances.capacity() * sizeof(p.substances[0]) + p.substances.size() * sizeof(Substance);
+    for (const auto& sp : p.substances) {
+        const Substance& s = *sp;
         n += string_bytes(s.label) + string_bytes(s.display) + s.composition.atoms.capacity() * sizeof(s.composition.atoms[0]);
         for (const auto& a : s.composition.atoms) n += string_bytes(a.first);
         n += (s.records.capacity() + s.candidates.capacity() + s.vapour.capacity()) * sizeof(void*);
@@ -483,7 +486,8 @@ struct PreparedCache::Shard {
     }
 
     void hold_rows(const Prepared& p, int delta) {
-        for (const auto& s : p.substances) {
+        for (const auto& sp : p.substances) {
+        const Substance& s = *sp;
             if (!s.user) continue;
             if (delta > 0) {
                 if (rows_held[s.user.get()]++ == 0) bytes += user_row_bytes(*s.user);
@@ -605,11 +609,11 @@ void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::s
     s.evict(max_entries, max_bytes);  // may evict the new entry itself when it alone is too big
 }
 
-std::optional<PreparedCache::SpeciesMemo> PreparedCache::find_species(std::string_view written) const {
-    if (capacity_ == 0 || written.size() > 64) return std::nullopt;
+std::shared_ptr<const PreparedCache::SpeciesMemo> PreparedCache::find_species(std::string_view written) const {
+    if (capacity_ == 0 || written.size() > 64) return nullptr;
     std::shared_lock<std::shared_mutex> lock(species_mutex_);
     const auto it = species_.find(std::string(written));
-    if (it == species_.end()) return std::nullopt;
+    if (it == species_.end()) return nullptr;
     return it->second;
 }
 
@@ -617,7 +621,7 @@ void PreparedCache::put_species(std::string_view written, SpeciesMemo memo) {
     if (capacity_ == 0 || written.size() > 64) return;
     std::unique_lock<std::shared_mutex> lock(species_mutex_);
     if (species_.size() >= species_memo_entries) species_.clear();
-    species_.emplace(std::string(written), std::move(memo));
+    species_.emplace(std::string(written), std::make_shared<const SpeciesMemo>(std::move(memo)));
 }
 
 CacheStats PreparedCache::stats() const {
@@ -659,6 +663,12 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     } catch (const grammar::ParseError& e) {
         throw from_parse_error(e);
     }
+    const std::size_t n_terms = p->ast.reactants.size() + p->ast.products.size();
+    p->terms.reserve(n_terms);
+    p->nu.reserve(n_terms);
+    p->nu_double.reserve(n_terms);
+    p->compositions.reserve(n_terms);
+    p->composition_keys.reserve(n_terms);
     for (const auto& t : p->ast.reactants) {
         p->terms.push_back(&t);
         p->nu.push_back(-t.coefficient);
@@ -671,7 +681,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     const Database& db = Database::get();
     // Species already resolved by this engine (no user table only: a table's rows come first).
     const bool memo = cache && !(table && table->impl());
-    std::vector<std::optional<PreparedCache::SpeciesMemo>> known(p->terms.size());
+    std::vector<std::shared_ptr<const PreparedCache::SpeciesMemo>> known(p->terms.size());
     if (memo)
         for (std::size_t i = 0; i < p->terms.size(); ++i) known[i] = cache->find_species(p->terms[i]->species.written);
     try {
@@ -697,10 +707,10 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
             try {
                 for (std::size_t i = 0; i < p->terms.size(); ++i) {
                     if (known[i] && known[i]->substance) {
-                        p->substances.push_back(*known[i]->substance);
+                        p->substances.push_back(known[i]->substance);
                         continue;
                     }
-                    p->substances.push_back(db.resolve(p->terms[i]->species, table));
+                    p->substances.push_back(std::make_shared<const Substance>(db.resolve(p->terms[i]->species, table)));
                     if (memo)
                         cache->put_species(p->terms[i]->species.written,
                                            {p->compositions[i], p->composition_keys[i], p->substances.back()});

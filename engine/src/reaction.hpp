@@ -28,7 +28,7 @@ struct Prepared {
     std::vector<std::string> composition_keys;  ///< Composition::key() per term, for matching `per`/`key`
     std::optional<Error> composition_error;   ///< a bad element symbol or unknown name
     std::optional<Error> balance_error;       ///< unbalanced elements or charge
-    std::vector<Substance> substances;        ///< per term (empty if resolve_error)
+    std::vector<std::shared_ptr<const Substance>> substances;  ///< per term (empty if resolve_error); shared with the species memo
     std::optional<Error> resolve_error;       ///< no data, ambiguous, missing phase
 
     /// Each species' NASA polynomial interval per temperature segment, found once when every
@@ -106,10 +106,10 @@ public:
     struct SpeciesMemo {
         Composition composition;
         std::string composition_key;
-        std::optional<Substance> substance;  ///< empty when resolving failed (not kept)
+        std::shared_ptr<const Substance> substance;  ///< null when resolving failed (not kept)
     };
     static constexpr std::size_t species_memo_entries = 1024;
-    std::optional<SpeciesMemo> find_species(std::string_view written) const;
+    std::shared_ptr<const SpeciesMemo> find_species(std::string_view written) const;  ///< null: not seen
     void put_species(std::string_view written, SpeciesMemo memo);
 
 private:
@@ -118,7 +118,7 @@ private:
     std::vector<std::unique_ptr<Shard>> shards_;
     Shard& shard_of(std::uint64_t hash) const;
     mutable std::shared_mutex species_mutex_;
-    std::unordered_map<std::string, SpeciesMemo> species_;
+    std::unordered_map<std::string, std::shared_ptr<const SpeciesMemo>> species_;
 };
 
 /// Estimated bytes of a prepared reaction: its own parts (sizes and string capacities), not the
