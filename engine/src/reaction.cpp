@@ -99,13 +99,12 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string& bad
 }
 
 void check_balance(Prepared& p) {
-    using boost::multiprecision::denominator;
-    using boost::multiprecision::numerator;
     std::string bad;
     const auto to_integer = [](const Rational& r, long long& out) {
-        if (denominator(r) != 1 || numerator(r) > 1'000'000'000'000'000LL || numerator(r) < -1'000'000'000'000'000LL)
+        if (!r.fits_64() || r.den64() != 1 || r.num64() > 1'000'000'000'000'000LL ||
+            r.num64() < -1'000'000'000'000'000LL)
             return false;
-        out = numerator(r).convert_to<long long>();
+        out = r.num64();
         return true;
     };
     if (!side_totals<long long>(p, to_integer, [](long long x) { return std::to_string(x); }, bad)) {
@@ -115,7 +114,9 @@ void check_balance(Prepared& p) {
     if (bad.empty()) return;
     std::string msg = "the reaction is not balanced: " + bad;
     try {
-        msg += ". Balanced, it would read: " + balanced_text(p);
+        // Through Prepared::balanced(), which keeps the answer: RXNBALANCE on this reaction
+        // then reuses it instead of solving the same balance again.
+        msg += ". Balanced, it would read: " + p.balanced();
     } catch (const Error&) {
         // no unique balance: say nothing more
     }
