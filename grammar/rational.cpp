@@ -62,20 +62,23 @@ Rational::Rational(const integer_type& num, const integer_type& den) {
 }
 
 Rational Rational::reduced(i128 num, i128 den) {
-    // Callers pass lowest terms except the two-integer constructor; reduce when needed.
     if (den < 0) num = -num, den = -den;
-    Rational r;
-    if (num == 0) return r;
-    if (magnitude(num) > u128(max64) || den > max64 || (num != 0 && den != 1)) {
+    if (num == 0) return Rational();
+    if (den != 1) {
         const u128 g = gcd_128(magnitude(num), u128(den));
         if (g > 1) num /= i128(g), den /= i128(g);
     }
+    return lowest_terms(num, den);
+}
+
+Rational Rational::lowest_terms(i128 num, i128 den) {
+    Rational r;
     if (magnitude(num) <= u128(max64) && den <= max64) {
         r.n_ = std::int64_t(num);
         r.d_ = std::int64_t(den);
-        return r;
+    } else {
+        r.big_ = std::make_shared<const big_type>(to_integer(num), to_integer(den));
     }
-    r.big_ = std::make_shared<const big_type>(to_integer(num), to_integer(den));
     return r;
 }
 
@@ -138,7 +141,7 @@ Rational operator+(const Rational& a, const Rational& b) {
     if (a.big_ || b.big_) return Rational(a.big() + b.big());
     if (a.n_ == 0) return b;
     if (b.n_ == 0) return a;
-    if (a.d_ == 1 && b.d_ == 1) return Rational::reduced(i128(a.n_) + b.n_, 1);
+    if (a.d_ == 1 && b.d_ == 1) return Rational::lowest_terms(i128(a.n_) + b.n_, 1);
     // Knuth's addition in lowest terms: g = gcd(d1, d2), t = n1·(d2/g) + n2·(d1/g),
     // g2 = gcd(t, g); the sum is (t/g2) / ((d1/g)·(d2/g2)), already reduced.
     const std::int64_t g = std::int64_t(std::gcd(std::uint64_t(a.d_), std::uint64_t(b.d_)));
@@ -147,15 +150,7 @@ Rational operator+(const Rational& a, const Rational& b) {
     const std::int64_t g2 = std::int64_t(gcd_128_64(magnitude(t), std::uint64_t(g)));
     const i128 num = t / g2;
     const i128 den = i128(a.d_ / g) * (b.d_ / g2);
-    if (magnitude(num) <= u128(max64) && den <= max64) {
-        Rational r;
-        r.n_ = std::int64_t(num);
-        r.d_ = std::int64_t(den);
-        return r;
-    }
-    Rational r;
-    r.big_ = std::make_shared<const Rational::big_type>(to_integer(num), to_integer(den));
-    return r;
+    return Rational::lowest_terms(num, den);
 }
 
 Rational operator-(const Rational& a, const Rational& b) { return a + (-b); }
@@ -168,15 +163,7 @@ Rational operator*(const Rational& a, const Rational& b) {
     const std::int64_t g2 = std::int64_t(std::gcd(magnitude(b.n_), std::uint64_t(a.d_)));
     const i128 num = i128(a.n_ / g1) * (b.n_ / g2);
     const i128 den = i128(a.d_ / g2) * (b.d_ / g1);
-    if (magnitude(num) <= u128(max64) && den <= max64) {
-        Rational r;
-        r.n_ = std::int64_t(num);
-        r.d_ = std::int64_t(den);
-        return r;
-    }
-    Rational r;
-    r.big_ = std::make_shared<const Rational::big_type>(to_integer(num), to_integer(den));
-    return r;
+    return Rational::lowest_terms(num, den);
 }
 
 Rational operator/(const Rational& a, const Rational& b) {

@@ -91,8 +91,10 @@ public:
 
 private:
     void assign(const big_type& v);
-    /// From a reduced 128-bit fraction (den > 0): 64-bit if it fits, big otherwise.
+    /// num/den reduced (den != 0), then as lowest_terms().
     static Rational reduced(__int128 num, __int128 den);
+    /// From a fraction already in lowest terms with den > 0: 64-bit if it fits, big otherwise.
+    static Rational lowest_terms(__int128 num, __int128 den);
 
     std::int64_t n_ = 0, d_ = 1;            // the value when big_ is empty
     std::shared_ptr<const big_type> big_;  // the value when it does not fit in 64 bits

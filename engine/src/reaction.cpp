@@ -175,7 +175,7 @@ void build_segments(Prepared& p) {
     // says so).
     auto intervals_at = [&p](double T) {
         for (const auto& sp : p.substances) {
-        const Substance& s = *sp;
+            const Substance& s = *sp;
             const Record* hit = nullptr;
             for (const Record* r : s.records)
                 if (covers(*r, T)) {
