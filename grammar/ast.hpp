@@ -1,30 +1,50 @@
 // Syntax tree produced by the X3 reaction grammar (grammar/reaction_def.hpp). Private to
 // grammar/: parse.cpp turns it into the public rxnheat::grammar::Reaction / Species.
 //
-// The grammar runs over decoded code points (std::u32string), so every text field here holds
-// the characters exactly as written (subscripts, superscripts and Unicode signs included);
-// parse.cpp interprets them. Nodes deriving from position_tagged get their source range from
-// the annotation handler, which is how character positions reach the public tree.
+// The grammar runs over decoded code points (a std::u32string, read through pointers), so every
+// text field here is a Span of the input: the characters exactly as written (subscripts,
+// superscripts and Unicode signs included), not a copy; parse.cpp interprets them. Nodes
+// deriving from Located get their source range from the annotation handler, which is how
+// character positions reach the public tree. Spans, small inline vectors and ranges held in the
+// nodes keep a parse from allocating for each node (a typical four-term reaction's tree is built
+// with no allocation at all: tests/bench/RESULTS-engine.md, "Cold path").
 #pragma once
 
+#include <boost/container/small_vector.hpp>
 #include <boost/fusion/include/adapt_struct.hpp>
 #include <boost/optional.hpp>
-#include <boost/spirit/home/x3/support/ast/position_tagged.hpp>
+#include <boost/range/iterator_range_core.hpp>
 #include <boost/spirit/home/x3/support/ast/variant.hpp>
 
-#include <string>
-#include <vector>
+#include <cstddef>
+#include <string_view>
 
 namespace rxnheat::grammar::ast {
 
 namespace x3 = boost::spirit::x3;
 
-using Text = std::u32string;
+/// Where the grammar reads: a code point of the decoded input.
+using Iter = const char32_t*;
+
+/// A stretch of the input as written, [begin, end). Empty (two null pointers) for "not written".
+using Span = boost::iterator_range<Iter>;
+
+inline std::u32string_view view(const Span& s) { return {s.begin(), std::size_t(s.size())}; }
+
+/// Up to N elements held inline, more on the heap (N is what typical formulas and reactions need).
+template <typename T, std::size_t N>
+using Few = boost::container::small_vector<T, N>;
+
+/// The node's source range, set by the rules' on_success handler (reaction_def.hpp).
+struct Located {
+    Iter first = nullptr;
+    Iter last = nullptr;
+};
 
 /// One element symbol with its count as written ("" = 1; "2", "0.947" or "₂").
-struct Element : x3::position_tagged {
-    Text symbol;
-    Text count;
+struct Element : Located {
+    Span symbol;
+    Span count;
 };
 
 struct Group;
@@ -36,50 +56,51 @@ struct Item : x3::variant<Element, x3::forward_ast<Group>> {
 };
 
 /// "(OH)2", "[Cu(NH3)4]": the opening bracket, the contents and the count ("" = 1).
-struct Group : x3::position_tagged {
+struct Group : Located {
     char32_t open = U'(';
-    std::vector<Item> items;
-    Text count;
+    Few<Item, 4> items;
+    Span count;
 };
 
 /// One hydrate part: "CuSO4" or "5H2O" (multiplier "5"; "" = 1; always "" for the first part).
-struct Part : x3::position_tagged {
-    Text multiplier;
-    std::vector<Item> items;
+struct Part : Located {
+    Span multiplier;
+    Few<Item, 4> items;
 };
 
 /// A charge as written: magnitude digits ("" = 1, ASCII or superscript) and the sign character
 /// ('+', '-', U+2212, '⁺' or '⁻').
-struct Charge : x3::position_tagged {
-    Text magnitude;
+struct Charge : Located {
+    Span magnitude;
     char32_t sign = U'+';
 };
 
-struct Formula : x3::position_tagged {
-    std::vector<Part> parts;
+struct Formula : Located {
+    Few<Part, 1> parts;
     boost::optional<Charge> charge;
 };
 
-/// A species is a name (Text, starts lowercase, inner whitespace as written) or a formula.
-struct Body : x3::variant<Text, Formula> {
+/// A species is a name (a Span, starts lowercase, inner whitespace as written) or a formula.
+struct Body : x3::variant<Span, Formula> {
     using base_type::base_type;
     using base_type::operator=;
 };
 
-struct Species : x3::position_tagged {
+struct Species : Located {
     Body body;
-    boost::optional<Text> phase;  ///< the word inside the parentheses, not yet validated
+    boost::optional<Span> phase;  ///< the word inside the parentheses, not yet validated
 };
 
-struct Term : x3::position_tagged {
-    boost::optional<Text> coefficient;  ///< as written: "2", "0.5", "1/2", "½", "1½"
+struct Term : Located {
+    boost::optional<Span> coefficient;  ///< as written: "2", "0.5", "1/2", "½", "1½"
     Species species;
 };
 
+/// Filled by the reaction rule through the Tracker (reaction.hpp), not as an X3 attribute.
 struct Reaction {
-    std::vector<Term> reactants;
-    Text arrow;
-    std::vector<Term> products;
+    Few<Term, 4> reactants;
+    Span arrow;
+    Few<Term, 4> products;
 };
 
 }  // namespace rxnheat::grammar::ast
@@ -91,4 +112,3 @@ BOOST_FUSION_ADAPT_STRUCT(rxnheat::grammar::ast::Charge, magnitude, sign)
 BOOST_FUSION_ADAPT_STRUCT(rxnheat::grammar::ast::Formula, parts, charge)
 BOOST_FUSION_ADAPT_STRUCT(rxnheat::grammar::ast::Species, body, phase)
 BOOST_FUSION_ADAPT_STRUCT(rxnheat::grammar::ast::Term, coefficient, species)
-BOOST_FUSION_ADAPT_STRUCT(rxnheat::grammar::ast::Reaction, reactants, arrow, products)

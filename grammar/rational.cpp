@@ -158,6 +158,7 @@ Rational operator-(const Rational& a, const Rational& b) { return a + (-b); }
 Rational operator*(const Rational& a, const Rational& b) {
     if (a.big_ || b.big_) return Rational(a.big() * b.big());
     if (a.n_ == 0 || b.n_ == 0) return Rational();
+    if (a.d_ == 1 && b.d_ == 1) return Rational::lowest_terms(i128(a.n_) * b.n_, 1);  // no gcd needed
     // Cross-cancel first, so the products are in lowest terms.
     const std::int64_t g1 = std::int64_t(std::gcd(magnitude(a.n_), std::uint64_t(b.d_)));
     const std::int64_t g2 = std::int64_t(std::gcd(magnitude(b.n_), std::uint64_t(a.d_)));

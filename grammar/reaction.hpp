@@ -8,27 +8,27 @@
 #include <boost/spirit/home/x3.hpp>
 
 #include <string>
-#include <vector>
+#include <utility>
 
 namespace rxnheat::grammar::parser {
 
 namespace x3 = boost::spirit::x3;
 
 /// The grammar runs over decoded code points, so iterator distance = character position.
-using iterator_type = ast::Text::const_iterator;
+using iterator_type = ast::Iter;
 
-/// Collects what the rules report while parsing: source ranges of tagged nodes (on_success)
-/// and the first expectation failure (on_error).
+/// Collects what the rules report while parsing: source ranges of located nodes (on_success,
+/// kept in the nodes themselves) and the first expectation failure (on_error).
 class Tracker {
 public:
-    Tracker(iterator_type first, iterator_type last) : positions_(first, last) {}
-
     template <typename Node>
     void tag(Node& node, iterator_type first, iterator_type last) {
-        positions_.annotate(node, first, last);
+        node.first = first;
+        node.last = last;
     }
     void tag(ast::Species& node, iterator_type first, iterator_type last) {
-        positions_.annotate(node, first, last);
+        node.first = first;
+        node.last = last;
         has_species_ = true;
         species_first_ = first;
         species_last_ = last;
@@ -41,8 +41,15 @@ public:
         }
     }
 
-    /// Source range of a tagged node (as [first, last) iterators into the decoded text).
-    auto position_of(x3::position_tagged const& node) const { return positions_.position_of(node); }
+    /// Where the reaction rule puts each term it reads (parse_reaction sets it).
+    void build(ast::Reaction* tree) { tree_ = tree; }
+    void add(ast::Term& term, bool product) {
+        auto& side = product ? tree_->products : tree_->reactants;
+        side.push_back(std::move(term));
+    }
+
+    /// Source range of a located node.
+    static ast::Span position_of(const ast::Located& node) { return {node.first, node.last}; }
 
     bool failed() const { return failed_; }
     iterator_type where() const { return where_; }
@@ -54,7 +61,7 @@ public:
     iterator_type species_last() const { return species_last_; }
 
 private:
-    x3::position_cache<std::vector<iterator_type>> positions_;
+    ast::Reaction* tree_ = nullptr;
     bool failed_ = false;
     iterator_type where_{};
     std::string key_;
@@ -73,9 +80,9 @@ struct reaction_class;
 struct species_only_class;
 struct number_only_class;
 
-using reaction_type = x3::rule<reaction_class, ast::Reaction>;         ///< a whole reaction
+using reaction_type = x3::rule<reaction_class, ast::Span>;  ///< a whole reaction: the arrow; the terms go to the Tracker
 using species_only_type = x3::rule<species_only_class, ast::Species>;  ///< one species, nothing else
-using number_only_type = x3::rule<number_only_class, ast::Text>;       ///< one number, nothing else
+using number_only_type = x3::rule<number_only_class, ast::Span>;       ///< one number, nothing else
 
 BOOST_SPIRIT_DECLARE(reaction_type, species_only_type, number_only_type)
 

@@ -177,7 +177,8 @@ struct phase_class {};
 struct species_class : annotate_position {};
 struct coefficient_class {};
 struct term_class : annotate_position {};
-struct side_class {};
+struct reactants_class {};
+struct products_class {};
 struct arrow_class {};
 struct reaction_class : report_failure {};
 struct species_only_class : report_failure {};
@@ -225,16 +226,16 @@ auto const arrow_text = code_point_string(U"<=>") | code_point_string(U"<->") |
 
 // Text-valued pieces used inside sequences are rules, so X3 assigns the whole text at once
 // instead of treating the sequence's string attribute as a container of characters.
-x3::rule<count_class, ast::Text> const count = "count";
-x3::rule<multiplier_class, ast::Text> const multiplier = "multiplier";
-x3::rule<phase_word_class, ast::Text> const phase_word = "phase";
-x3::rule<number_token_class, ast::Text> const number_token = "number";
+x3::rule<count_class, ast::Span> const count = "count";
+x3::rule<multiplier_class, ast::Span> const multiplier = "multiplier";
+x3::rule<phase_word_class, ast::Span> const phase_word = "phase";
+x3::rule<number_token_class, ast::Span> const number_token = "number";
 x3::rule<element_class, ast::Element> const element = "element";
 x3::rule<group_class, ast::Group> const group = "group";
 x3::rule<item_class, ast::Item> const item = "item";
 x3::rule<first_part_class, ast::Part> const first_part = "formula part";
 x3::rule<later_part_class, ast::Part> const later_part = "hydrate part";
-x3::rule<parts_class, std::vector<ast::Part>> const parts = "formula parts";
+x3::rule<parts_class, decltype(ast::Formula::parts)> const parts = "formula parts";
 x3::rule<charge_body_class, ast::Charge> const charge_body = "charge";
 x3::rule<caret_charge_class, ast::Charge> const caret_charge = "^ charge";
 x3::rule<brace_charge_class, ast::Charge> const brace_charge = "{} charge";
@@ -242,14 +243,15 @@ x3::rule<superscript_charge_class, ast::Charge> const superscript_charge = "supe
 x3::rule<trailing_charge_class, ast::Charge> const trailing_charge = "trailing charge";
 x3::rule<charge_class, ast::Charge> const charge = "charge";
 x3::rule<formula_class, ast::Formula> const formula = "formula";
-x3::rule<name_class, ast::Text> const name = "name";
+x3::rule<name_class, ast::Span> const name = "name";
 x3::rule<body_class, ast::Body> const body = "species";
-x3::rule<phase_class, ast::Text> const phase = "phase";
+x3::rule<phase_class, ast::Span> const phase = "phase";
 x3::rule<species_class, ast::Species> const species = "species";
-x3::rule<coefficient_class, ast::Text> const coefficient = "coefficient";
+x3::rule<coefficient_class, ast::Span> const coefficient = "coefficient";
 x3::rule<term_class, ast::Term> const term = "term";
-x3::rule<side_class, std::vector<ast::Term>> const side = "side";
-x3::rule<arrow_class, ast::Text> const arrow = "arrow";
+x3::rule<reactants_class> const reactants = "side";  // the terms go to the Tracker (see reaction.hpp)
+x3::rule<products_class> const products = "side";
+x3::rule<arrow_class, ast::Span> const arrow = "arrow";
 reaction_type const reaction_rule = "reaction";
 species_only_type const species_only_rule = "species";
 number_only_type const number_only_rule = "number";
@@ -262,7 +264,7 @@ auto const number_text = (decimal >> -((slash >> expect("denominator")[decimal])
 
 // Formulas. An element symbol is one uppercase letter and, greedily, one lowercase letter.
 auto const count_def = x3::raw[decimal | +subscript_digit];
-auto const count_or_one = count | x3::attr(ast::Text());
+auto const count_or_one = count | x3::attr(ast::Span());
 
 auto const element_def = x3::raw[upper >> -lower] >> count_or_one;
 // '(' followed by a lowercase letter is a phase, not a group.
@@ -271,8 +273,8 @@ auto const group_def = open_bracket >> !lower >> expect("group")[+item] >>
 auto const item_def = element | group;
 
 auto const multiplier_def = x3::raw[(decimal >> -vulgar_fraction) | vulgar_fraction];
-auto const first_part_def = x3::attr(ast::Text()) >> +item;
-auto const later_part_def = ((multiplier >> ws) | x3::attr(ast::Text())) >> +item;
+auto const first_part_def = x3::attr(ast::Span()) >> +item;
+auto const later_part_def = ((multiplier >> ws) | x3::attr(ast::Span())) >> +item;
 auto const parts_def = first_part >> *(ws >> hydrate_dot >> ws >> expect("hydrate")[later_part]);
 
 // Charges: ^2+ ^- {2+} ²⁻ ⁺ and the trailing sign. A trailing sign is a charge only when the
@@ -284,9 +286,9 @@ auto const brace_charge_def =
     open_brace >> expect("brace charge")[charge_body] >> expect("brace close")[close_brace];
 auto const superscript_charge_def =
     (x3::raw[+superscript_digit] >> expect("superscript sign")[superscript_sign]) |
-    (x3::attr(ast::Text()) >> superscript_sign);
+    (x3::attr(ast::Span()) >> superscript_sign);
 auto const trailing_charge_def =
-    x3::attr(ast::Text()) >> sign >> &(x3::eoi | blank | open_paren | arrow_text);
+    x3::attr(ast::Span()) >> sign >> &(x3::eoi | blank | open_paren | arrow_text);
 auto const charge_def = caret_charge | brace_charge | superscript_charge | trailing_charge;
 
 auto const formula_def = parts >> -charge;
@@ -304,11 +306,26 @@ auto const species_def = body >> -(ws >> phase);
 // Terms, sides, reaction.
 auto const coefficient_def = x3::raw[number_text];
 auto const term_def = -coefficient >> ws >> expect("species")[species];
-auto const side_def = term >> *(ws >> plus >> ws >> term);
+// Each term is moved into the tree's side as soon as it is read (Tracker::add): a side has no
+// attribute of its own, which X3 would otherwise build in a temporary container and move over.
+struct add_reactant {
+    template <typename Context>
+    void operator()(Context const& context) const {
+        x3::get<tracker_tag>(context).add(x3::_attr(context), false);
+    }
+};
+struct add_product {
+    template <typename Context>
+    void operator()(Context const& context) const {
+        x3::get<tracker_tag>(context).add(x3::_attr(context), true);
+    }
+};
+auto const reactants_def = term[add_reactant{}] >> *(ws >> plus >> ws >> term[add_reactant{}]);
+auto const products_def = term[add_product{}] >> *(ws >> plus >> ws >> term[add_product{}]);
 auto const arrow_def = x3::raw[arrow_text];
 
-auto const reaction_rule_def = ws >> expect("species")[side] >> ws >> expect("arrow")[arrow] >> ws >>
-                               expect("species")[side] >> ws >> expect("end")[x3::eoi];
+auto const reaction_rule_def = ws >> expect("species")[reactants] >> ws >> expect("arrow")[arrow] >> ws >>
+                               expect("species")[products] >> ws >> expect("end")[x3::eoi];
 auto const species_only_rule_def = ws >> expect("species")[species] >> ws >> expect("end")[x3::eoi];
 auto const number_only_rule_def =
     ws >> number_token >> ws >> expect("end")[x3::eoi];
@@ -316,7 +333,7 @@ auto const number_token_def = x3::raw[expect("number")[-sign >> number_text]];
 
 BOOST_SPIRIT_DEFINE(count, multiplier, phase_word, number_token, element, group, item, first_part, later_part, parts, charge_body, caret_charge,
                     brace_charge, superscript_charge, trailing_charge, charge, formula, name, body,
-                    phase, species, coefficient, term, side, arrow, reaction_rule,
+                    phase, species, coefficient, term, reactants, products, arrow, reaction_rule,
                     species_only_rule, number_only_rule)
 
 reaction_type const& reaction() { return reaction_rule; }

@@ -6,6 +6,8 @@
 #include <chrono>
 #include <cstdint>
 #include <random>
+#include <string>
+#include <thread>
 
 using namespace grammar_test;
 using rxnheat::grammar::parse_number;
@@ -201,4 +203,43 @@ TEST_CASE("a long legal reaction near the limit parses", "[grammar][robustness]"
     auto const ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
     CHECK(r.reactants.size() == 365);
     CHECK(ms < 50.0);
+}
+
+// parse_reaction builds its syntax tree in one object per thread, kept from call to call
+// (grammar/parse.cpp): nothing of one parse may reach the next, whether it was long, failed
+// halfway through a side, or ran on another thread at the same time.
+TEST_CASE("one parse leaves nothing behind for the next", "[grammar][robustness]") {
+    std::string long_text;
+    for (int i = 0; i < 1999; ++i) long_text += "H+";
+    long_text += "H->O";
+    const Reaction big = parse_reaction(long_text);
+    CHECK(big.reactants.size() == 2000);
+    CHECK(big.products.size() == 1);
+
+    // Fails after three reactants were read: the next parse must not see them.
+    CHECK_THROWS_AS(parse_reaction("CH4 + O2 + N2 + -> CO2"), ParseError);
+    const Reaction small = parse_reaction("2 H2 + O2 -> 2 H2O");
+    REQUIRE(small.reactants.size() == 2);
+    REQUIRE(small.products.size() == 1);
+    CHECK(small.reactants[0].species.formula == "H2");
+    CHECK(small.reactants[0].coefficient == q(2));
+    CHECK(small.reactants[1].species.formula == "O2");
+    CHECK(small.products[0].species.formula == "H2O");
+    CHECK(small.products[0].position == 14);
+    CHECK(small.arrow == "->");
+
+    // Two threads parsing different reactions at once each get their own terms.
+    auto worker = [](std::string text, std::size_t left, std::size_t right, int* bad) {
+        for (int k = 0; k < 200; ++k) {
+            const Reaction r = parse_reaction(text);
+            if (r.reactants.size() != left || r.products.size() != right) ++*bad;
+        }
+    };
+    int bad_a = 0, bad_b = 0;
+    std::thread a(worker, long_text, 2000, 1, &bad_a);
+    std::thread b(worker, std::string("CaCO3(s) -> CaO(s) + CO2(g)"), 1, 2, &bad_b);
+    a.join();
+    b.join();
+    CHECK(bad_a == 0);
+    CHECK(bad_b == 0);
 }
