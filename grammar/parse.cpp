@@ -6,6 +6,7 @@
 #include "grammar/ast.hpp"
 #include "grammar/reaction.hpp"
 
+#include <boost/container/small_vector.hpp>
 #include <boost/spirit/home/x3.hpp>
 
 #include <algorithm>
@@ -141,9 +142,11 @@ Text decode(std::string_view s) {
         auto bad = [&](const std::string& why) {
             return ParseError(out.size() + 1, "the text is not valid UTF-8 (" + why + ")");
         };
-        if (b < 0x80) {
-            out.push_back(b);
-            ++i;
+        if (b < 0x80) {  // a run of ASCII, the common case, appended at once
+            std::size_t j = i + 1;
+            while (j < s.size() && static_cast<unsigned char>(s[j]) < 0x80) ++j;
+            out.append(s.begin() + std::ptrdiff_t(i), s.begin() + std::ptrdiff_t(j));
+            i = j;
             continue;
         }
         std::size_t len;
@@ -209,15 +212,13 @@ Text prepare(std::string_view utf8_text, Mode mode) {
         throw ParseError(0, "input longer than " + std::to_string(max_input_characters) + " characters");
 
     Text t = decode(utf8_text);
-    bool blank = true;
-    for (char32_t c : t) blank = blank && is_blank(c);
-    if (blank) throw ParseError(1, empty_message(mode));
+    if (std::all_of(t.begin(), t.end(), is_blank)) throw ParseError(1, empty_message(mode));
 
     struct Open {
         char32_t ch;
         std::size_t position;
     };
-    std::vector<Open> open;
+    boost::container::small_vector<Open, max_group_depth + 1> open;  // never more: checked below
     auto closer = [](char32_t c) { return c == U'(' ? U')' : c == U'[' ? U']' : U'}'; };
     for (std::size_t i = 0; i < t.size(); ++i) {
         char32_t const c = t[i];

@@ -159,17 +159,29 @@ std::string scaled(const Prepared& prepared, const Rational& factor) {
     const Prepared* p = &prepared;
     std::vector<Rational> l, r;
     // The text must read back as a reaction: no number in it longer than the grammar reads.
+    auto too_long = [](const Rational& c) {
+        if (c.fits_64()) {  // the common case: count the digits without big integers
+            auto digits = [](std::int64_t v) {
+                std::uint64_t u = v < 0 ? 0 - std::uint64_t(v) : std::uint64_t(v);
+                std::size_t n = 1;
+                while (u >= 10) u /= 10, ++n;
+                return n;
+            };
+            return digits(c.num64()) > grammar::max_number_digits || digits(c.den64()) > grammar::max_number_digits;
+        }
+        return c.numerator().str().size() > grammar::max_number_digits ||
+               c.denominator().str().size() > grammar::max_number_digits;
+    };
+    l.reserve(p->ast.reactants.size());
+    r.reserve(p->ast.products.size());
     auto times = [&](const grammar::Term& t) {
         Rational c = t.coefficient * factor;
-        using boost::multiprecision::denominator;
-        using boost::multiprecision::numerator;
-        for (const auto& part : {numerator(c), denominator(c)})
-            if (part.str().size() > grammar::max_number_digits)
-                throw Error(ErrorKind::argument,
-                            "scaled by " + detail::rational_text(factor) + ", the coefficient of " + t.species.written +
-                                " would be " + detail::rational_text(c) + ", a number longer than the " +
-                                std::to_string(grammar::max_number_digits) +
-                                " digits a reaction's numbers may have (grammar/SYNTAX.md)");
+        if (too_long(c))
+            throw Error(ErrorKind::argument,
+                        "scaled by " + detail::rational_text(factor) + ", the coefficient of " + t.species.written +
+                            " would be " + detail::rational_text(c) + ", a number longer than the " +
+                            std::to_string(grammar::max_number_digits) +
+                            " digits a reaction's numbers may have (grammar/SYNTAX.md)");
         return c;
     };
     for (const auto& t : p->ast.reactants) l.push_back(times(t));

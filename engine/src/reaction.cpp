@@ -7,10 +7,11 @@
 #include "units.hpp"
 #include "usertable.hpp"
 
+#include <boost/container/small_vector.hpp>
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
-#include <algorithm>
 #include <atomic>
 #include <deque>
 #include <functional>
@@ -156,7 +157,7 @@ namespace {
 /// Prepared::segments for a reaction whose species are all NASA records of a written phase.
 void build_segments(Prepared& p) {
     if (p.substances.empty()) return;
-    std::vector<double> ends;
+    boost::container::small_vector<double, 32> ends;  // a typical reaction's fit on the stack
     for (const auto& sp : p.substances) {
         const Substance& s = *sp;
         if (s.user || s.aqueous || s.phase_assumed || s.records.empty()) return;
@@ -170,6 +171,10 @@ void build_segments(Prepared& p) {
     }
     std::sort(ends.begin(), ends.end());
     ends.erase(std::unique(ends.begin(), ends.end()), ends.end());
+    // At most one segment at each end and one between two ends: reserved once (exact sizes would
+    // need a second pass over the records; the estimate of the cache counts the capacity).
+    p.segments.reserve(2 * ends.size());
+    p.segment_intervals.reserve(2 * ends.size() * p.substances.size());
     // The intervals at one temperature, selecting records and intervals exactly as
     // Substance::H does; false when some species has no data there (the per-species path then
     // says so).
@@ -682,7 +687,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     const Database& db = Database::get();
     // Species already resolved by this engine (no user table only: a table's rows come first).
     const bool memo = cache && !(table && table->impl());
-    std::vector<std::shared_ptr<const PreparedCache::SpeciesMemo>> known(p->terms.size());
+    boost::container::small_vector<std::shared_ptr<const PreparedCache::SpeciesMemo>, 8> known(p->terms.size());
     if (memo)
         for (std::size_t i = 0; i < p->terms.size(); ++i) known[i] = cache->find_species(p->terms[i]->species.written);
     try {

@@ -65,6 +65,25 @@ TEST_CASE("scale multiplies the enthalpy and keeps exact fractions", "[behaviour
     REQUIRE_ENGINE_ERROR(nan);  // DEVELOPERS.md, Working rules: bad input gets a clear error
 }
 
+TEST_CASE("scale refuses a coefficient longer than the grammar reads back", "[behaviour]") {
+    // grammar/SYNTAX.md: a number has at most 12 digits, and scale's text must read back.
+    // 12 digits (1 × 999999999999) are written; 13 (2 × 999999999999 = 1999999999998, arithmetic)
+    // are refused with the coefficient in the message.
+    const std::string twelve = eng().scale("H2O(l) -> H2O(g)", "999999999999");
+    CHECK(twelve == "999999999999 H2O(l) -> 999999999999 H2O(g)");
+    auto longer = attempt([] { return eng().scale("2 N2(g) -> 4 N(g)", "999999999999"); });
+    REQUIRE_ENGINE_ERROR(longer);
+    CHECK(contains(longer.message, "would be 1999999999998"));
+    // The same rule beyond 64 bits: 999999999999² = 999999999998000000000001 (arithmetic).
+    auto squared = attempt([] { return eng().scale("999999999999 N2(g) -> 2 N(g)", "999999999999"); });
+    REQUIRE_ENGINE_ERROR(squared);
+    CHECK(contains(squared.message, "would be 999999999998000000000001"));
+    // A fraction's denominator counts as well: 1/999999999999 × 1/2.
+    auto denominator = attempt([] { return eng().scale("1/999999999999 N2(g) -> 2/999999999999 N(g)", "1/2"); });
+    REQUIRE_ENGINE_ERROR(denominator);
+    CHECK(contains(denominator.message, "would be 1/1999999999998"));
+}
+
 TEST_CASE("RXNDU is RXNDH minus dn(gas) R T", "[behaviour]") {
     // engine/FUNCTIONS.md, RXNDU: ΔrU° = ΔrH° − Δn(gas)·R·T; R from GNU units. Δn counted by hand below.
     // Tolerance 1e-4 kJ/mol: the difference between R = 8.314510 (NASA fits) and
