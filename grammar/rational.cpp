@@ -56,6 +56,15 @@ Rational::Rational(std::int64_t num, std::int64_t den) {
     *this = reduced(i128(num), i128(den));
 }
 
+Rational::Rational(const integer_type& n) {
+    static const integer_type limit = integer_type(INT64_MAX);
+    if (n <= limit && n >= -limit) {  // the common case, without a big rational in between
+        n_ = n.convert_to<std::int64_t>();
+        return;
+    }
+    assign(big_type(n));
+}
+
 Rational::Rational(const integer_type& num, const integer_type& den) {
     if (den == 0) divide_by_zero();
     assign(big_type(num, den));

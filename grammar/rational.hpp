@@ -46,7 +46,7 @@ public:
     /// num/den, reduced; den must not be zero (std::overflow_error otherwise).
     Rational(std::int64_t num, std::int64_t den);
     explicit Rational(const big_type& v) { assign(v); }
-    explicit Rational(const integer_type& n) { assign(big_type(n)); }
+    explicit Rational(const integer_type& n);
     Rational(const integer_type& num, const integer_type& den);
     /// "a/b" or "a", as cpp_rational reads it (tests and constants).
     explicit Rational(const char* text) { assign(big_type(text)); }

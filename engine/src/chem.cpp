@@ -151,7 +151,18 @@ bool rebuild_fraction(i128 u, i128 mod, i128 bound, i128& n, i128& d) {
     return true;
 }
 
+/// gcd of two positive numbers.
+i128 gcd_i128(i128 a, i128 b) {
+    while (b != 0) {
+        const i128 t = a % b;
+        a = b;
+        b = t;
+    }
+    return a;
+}
+
 cpp_int to_big(i128 x) {
+    if (x >= INT64_MIN && x <= INT64_MAX) return cpp_int(static_cast<std::int64_t>(x));  // one limb
     const bool neg = x < 0;
     const unsigned __int128 u = neg ? static_cast<unsigned __int128>(-(x + 1)) + 1 : static_cast<unsigned __int128>(x);
     cpp_int r = static_cast<std::uint64_t>(u >> 64);
@@ -203,12 +214,25 @@ std::vector<std::vector<cpp_int>> rebuilt_null_space(const IntColumns& m, const 
             }
             if (!rebuild_fraction(x, mod, bound, num[first.pivots[i]], den[first.pivots[i]])) return {};
         }
-        cpp_int l = 1;
-        for (std::size_t j = 0; j < cols; ++j)
-            if (den[j] != 1) l = boost::multiprecision::lcm(l, to_big(den[j]));
+        // Whole numbers: times the least common multiple of the denominators, in 128 bits while
+        // it stays below 2^63 (then |num| < 2^62 times l/den ≤ 2^63 fits too), else big.
         std::vector<cpp_int> v(cols);
-        for (std::size_t j = 0; j < cols; ++j)
-            if (num[j] != 0) v[j] = to_big(num[j]) * (l / to_big(den[j]));
+        i128 l = 1;
+        for (std::size_t j = 0; j < cols && l != 0; ++j)
+            if (den[j] != 1) {
+                const i128 q = den[j] / gcd_i128(l, den[j]);
+                l = l > INT64_MAX / q ? 0 : l * q;  // 0: too large for the shortcut
+            }
+        if (l != 0) {
+            for (std::size_t j = 0; j < cols; ++j)
+                if (num[j] != 0) v[j] = to_big(num[j] * (l / den[j]));
+        } else {
+            cpp_int big_l = 1;
+            for (std::size_t j = 0; j < cols; ++j)
+                if (den[j] != 1) big_l = boost::multiprecision::lcm(big_l, to_big(den[j]));
+            for (std::size_t j = 0; j < cols; ++j)
+                if (num[j] != 0) v[j] = to_big(num[j]) * (big_l / to_big(den[j]));
+        }
         if (!is_null_vector(m, v)) return {};
         out.push_back(std::move(v));
     }
@@ -305,7 +329,13 @@ BalanceSolution solve_balance(std::size_t rows, const std::vector<SparseColumn>&
     for (std::size_t j = 0; j < cols; ++j) {
         for (const auto& e : m[j])
             if (denominator(e.second) != 1) scale[j] = boost::multiprecision::lcm(scale[j], cpp_int(denominator(e.second)));
-        for (const auto& e : m[j]) a.cols[j].emplace_back(e.first, numerator(e.second) * (scale[j] / denominator(e.second)));
+        a.cols[j].reserve(m[j].size());
+        for (const auto& e : m[j]) {
+            if (scale[j] == 1)  // whole counts, the common case: no division
+                a.cols[j].emplace_back(e.first, numerator(e.second));
+            else
+                a.cols[j].emplace_back(e.first, numerator(e.second) * (scale[j] / denominator(e.second)));
+        }
     }
 
     // The rank modulo a prime is at most the rational rank: full rank there means no balance.
@@ -341,11 +371,12 @@ BalanceSolution solve_balance(std::size_t rows, const std::vector<SparseColumn>&
     }
     cpp_int g = 0;
     for (std::size_t j = 0; j < cols; ++j) {
-        y[j] *= scale[j];
+        if (scale[j] != 1) y[j] *= scale[j];
         g = boost::multiprecision::gcd(g, y[j]);
     }
     out.kind = BalanceSolution::Kind::unique;
-    for (auto& x : y) out.coefficients.emplace_back(cpp_int(x / g));
+    out.coefficients.reserve(cols);
+    for (auto& x : y) out.coefficients.emplace_back(g == 1 ? x : cpp_int(x / g));
     return out;
 }
 
