@@ -145,7 +145,9 @@ Text decode(std::string_view s) {
         if (b < 0x80) {  // a run of ASCII, the common case, appended at once
             std::size_t j = i + 1;
             while (j < s.size() && static_cast<unsigned char>(s[j]) < 0x80) ++j;
-            out.append(s.begin() + std::ptrdiff_t(i), s.begin() + std::ptrdiff_t(j));
+            const std::size_t at = out.size();
+            out.resize(at + (j - i));  // within the reserved size (append of a range would copy it first)
+            for (std::size_t k = i; k < j; ++k) out[at + k - i] = static_cast<unsigned char>(s[k]);
             i = j;
             continue;
         }
@@ -233,7 +235,7 @@ Text prepare(std::string_view utf8_text, Mode mode) {
                 throw ParseError(i + 1, describe(c) + " does not match the " + describe(open.back().ch) +
                                             " at position " + std::to_string(open.back().position));
             open.pop_back();
-        } else if (is_digit(c) || subscript_value(c) >= 0 || superscript_value(c) >= 0) {
+        } else if (is_digit(c) || (c >= 0x80 && (subscript_value(c) >= 0 || superscript_value(c) >= 0))) {
             // one number: a run of digits of one kind, ASCII ones possibly with decimal points
             auto const kind = [](char32_t d) {
                 return is_digit(d) ? 1 : subscript_value(d) >= 0 ? 2 : superscript_value(d) >= 0 ? 3 : 0;

@@ -43,10 +43,7 @@ public:
 
     /// Where the reaction rule puts each term it reads (parse_reaction sets it).
     void build(ast::Reaction* tree) { tree_ = tree; }
-    void add(ast::Term& term, bool product) {
-        auto& side = product ? tree_->products : tree_->reactants;
-        side.push_back(std::move(term));
-    }
+    decltype(ast::Reaction::reactants)& side(bool product) { return product ? tree_->products : tree_->reactants; }
 
     /// Source range of a located node.
     static ast::Span position_of(const ast::Located& node) { return {node.first, node.last}; }

@@ -75,7 +75,14 @@ bool add_product(Rational& total, const Rational& a, const Rational& b) {
 // small enough (nearly every reaction: no rational arithmetic at all), exactly otherwise.
 template <class Number, class Convert, class Text>
 bool side_totals(const Prepared& p, Convert convert, Text text, std::string& bad) {
-    std::map<std::string_view, std::pair<Number, Number>> totals;  // element -> (left, right)
+    // element -> (left, right); a flat list (a reaction has few elements), in symbol order below
+    boost::container::small_vector<std::pair<std::string_view, std::pair<Number, Number>>, 8> totals;
+    auto total_of = [&totals](std::string_view sym) -> std::pair<Number, Number>& {
+        for (auto& e : totals)
+            if (e.first == sym) return e.second;
+        totals.emplace_back(sym, std::pair<Number, Number>(0, 0));
+        return totals.back().second;
+    };
     Number q_left = 0, q_right = 0;
     for (std::size_t i = 0; i < p.terms.size(); ++i) {
         const bool product = p.nu[i].sign() > 0;
@@ -84,11 +91,12 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string& bad
         for (const auto& [sym, count] : p.compositions[i].atoms) {
             Number c;
             if (!convert(count, c)) return false;
-            auto& t = totals[sym];
+            auto& t = total_of(sym);
             if (!add_product(product ? t.second : t.first, n, c)) return false;
         }
         if (!add_product(product ? q_right : q_left, n, Number(p.compositions[i].charge))) return false;
     }
+    std::sort(totals.begin(), totals.end(), [](const auto& x, const auto& y) { return x.first < y.first; });
     for (const auto& [sym, t] : totals)
         if (t.first != t.second)
             bad += std::string(bad.empty() ? "" : "; ") + std::string(sym) + " " + text(t.first) + " on the left, " +
@@ -711,6 +719,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         // first), so it is not looked up: a long unbalanced input costs its parse only.
         if (!p->balance_error) {
             try {
+                p->substances.reserve(p->terms.size());
                 for (std::size_t i = 0; i < p->terms.size(); ++i) {
                     if (known[i] && known[i]->substance) {
                         p->substances.push_back(known[i]->substance);
