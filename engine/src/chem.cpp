@@ -75,6 +75,17 @@ std::uint64_t power_mod(std::uint64_t b, std::uint64_t e, std::uint64_t p) {
     return r;
 }
 
+/// 1/b modulo the prime P (Fermat), with P a constant so each % becomes multiplications.
+template <std::uint64_t P>
+std::uint64_t inverse_mod(std::uint64_t b) {
+    std::uint64_t r = 1;
+    for (std::uint64_t e = P - 2; e; e >>= 1) {
+        if (e & 1) r = r * b % P;
+        b = b * b % P;
+    }
+    return r;
+}
+
 // Gauss–Jordan elimination modulo P; a constant modulus lets the compiler turn each % into
 // multiplications.
 template <std::uint64_t P>
@@ -85,6 +96,13 @@ ModEchelon echelon_mod(const IntColumns& m) {
     auto at = [&](std::size_t i, std::size_t j) -> std::uint64_t& { return e.a[i * cols + j]; };
     for (std::size_t j = 0; j < cols; ++j)
         for (const auto& [i, x] : m.cols[j]) {
+            static const cpp_int small = INT64_MAX;
+            if (x <= small && x >= -small) {  // nearly every count: no big division
+                std::int64_t r = x.template convert_to<std::int64_t>() % static_cast<std::int64_t>(P);
+                if (r < 0) r += static_cast<std::int64_t>(P);
+                at(i, j) = static_cast<std::uint64_t>(r);
+                continue;
+            }
             cpp_int r = x % P;  // the sign of x
             if (r < 0) r += P;
             at(i, j) = r.convert_to<std::uint64_t>();
@@ -96,7 +114,7 @@ ModEchelon echelon_mod(const IntColumns& m) {
         if (p == rows) continue;
         if (p != r)
             for (std::size_t j = c; j < cols; ++j) std::swap(at(p, j), at(r, j));
-        const std::uint64_t inv = power_mod(at(r, c), P - 2, P);  // Fermat
+        const std::uint64_t inv = inverse_mod<P>(at(r, c));
         for (std::size_t j = c; j < cols; ++j) at(r, j) = at(r, j) * inv % P;
         for (std::size_t i = 0; i < rows; ++i) {
             if (i == r || at(i, c) == 0) continue;
@@ -207,7 +225,8 @@ std::vector<std::vector<cpp_int>> rebuilt_null_space(const IntColumns& m, const 
                 const std::uint64_t a = es[k].a[i * cols + f];
                 const std::uint64_t want = a ? p - a : 0;
                 const std::uint64_t have = static_cast<std::uint64_t>(x % static_cast<i128>(p));
-                const std::uint64_t inv = power_mod(static_cast<std::uint64_t>(m_so_far % static_cast<i128>(p)), p - 2, p);
+                const std::uint64_t m_mod = static_cast<std::uint64_t>(m_so_far % static_cast<i128>(p));
+                const std::uint64_t inv = m_mod == 1 ? 1 : power_mod(m_mod, p - 2, p);  // 1 for the first prime
                 const std::uint64_t t = (want + p - have) % p * inv % p;
                 x += m_so_far * static_cast<i128>(t);
                 m_so_far *= static_cast<i128>(p);

@@ -635,7 +635,8 @@ void PreparedCache::put_species(std::string_view written, SpeciesMemo memo) {
     if (capacity_ == 0 || written.size() > 64) return;
     std::unique_lock<std::shared_mutex> lock(species_mutex_);
     if (species_.size() >= species_memo_entries) species_.clear();
-    species_.emplace(std::string(written), std::make_shared<const SpeciesMemo>(std::move(memo)));
+    // Replaces an entry without data (kept for the composition of an unbalanced reaction's species).
+    species_.insert_or_assign(std::string(written), std::make_shared<const SpeciesMemo>(std::move(memo)));
 }
 
 CacheStats PreparedCache::stats() const {
@@ -706,6 +707,11 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
             } else {
                 p->compositions.push_back(db.composition(p->terms[i]->species, table));
                 p->composition_keys.push_back(p->compositions.back().key());
+                // Kept now, not only once the data is found below: an unbalanced reaction's
+                // species are never resolved, and its next text would pay the composition again.
+                if (memo)
+                    cache->put_species(p->terms[i]->species.written,
+                                       {p->compositions.back(), p->composition_keys.back(), nullptr});
             }
         }
     } catch (const Error& e) {

@@ -106,7 +106,7 @@ public:
     struct SpeciesMemo {
         Composition composition;
         std::string composition_key;
-        std::shared_ptr<const Substance> substance;  ///< null when resolving failed (not kept)
+        std::shared_ptr<const Substance> substance;  ///< null: not resolved (an unbalanced reaction's species) or resolving failed
     };
     static constexpr std::size_t species_memo_entries = 1024;
     std::shared_ptr<const SpeciesMemo> find_species(std::string_view written) const;  ///< null: not seen

@@ -178,3 +178,19 @@ TEST_CASE("cache: threads hitting, missing and evicting give one thread's values
     CHECK(s.entries <= 16);
     CHECK(s.hits + s.misses == 12000);
 }
+
+// The species memo keeps an unbalanced reaction's compositions without data (engine/src/
+// reaction.cpp): a later balanced reaction of the same species must still find its data, and
+// get the same value as an engine that never saw the unbalanced text.
+TEST_CASE("cache: species first met in an unbalanced reaction still get their data", "[cache]") {
+    Engine e(rxnheat::EngineOptions{64});
+    CHECK(e.check("H2(g) + O2(g) -> H2O(l)").find("not balanced") != std::string::npos);
+    CHECK(e.balance("H2(g) + O2(g) -> H2O(l)") == "2 H2(g) + O2(g) -> 2 H2O(l)");
+    const double warm = e.dh("2 H2(g) + O2(g) -> 2 H2O(l)", 500);
+    Engine fresh(rxnheat::EngineOptions{64});
+    CHECK(warm == fresh.dh("2 H2(g) + O2(g) -> 2 H2O(l)", 500));
+    CHECK(warm == Engine(rxnheat::EngineOptions{0}).dh("2 H2(g) + O2(g) -> 2 H2O(l)", 500));  // no cache, no memo
+    // A species with no data met first unbalanced, then balanced: the error names it.
+    CHECK(e.check("Xe(g) + F2(g) -> XeF6(g)").find("not balanced") != std::string::npos);
+    CHECK_THROWS_AS(e.dh(XEF6), rxnheat::Error);
+}
