@@ -27,7 +27,7 @@ namespace {
 Error from_parse_error(const grammar::ParseError& e) { return Error(ErrorKind::syntax, e.what()); }
 
 std::string side_text(const std::vector<grammar::Term>& terms, const std::vector<Rational>& coefs,
-                      const std::vector<std::shared_ptr<const Substance>>* resolved, std::size_t offset, double T) {
+                      const Prepared::PerTerm<std::shared_ptr<const Substance>>* resolved, std::size_t offset, double T) {
     std::string out;
     for (std::size_t i = 0; i < terms.size(); ++i) {
         if (i) out += " + ";
@@ -88,13 +88,13 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string& bad
         const bool product = p.nu[i].sign() > 0;
         Number n;
         if (!convert(product ? p.nu[i] : Rational(-p.nu[i]), n)) return false;
-        for (const auto& [sym, count] : p.compositions[i].atoms) {
+        for (const auto& [sym, count] : p.compositions[i]->atoms) {
             Number c;
             if (!convert(count, c)) return false;
             auto& t = total_of(sym);
             if (!add_product(product ? t.second : t.first, n, c)) return false;
         }
-        if (!add_product(product ? q_right : q_left, n, Number(p.compositions[i].charge))) return false;
+        if (!add_product(product ? q_right : q_left, n, Number(p.compositions[i]->charge))) return false;
     }
     std::sort(totals.begin(), totals.end(), [](const auto& x, const auto& y) { return x.first < y.first; });
     for (const auto& [sym, t] : totals)
@@ -179,14 +179,15 @@ void build_segments(Prepared& p) {
     }
     std::sort(ends.begin(), ends.end());
     ends.erase(std::unique(ends.begin(), ends.end()), ends.end());
-    // At most one segment at each end and one between two ends: reserved once (exact sizes would
-    // need a second pass over the records; the estimate of the cache counts the capacity).
-    p.segments.reserve(2 * ends.size());
-    p.segment_intervals.reserve(2 * ends.size() * p.substances.size());
+    // Built on the stack, then copied at their exact sizes: a typical reaction's segments and
+    // intervals then fit inside the Prepared (at most one segment at each end and one between
+    // two ends; reserving that bound would put most of them on the heap).
+    boost::container::small_vector<Prepared::Segment, 16> segments;
+    boost::container::small_vector<const Interval*, 64> segment_intervals;
     // The intervals at one temperature, selecting records and intervals exactly as
     // Substance::H does; false when some species has no data there (the per-species path then
     // says so).
-    auto intervals_at = [&p](double T) {
+    auto intervals_at = [&p, &segment_intervals](double T) {
         for (const auto& sp : p.substances) {
             const Substance& s = *sp;
             const Record* hit = nullptr;
@@ -196,14 +197,14 @@ void build_segments(Prepared& p) {
                     break;
                 }
             if (!hit) return false;
-            p.segment_intervals.push_back(&interval_at(*hit, T));
+            segment_intervals.push_back(&interval_at(*hit, T));
         }
         return true;
     };
     auto add = [&](double lo, double hi, double at) {
-        const std::size_t first = p.segment_intervals.size();
-        if (intervals_at(at)) p.segments.push_back({lo, hi, first});
-        else p.segment_intervals.resize(first);
+        const std::size_t first = segment_intervals.size();
+        if (intervals_at(at)) segments.push_back({lo, hi, first});
+        else segment_intervals.resize(first);
     };
     for (std::size_t k = 0; k < ends.size(); ++k) {
         add(ends[k], ends[k], ends[k]);
@@ -212,6 +213,8 @@ void build_segments(Prepared& p) {
             add(lo, hi, 0.5 * (lo + hi));
         }
     }
+    p.segments.assign(segments.begin(), segments.end());
+    p.segment_intervals.assign(segment_intervals.begin(), segment_intervals.end());
 }
 
 }  // namespace
@@ -347,9 +350,9 @@ std::string balanced_text(const Prepared& prepared) {
     // species is charged; one column per term, reactants positive.
     std::map<std::string, std::size_t> row_of;
     for (const auto& c : p->compositions)
-        for (const auto& a : c.atoms) row_of.emplace(a.first, row_of.size());
+        for (const auto& a : c->atoms) row_of.emplace(a.first, row_of.size());
     bool charged = false;
-    for (const auto& c : p->compositions) charged = charged || c.charge != 0;
+    for (const auto& c : p->compositions) charged = charged || c->charge != 0;
     const std::size_t n = p->terms.size();
     const std::size_t rows = row_of.size() + (charged ? 1 : 0);
     // The rank is at most the number of rows, so the null space has at least n − rows
@@ -363,9 +366,9 @@ std::string balanced_text(const Prepared& prepared) {
     std::vector<SparseColumn> m(n);
     for (std::size_t j = 0; j < n; ++j) {
         const bool left = p->nu[j].sign() < 0;
-        for (const auto& a : p->compositions[j].atoms)
+        for (const auto& a : p->compositions[j]->atoms)
             if (!a.second.is_zero()) m[j].emplace_back(row_of[a.first], left ? a.second : Rational(-a.second));
-        if (const int q = p->compositions[j].charge) m[j].emplace_back(rows - 1, Rational(left ? q : -q));
+        if (const int q = p->compositions[j]->charge) m[j].emplace_back(rows - 1, Rational(left ? q : -q));
     }
     const BalanceSolution sol = solve_balance(rows, m);
     switch (sol.kind) {
@@ -448,21 +451,27 @@ std::uint64_t mix64(std::uint64_t x) {  // splitmix64's finaliser: spreads a fin
 
 }  // namespace
 
+/// Bytes a small vector holds on the heap (none while its elements fit inline, in sizeof(Prepared)).
+template <class T, std::size_t N>
+std::size_t heap_bytes(const boost::container::small_vector<T, N>& v) {
+    return v.capacity() > N ? v.capacity() * sizeof(T) : 0;
+}
+
 std::size_t estimated_bytes(const Prepared& p) {
     std::size_t n = sizeof(Prepared) + string_bytes(p.ast.arrow);
     n += (p.ast.reactants.capacity() + p.ast.products.capacity()) * sizeof(grammar::Term);
     for (const auto* t : p.terms) n += species_bytes(t->species);
-    n += p.terms.capacity() * sizeof(void*) + p.nu.capacity() * sizeof(Rational) +
-         p.nu_double.capacity() * sizeof(double);
-    n += p.segments.capacity() * sizeof(Prepared::Segment) + p.segment_intervals.capacity() * sizeof(void*);
-    n += p.compositions.capacity() * sizeof(Composition);
+    n += heap_bytes(p.terms) + heap_bytes(p.nu) + heap_bytes(p.nu_double);
+    n += heap_bytes(p.segments) + heap_bytes(p.segment_intervals);
+    // A composition shared with the species memo is counted here too: an upper bound.
+    n += p.compositions.size() * sizeof(Composition);
     for (const auto& c : p.compositions) {
-        n += c.atoms.capacity() * sizeof(c.atoms[0]);
-        for (const auto& a : c.atoms) n += string_bytes(a.first);
+        n += c->atoms.capacity() * sizeof(c->atoms[0]);
+        for (const auto& a : c->atoms) n += string_bytes(a.first);
     }
-    n += p.composition_keys.capacity() * sizeof(std::string);
+    n += heap_bytes(p.composition_keys);
     for (const auto& k : p.composition_keys) n += string_bytes(k);
-    n += p.substances.capacity() * sizeof(p.substances[0]) + p.substances.size() * sizeof(Substance);
+    n += heap_bytes(p.substances) + p.substances.size() * sizeof(Substance);
     for (const auto& sp : p.substances) {
         const Substance& s = *sp;
         n += string_bytes(s.label) + string_bytes(s.display) + s.composition.atoms.capacity() * sizeof(s.composition.atoms[0]);
@@ -705,8 +714,8 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                 p->compositions.push_back(known[i]->composition);
                 p->composition_keys.push_back(known[i]->composition_key);
             } else {
-                p->compositions.push_back(db.composition(p->terms[i]->species, table));
-                p->composition_keys.push_back(p->compositions.back().key());
+                p->compositions.push_back(std::make_shared<const Composition>(db.composition(p->terms[i]->species, table)));
+                p->composition_keys.push_back(p->compositions.back()->key());
                 // Kept now, not only once the data is found below: an unbalanced reaction's
                 // species are never resolved, and its next text would pay the composition again.
                 if (memo)

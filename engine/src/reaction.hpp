@@ -4,6 +4,8 @@
 #include "database.hpp"
 #include "rxnheat/rxnheat.hpp"
 
+#include <boost/container/small_vector.hpp>
+
 #include <array>
 #include <cstdint>
 #include <memory>
@@ -20,15 +22,19 @@ namespace rxnheat::detail {
 /// A reaction prepared for evaluation. Stages that failed keep their error, so a cached bad
 /// reaction fails the same way every time without being parsed again.
 struct Prepared {
+    /// Per-term lists hold up to four terms inline: a typical reaction's prepare allocates none
+    /// of them (each heap block is paid twice, when made and when the cache evicts it).
+    template <class T> using PerTerm = boost::container::small_vector<T, 4>;
     grammar::Reaction ast;
-    std::vector<const grammar::Term*> terms;  ///< reactants then products
-    std::vector<Rational> nu;                 ///< signed: reactants < 0, products > 0
-    std::vector<double> nu_double;            ///< nu as doubles, converted once (hot path)
-    std::vector<Composition> compositions;    ///< per term (empty if composition_error)
-    std::vector<std::string> composition_keys;  ///< Composition::key() per term, for matching `per`/`key`
+    PerTerm<const grammar::Term*> terms;      ///< reactants then products
+    PerTerm<Rational> nu;                     ///< signed: reactants < 0, products > 0
+    PerTerm<double> nu_double;                ///< nu as doubles, converted once (hot path)
+    /// Per term (empty if composition_error); shared with the species memo, not copied.
+    PerTerm<std::shared_ptr<const Composition>> compositions;
+    PerTerm<std::string> composition_keys;    ///< Composition::key() per term, for matching `per`/`key`
     std::optional<Error> composition_error;   ///< a bad element symbol or unknown name
     std::optional<Error> balance_error;       ///< unbalanced elements or charge
-    std::vector<std::shared_ptr<const Substance>> substances;  ///< per term (empty if resolve_error); shared with the species memo
+    PerTerm<std::shared_ptr<const Substance>> substances;  ///< per term (empty if resolve_error); shared with the species memo
     std::optional<Error> resolve_error;       ///< no data, ambiguous, missing phase
 
     /// Each species' NASA polynomial interval per temperature segment, found once when every
@@ -42,8 +48,8 @@ struct Prepared {
         double lo_K, hi_K;
         std::size_t first;  ///< intervals [first, first + terms.size()) of segment_intervals
     };
-    std::vector<Segment> segments;
-    std::vector<const Interval*> segment_intervals;
+    boost::container::small_vector<Segment, 8> segments;  ///< inline: a gas reaction's usual five or so
+    boost::container::small_vector<const Interval*, 32> segment_intervals;
     const Segment* segment_at(double T) const noexcept;
     /// ΔrH° at exactly 298.15 K (the default temperature), computed once by the per-species path.
     bool has_dH_ref = false;
@@ -104,7 +110,7 @@ public:
     /// in the reaction); at most species_memo_entries species of at most 64 bytes of text each,
     /// emptied when full. Thread-safe (read-mostly, as the cache).
     struct SpeciesMemo {
-        Composition composition;
+        std::shared_ptr<const Composition> composition;
         std::string composition_key;
         std::shared_ptr<const Substance> substance;  ///< null: not resolved (an unbalanced reaction's species) or resolving failed
     };
