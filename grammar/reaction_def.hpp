@@ -21,6 +21,7 @@
 #include <boost/spirit/home/x3.hpp>
 #include <boost/throw_exception.hpp>
 
+#include <cstdint>
 #include <type_traits>
 
 namespace rxnheat::grammar::parser {
@@ -34,16 +35,30 @@ struct code_points : x3::char_parser<code_points<WithAttribute>> {
     using attribute_type = std::conditional_t<WithAttribute, char32_t, x3::unused_type>;
     static bool const has_attribute = WithAttribute;
 
-    constexpr explicit code_points(char32_t const* set) : set(set) {}
+    constexpr explicit code_points(char32_t const* set)
+        : set(set), ascii_low(ascii_mask(set, 0)), ascii_high(ascii_mask(set, 64)) {}
 
     template <typename Char, typename Context>
     bool test(Char ch, Context const&) const {
+        // ASCII, nearly every character read, by a bit of the set's mask; others by the list.
+        auto const c = static_cast<char32_t>(ch);
+        if (c < 64) return (ascii_low >> c) & 1u;
+        if (c < 128) return (ascii_high >> (c - 64)) & 1u;
         for (char32_t const* p = set; *p; ++p)
-            if (static_cast<char32_t>(ch) == *p) return true;
+            if (c == *p) return true;
         return false;
     }
 
+    /// Bit (c - base) for each member c in [base, base + 64).
+    static constexpr std::uint64_t ascii_mask(char32_t const* set, char32_t base) {
+        std::uint64_t m = 0;
+        for (char32_t const* p = set; *p; ++p)
+            if (*p >= base && *p < base + 64) m |= std::uint64_t(1) << (*p - base);
+        return m;
+    }
+
     char32_t const* set;
+    std::uint64_t ascii_low, ascii_high;  ///< members U+0000..U+003F and U+0040..U+007F
 };
 
 /// One code point in [lo, hi].
@@ -133,6 +148,36 @@ struct append_to_side_gen {
 };
 
 constexpr append_to_side_gen append_to_side(bool product) { return {product}; }
+
+/// `left | right` into a variant attribute with each alternative parsed in place, in the
+/// variant's own storage. X3's alternative parses into a temporary and moves it in, and a
+/// formula (its parts and items held inline) was a tenth of a long reaction's parse.
+template <typename Left, typename Right>
+struct in_place_alternative : x3::binary_parser<Left, Right, in_place_alternative<Left, Right>> {
+    using base_type = x3::binary_parser<Left, Right, in_place_alternative<Left, Right>>;
+    constexpr in_place_alternative(Left const& left, Right const& right) : base_type(left, right) {}
+
+    template <typename Iterator, typename Context, typename RContext, typename Variant>
+    bool parse(Iterator& first, Iterator const& last, Context const& context, RContext& rcontext,
+               Variant& attr) const {
+        return alternative(this->left, first, last, context, rcontext, attr) ||
+               alternative(this->right, first, last, context, rcontext, attr);
+    }
+
+private:
+    template <typename Subject, typename Iterator, typename Context, typename RContext, typename Variant>
+    static bool alternative(Subject const& subject, Iterator& first, Iterator const& last,
+                            Context const& context, RContext& rcontext, Variant& attr) {
+        using A = typename x3::traits::attribute_of<Subject, Context>::type;
+        if (!boost::get<A>(&attr.get())) attr = A();
+        return subject.parse(first, last, context, rcontext, boost::get<A>(attr.get()));
+    }
+};
+
+template <typename Left, typename Right>
+constexpr in_place_alternative<Left, Right> in_place(Left const& left, Right const& right) {
+    return {left, right};
+}
 
 struct expect_key_gen {
     template <typename Subject>
@@ -332,7 +377,7 @@ auto const formula_def = parts >> -charge;
 auto const name_char = lower | digit | (name_joiner >> &(lower | digit));
 auto const name_def = x3::raw[lower >> *name_char >> *(+blank >> &lower >> +name_char)];
 
-auto const body_def = name | formula;
+auto const body_def = detail::in_place(name, formula);  // name | formula
 auto const phase_def = open_paren >> &lower >> expect("phase")[phase_word >> close_paren];
 auto const phase_word_def = x3::raw[+lower];
 auto const species_def = body >> -(ws >> phase);
