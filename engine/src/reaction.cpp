@@ -162,21 +162,34 @@ void Prepared::require_thermo() const {
 
 namespace {
 
-/// Prepared::segments for a reaction whose species are all NASA records of a written phase.
-void build_segments(Prepared& p) {
+/// Whether Prepared::segments can be built (every species a NASA record of a written phase),
+/// and a bound on the heap bytes they would take then.
+void plan_segments(Prepared& p) {
     if (p.substances.empty()) return;
-    boost::container::small_vector<double, 32> ends;  // a typical reaction's fit on the stack
+    std::size_t ends = 0;
     for (const auto& sp : p.substances) {
         const Substance& s = *sp;
         if (s.user || s.aqueous || s.phase_assumed || s.records.empty()) return;
         for (const Record* r : s.records) {
             if (r->intervals.empty()) return;
+            ends += 2 * r->intervals.size();
+        }
+    }
+    p.segments_possible = true;
+    const std::size_t segments = 2 * ends, intervals = segments * p.substances.size();
+    if (segments > p.segments.capacity()) p.segments_bytes_bound += segments * sizeof(Prepared::Segment);
+    if (intervals > p.segment_intervals.capacity()) p.segments_bytes_bound += intervals * sizeof(void*);
+}
+
+/// Prepared::segments, when plan_segments found them possible.
+void build_segments(const Prepared& p) {
+    boost::container::small_vector<double, 32> ends;  // a typical reaction's fit on the stack
+    for (const auto& sp : p.substances)
+        for (const Record* r : sp->records)
             for (const auto& iv : r->intervals) {
                 ends.push_back(iv.tmin);
                 ends.push_back(iv.tmax);
             }
-        }
-    }
     std::sort(ends.begin(), ends.end());
     ends.erase(std::unique(ends.begin(), ends.end()), ends.end());
     // Built on the stack, then copied at their exact sizes: a typical reaction's segments and
@@ -219,8 +232,21 @@ void build_segments(Prepared& p) {
 
 }  // namespace
 
-const Prepared::Segment* Prepared::segment_at(double T) const noexcept {
+const Prepared::Segment* Prepared::segment_at(double T) const {
     if (std::fabs(T - T_ref) < 1e-9) return nullptr;  // tabulated ΔfH° there (Substance::H)
+    if (!segments_possible) return nullptr;
+    int state = segment_state_.load(std::memory_order_acquire);
+    if (state != 2) {
+        // The first evaluation only marks the reaction; whoever comes next builds (call_once makes
+        // the others wait for it and see what it wrote; the release store lets later callers skip
+        // call_once and see the same).
+        if (state == 0 && segment_state_.compare_exchange_strong(state, 1, std::memory_order_relaxed))
+            return nullptr;
+        std::call_once(segments_once_, [this] {
+            build_segments(*this);
+            segment_state_.store(2, std::memory_order_release);
+        });
+    }
     for (const auto& s : segments)
         if (T >= s.lo_K && T <= s.hi_K) return &s;
     return nullptr;
@@ -462,7 +488,7 @@ std::size_t estimated_bytes(const Prepared& p) {
     n += (p.ast.reactants.capacity() + p.ast.products.capacity()) * sizeof(grammar::Term);
     for (const auto* t : p.terms) n += species_bytes(t->species);
     n += heap_bytes(p.terms) + heap_bytes(p.nu) + heap_bytes(p.nu_double);
-    n += heap_bytes(p.segments) + heap_bytes(p.segment_intervals);
+    n += p.segments_bytes_bound;  // the segments' heap bytes once built (none yet, most often)
     // A composition shared with the species memo is counted here too: an upper bound.
     n += p.compositions.size() * sizeof(Composition);
     for (const auto& c : p.compositions) {
@@ -745,7 +771,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                         cache->put_species(p->terms[i]->species.written,
                                            {p->compositions[i], p->composition_keys[i], p->substances.back()});
                 }
-                build_segments(*p);
+                plan_segments(*p);
                 try {
                     p->dH_ref_J = p->dH(T_ref);
                     p->has_dH_ref = true;

@@ -7,6 +7,7 @@
 #include <boost/container/small_vector.hpp>
 
 #include <array>
+#include <atomic>
 #include <cstdint>
 #include <memory>
 #include <mutex>
@@ -48,9 +49,15 @@ struct Prepared {
         double lo_K, hi_K;
         std::size_t first;  ///< intervals [first, first + terms.size()) of segment_intervals
     };
-    boost::container::small_vector<Segment, 8> segments;  ///< inline: a gas reaction's usual five or so
-    boost::container::small_vector<const Interval*, 32> segment_intervals;
-    const Segment* segment_at(double T) const noexcept;
+    /// Built at the second evaluation at a temperature other than 298.15 K, not in prepare: a
+    /// reaction evaluated once (a sheet of distinct texts) takes the per-species path, which gives
+    /// the same bits, and the build was a sixth of a cold dh. Thread-safe (segment_at).
+    mutable boost::container::small_vector<Segment, 8> segments;  ///< inline: a gas reaction's usual five or so
+    mutable boost::container::small_vector<const Interval*, 32> segment_intervals;
+    bool segments_possible = false;  ///< every species a NASA record of a written phase (set by prepare)
+    std::size_t segments_bytes_bound = 0;  ///< heap bytes the segments may take once built (for the cache's bound)
+    /// The segment holding T; nullptr for 298.15 K, the first evaluation, or a T outside all.
+    const Segment* segment_at(double T) const;
     /// ΔrH° at exactly 298.15 K (the default temperature), computed once by the per-species path.
     bool has_dH_ref = false;
     double dH_ref_J = 0;
@@ -73,6 +80,8 @@ struct Prepared {
                              std::size_t* term_index) const;
 
 private:
+    mutable std::once_flag segments_once_;
+    mutable std::atomic<int> segment_state_{0};  ///< 0 not evaluated, 1 evaluated once, 2 built
     mutable std::once_flag balanced_once_;
     mutable std::string balanced_text_;
     mutable std::optional<Error> balanced_error_;

@@ -12,6 +12,7 @@
 
 #include <atomic>
 #include <cstddef>
+#include <cstdio>
 #include <string>
 #include <thread>
 #include <vector>
@@ -193,4 +194,65 @@ TEST_CASE("cache: species first met in an unbalanced reaction still get their da
     // A species with no data met first unbalanced, then balanced: the error names it.
     CHECK(e.check("Xe(g) + F2(g) -> XeF6(g)").find("not balanced") != std::string::npos);
     CHECK_THROWS_AS(e.dh(XEF6), rxnheat::Error);
+}
+
+// A cached reaction evaluated again at a temperature other than 298.15 K uses each species' NASA
+// interval found once per temperature segment (engine/src/reaction.hpp, Prepared::segments),
+// built at its second evaluation; its first, and every evaluation without a cache, goes species
+// by species through their records. The two paths must give the same bits (same arithmetic), and
+// the same errors, at every temperature: inside intervals, at their common ends (1000 K) and a
+// hair beside them, and at or beyond the ends of the data.
+TEST_CASE("cache: a cached reaction's later evaluations equal its first bit for bit", "[cache]") {
+    Engine uncached(rxnheat::EngineOptions{0, 0});
+    Engine cached(rxnheat::EngineOptions{});
+    const char* const reactions[] = {
+        "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)",
+        "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)",
+        "CO(g) + H2O(g) -> CO2(g) + H2(g)",
+        "N2(g) + 3 H2(g) -> 2 NH3(g)",
+        "CaCO3(s) -> CaO(s) + CO2(g)",
+    };
+    const double temperatures[] = {100,  200,  250,    298.15, 300,          350,  373.15,  500,
+                                   999.999, 1000, 1000.000001, 1500, 3000, 5999, 6000, 6000.1, 20000};
+    // The value, or the error's message: both paths must agree on either.
+    auto outcome = [](auto&& f) -> std::string {
+        try {
+            const double v = f();
+            char buf[40];
+            std::snprintf(buf, sizeof buf, "%a", v);  // every bit
+            return buf;
+        } catch (const rxnheat::Error& e) {
+            return std::string("error: ") + e.what();
+        }
+    };
+    int values = 0;
+    for (const char* r : reactions)
+        for (const double T : temperatures) {
+            const std::string h = outcome([&] { return uncached.dh(r, T); });
+            const std::string s = outcome([&] { return uncached.ds(r, T); });
+            const std::string g = outcome([&] { return uncached.dg(r, T); });
+            values += h.rfind("error", 0) != 0;
+            for (int k = 0; k < 3; ++k) {  // first (per species), then from the segments
+                INFO(r << " at " << T << " K, evaluation " << k + 1);
+                CHECK(outcome([&] { return cached.dh(r, T); }) == h);
+                CHECK(outcome([&] { return cached.ds(r, T); }) == s);
+                CHECK(outcome([&] { return cached.dg(r, T); }) == g);
+            }
+        }
+    CHECK(values >= 40);  // most of the temperatures have data: the comparison is of numbers
+
+    // Threads meeting a new reaction at once: one builds the segments, the others wait for it or
+    // take the per-species path; every result is the same.
+    const std::string ref = outcome([&] { return uncached.dh("C2H6(g) + 3.5 O2(g) -> 2 CO2(g) + 3 H2O(g)", 1200); });
+    std::atomic<int> wrong{0};
+    std::vector<std::thread> threads;
+    for (int t = 0; t < 4; ++t)
+        threads.emplace_back([&] {
+            for (int i = 0; i < 200; ++i)
+                if (outcome([&] { return cached.dh("C2H6(g) + 3.5 O2(g) -> 2 CO2(g) + 3 H2O(g)", 1200); }) != ref)
+                    ++wrong;
+        });
+    for (auto& th : threads) th.join();
+    CHECK(wrong == 0);
+    CHECK(ref.rfind("error", 0) != 0);
 }
