@@ -811,14 +811,14 @@ std::string Engine::balance(std::string_view reaction, const Conditions& at) {
 
 std::string Engine::reverse(std::string_view reaction) {
     const auto p = impl_->prepare(reaction, nullptr);
-    grammar::Reaction r;
-    r.reactants = p->ast.products;
-    r.products = p->ast.reactants;
-    r.arrow = p->ast.arrow;
+    const auto& left = p->ast.products;  // the sides swapped, written from the prepared tree
+    const auto& right = p->ast.reactants;
     std::vector<Rational> l, rr;
-    for (const auto& t : r.reactants) l.push_back(t.coefficient);
-    for (const auto& t : r.products) rr.push_back(t.coefficient);
-    return detail::reaction_text(r, l, rr);
+    l.reserve(left.size());
+    rr.reserve(right.size());
+    for (const auto& t : left) l.push_back(t.coefficient);
+    for (const auto& t : right) rr.push_back(t.coefficient);
+    return detail::reaction_text(left, l, p->ast.arrow, right, rr);
 }
 
 std::string Engine::scale(std::string_view reaction, std::string_view factor) {

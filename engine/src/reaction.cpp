@@ -365,8 +365,14 @@ std::string Prepared::balanced() const {
 
 std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
                           const std::vector<Rational>& product_coefs) {
-    return side_text(r.reactants, reactant_coefs, nullptr, 0, T_ref) + " " + r.arrow + " " +
-           side_text(r.products, product_coefs, nullptr, 0, T_ref);
+    return reaction_text(r.reactants, reactant_coefs, r.arrow, r.products, product_coefs);
+}
+
+std::string reaction_text(const std::vector<grammar::Term>& left, const std::vector<Rational>& left_coefs,
+                          const std::string& arrow, const std::vector<grammar::Term>& right,
+                          const std::vector<Rational>& right_coefs) {
+    return side_text(left, left_coefs, nullptr, 0, T_ref) + " " + arrow + " " +
+           side_text(right, right_coefs, nullptr, 0, T_ref);
 }
 
 std::string balanced_text(const Prepared& prepared) {
