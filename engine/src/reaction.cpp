@@ -456,6 +456,12 @@ std::size_t string_bytes(const std::string& s) {
     return s.capacity() > 15 ? s.capacity() + 1 : 0;
 }
 
+/// Bytes a small vector holds on the heap (none while its elements fit inline, in sizeof(Prepared)).
+template <class T, std::size_t N>
+std::size_t heap_bytes(const boost::container::small_vector<T, N>& v) {
+    return v.capacity() > N ? v.capacity() * sizeof(T) : 0;
+}
+
 std::size_t species_bytes(const grammar::Species& sp) {
     std::size_t n = string_bytes(sp.name) + string_bytes(sp.formula) + string_bytes(sp.phase) +
                     string_bytes(sp.written) + sp.atoms.capacity() * sizeof(grammar::Atom);
@@ -482,12 +488,6 @@ std::uint64_t mix64(std::uint64_t x) {  // splitmix64's finaliser: spreads a fin
 }
 
 }  // namespace
-
-/// Bytes a small vector holds on the heap (none while its elements fit inline, in sizeof(Prepared)).
-template <class T, std::size_t N>
-std::size_t heap_bytes(const boost::container::small_vector<T, N>& v) {
-    return v.capacity() > N ? v.capacity() * sizeof(T) : 0;
-}
 
 std::size_t estimated_bytes(const Prepared& p) {
     std::size_t n = sizeof(Prepared) + string_bytes(p.ast.arrow);
