@@ -15,6 +15,8 @@
 
 #include <rxnheat/rxnheat.hpp>
 
+#include "cold_texts.hpp"
+
 #include <cmath>
 #include <cstddef>
 #include <functional>
@@ -39,23 +41,7 @@ const Typical typical[] = {
     {"calcination_1173K", "CaCO3(s) -> CaO(s) + CO2(g)", 1173},
 };
 
-/// A text that is the reaction with spaces inserted after its first species, after the arrow and
-/// at the end, their counts spelling `k` in base 40: distinct texts for k < 64,000.
-std::string unique_text(const std::string& base, std::size_t k) {
-    const std::size_t a = k % 40, b = (k / 40) % 40, c = (k / 1600) % 40;
-    std::string s = base;
-    const auto first_space = s.find(' ');
-    const auto arrow = s.find("->");
-    std::string out;
-    out.reserve(s.size() + a + b + c);
-    out += s.substr(0, first_space);
-    out += std::string(a, ' ');
-    out += s.substr(first_space, arrow + 2 - first_space);
-    out += std::string(b, ' ');
-    out += s.substr(arrow + 2);
-    out += std::string(c, ' ');
-    return out;
-}
+using rxnheat::bench::unique_text;
 
 /// 64,000 distinct texts of one reaction, built before timing.
 const std::vector<std::string>& unique_texts(const std::string& base) {

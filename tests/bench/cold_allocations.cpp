@@ -2,10 +2,13 @@
 // text asks of the allocator (each is paid again when the cache evicts the reaction). Replaces the
 // global operator new with a counting one, warms the engine (its data, the species memo) with 100
 // texts, then counts over N more, each new: the same reaction with spaces inserted at three
-// places, as bench_engine's cold benchmarks do. Results: tests/bench/RESULTS-engine.md, Cold path.
+// places (cold_texts.hpp), as bench_engine's cold benchmarks do. Results:
+// tests/bench/RESULTS-engine.md, Cold path.
 //
 //   build/tests/bench/cold_allocations [N]      (default 3000)
 #include <rxnheat/rxnheat.hpp>
+
+#include "cold_texts.hpp"
 
 #include <atomic>
 #include <cstdio>
@@ -17,13 +20,6 @@
 namespace {
 std::atomic<bool> counting{false};
 std::atomic<long> allocations{0};
-
-std::string spaced(const std::string& base, std::size_t k) {
-    const std::size_t a = k % 40, b = (k / 40) % 40, c = (k / 1600) % 40;
-    const auto first_space = base.find(' '), arrow = base.find("->");
-    return base.substr(0, first_space) + std::string(a, ' ') + base.substr(first_space, arrow + 2 - first_space) +
-           std::string(b, ' ') + base.substr(arrow + 2) + std::string(c, ' ');
-}
 }  // namespace
 
 void* operator new(std::size_t n) {
@@ -44,15 +40,15 @@ int main(int argc, char** argv) {
     struct Case {
         const char* what;
         std::string reaction;
+        double T_K;  ///< for dh
         bool balance;
     };
-    const Case cases[] = {{"dh, CH4 combustion at 298.15 K", "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)", false},
-                          {"dh, water-gas shift at 1000 K", "CO(g) + H2O(g) -> CO2(g) + H2(g)", false},
-                          {"balance, C3H8 + O2", "C3H8 + O2 -> CO2 + H2O", true}};
+    const Case cases[] = {{"dh, CH4 combustion at 298.15 K", "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)", 298.15, false},
+                          {"dh, water-gas shift at 1000 K", "CO(g) + H2O(g) -> CO2(g) + H2(g)", 1000, false},
+                          {"balance, C3H8 + O2", "C3H8 + O2 -> CO2 + H2O", 0, true}};
     for (const auto& c : cases) {
         std::vector<std::string> texts;
-        for (std::size_t k = 0; k < n + 100; ++k) texts.push_back(spaced(c.reaction, k));
-        const double T = c.reaction[1] == 'O' ? 1000 : 298.15;
+        for (std::size_t k = 0; k < n + 100; ++k) texts.push_back(rxnheat::bench::unique_text(c.reaction, k));
         double sink = 0;
         for (std::size_t k = 0; k < texts.size(); ++k) {
             if (k == 100) {
@@ -62,7 +58,7 @@ int main(int argc, char** argv) {
             if (c.balance)
                 sink += double(engine.balance(texts[k]).size());
             else
-                sink += engine.dh(texts[k], T);
+                sink += engine.dh(texts[k], c.T_K);
         }
         counting = false;
         std::printf("%-34s %6.2f allocations per call (%zu new texts; checksum %.6g)\n", c.what,
