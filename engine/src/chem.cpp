@@ -316,17 +316,115 @@ BalanceSolution eliminate_exactly(const IntColumns& m) {
         out.kind = BalanceSolution::Kind::none;
         return out;
     }
-    // One free column f: D x_f + a[i][f] = 0 on each pivot row i, D the common pivot.
+    // One free column f: D x_f + a[i][f] = 0 on each pivot row i, D the common pivot; the sign
+    // chosen so that x_f > 0, as the vectors rebuilt from residues have it.
     const std::size_t f = free.front();
     std::vector<cpp_int> v(cols);
-    v[f] = prev;
-    for (std::size_t i = 0; i < pivots.size(); ++i) v[pivots[i]] = -a[i][f];
+    const bool flip = prev < 0;
+    v[f] = flip ? cpp_int(-prev) : prev;
+    for (std::size_t i = 0; i < pivots.size(); ++i) v[pivots[i]] = flip ? a[i][f] : cpp_int(-a[i][f]);
     out.kind = BalanceSolution::Kind::unique;
     for (auto& x : v) out.coefficients.emplace_back(x);
     return out;
 }
 
+i128 abs_i128(i128 x) { return x < 0 ? -x : x; }
+
 }  // namespace
+
+std::optional<BalanceSolution> solve_balance_small(const SmallBalanceMatrix& m) {
+    constexpr std::size_t R = SmallBalanceMatrix::max_rows, C = SmallBalanceMatrix::max_cols;
+    const std::size_t rows = m.rows, cols = m.cols;
+    if (rows > R || cols > C) return std::nullopt;
+    BalanceSolution out;
+    if (cols >= rows + 2) {  // as solve_balance: the rank is at most the number of rows
+        out.kind = BalanceSolution::Kind::several;
+        out.ways = cols - rows;
+        out.ways_exact = false;
+        return out;
+    }
+    // The same fraction-free Gauss–Jordan elimination as eliminate_exactly, carried to the end
+    // (the matrix is small): every entry a minor of m, kept below 2^62 so that each product of
+    // two fits 128 bits.
+    constexpr i128 limit = i128(1) << 62;
+    i128 a[R][C];
+    for (std::size_t i = 0; i < rows; ++i)
+        for (std::size_t j = 0; j < cols; ++j) {
+            if (m.a[i][j] >= SmallBalanceMatrix::max_entry || m.a[i][j] <= -SmallBalanceMatrix::max_entry)
+                return std::nullopt;
+            a[i][j] = m.a[i][j];
+        }
+    std::size_t pivots[C], free[C], nfree = 0, r = 0;
+    i128 prev = 1;
+    for (std::size_t c = 0; c < cols; ++c) {
+        std::size_t p = r;
+        while (p < rows && a[p][c] == 0) ++p;
+        if (p >= rows) {
+            free[nfree++] = c;
+            continue;
+        }
+        if (p != r)
+            for (std::size_t j = 0; j < cols; ++j) std::swap(a[p][j], a[r][j]);
+        const i128 pivot = a[r][c];
+        for (std::size_t i = 0; i < rows; ++i) {
+            if (i == r) continue;
+            const i128 f = a[i][c];
+            if (f == 0 && pivot == prev) continue;
+            for (std::size_t j = 0; j < cols; ++j) {
+                if (j == c) continue;
+                const i128 num = pivot * a[i][j] - f * a[r][j];
+                // exact (Bareiss); by the first pivot, 1, nothing to divide, and a quotient of
+                // 64-bit numbers by the processor's own division, not the 128-bit routine's
+                const i128 x = prev == 1 ? num
+                               : num > INT64_MIN && num <= INT64_MAX  // (INT64_MIN / -1 would overflow)
+                                   ? i128(static_cast<std::int64_t>(num) / static_cast<std::int64_t>(prev))
+                                   : num / prev;
+                if (abs_i128(x) >= limit) return std::nullopt;
+                a[i][j] = x;
+            }
+            a[i][c] = 0;
+        }
+        prev = pivot;
+        pivots[r++] = c;
+    }
+    if (nfree == 0) {
+        out.kind = BalanceSolution::Kind::none;
+        return out;
+    }
+    if (nfree > 1) {  // exactly: the elimination ran to the end
+        out.kind = BalanceSolution::Kind::several;
+        out.ways = nfree;
+        return out;
+    }
+    // One free column f: D x_f + a[i][f] = 0 on each pivot row i, D the common pivot, x_f > 0.
+    const std::size_t f = free[0];
+    i128 v[C] = {};
+    const i128 sign = prev < 0 ? -1 : 1;
+    v[f] = sign * prev;
+    for (std::size_t i = 0; i < r; ++i) v[pivots[i]] = -sign * a[i][f];
+    // Checked on m itself (|m| < 2^31, |v| < 2^62: each sum stays far below 2^127).
+    for (std::size_t i = 0; i < rows; ++i) {
+        i128 sum = 0;
+        for (std::size_t j = 0; j < cols; ++j) sum += m.a[i][j] * v[j];
+        if (sum != 0) throw Error(ErrorKind::internal, "the exact balance does not balance");
+    }
+    // The balance of the unscaled matrix, in lowest terms (scale < 2^31: products below 2^93).
+    i128 g = 0;
+    for (std::size_t j = 0; j < cols; ++j) {
+        v[j] *= m.scale[j];
+        g = g == 0 ? abs_i128(v[j]) : v[j] == 0 ? g : gcd_i128(g, abs_i128(v[j]));
+    }
+    out.kind = BalanceSolution::Kind::unique;
+    out.coefficients.reserve(cols);
+    for (std::size_t j = 0; j < cols; ++j) {
+        const i128 x = v[j] / g;
+        if (x >= INT64_MIN && x <= INT64_MAX)
+            out.coefficients.emplace_back(static_cast<std::int64_t>(x));
+        else
+            out.coefficients.emplace_back(to_big(x));
+    }
+    return out;
+}
 
 BalanceSolution solve_balance(std::size_t rows, const std::vector<SparseColumn>& m) {
     using boost::multiprecision::denominator;

@@ -3,6 +3,8 @@
 
 #include "grammar/parse.hpp"
 
+#include <cstdint>
+#include <optional>
 #include <vector>
 
 namespace rxnheat::detail {
@@ -44,6 +46,24 @@ using SparseColumn = std::vector<std::pair<std::size_t, Rational>>;
 /// dividing a minor) does it eliminate exactly, fraction-free, stopping as soon as a second free
 /// column shows that no single balance exists, and giving up (too_large) past max_balance_bits.
 BalanceSolution solve_balance(std::size_t rows, const std::vector<SparseColumn>& m);
+
+/// The element-and-charge matrix of a reaction of few terms, in whole numbers and inline (no
+/// heap): column j is term j, multiplied by scale[j] to clear the denominators of its counts.
+struct SmallBalanceMatrix {
+    static constexpr std::size_t max_rows = 12, max_cols = 12;
+    /// Entries are kept below this in magnitude: then every check of a balance fits 128 bits.
+    static constexpr std::int64_t max_entry = std::int64_t(1) << 31;
+    std::size_t rows = 0, cols = 0;
+    std::int64_t a[max_rows][max_cols] = {};
+    std::int64_t scale[max_cols] = {};
+};
+
+/// Decides the balance of `m` as solve_balance decides that of the same matrix (the same kind,
+/// number of ways and coefficients; a unique balance with its free column positive), by
+/// fraction-free elimination in 128-bit integers on the stack. A reaction of a few terms is the
+/// common case, and this needs no allocation but the answer's. std::nullopt when an intermediate
+/// value would pass 2^62: then solve_balance decides.
+std::optional<BalanceSolution> solve_balance_small(const SmallBalanceMatrix& m);
 
 /// Scales a rational vector to the smallest whole numbers with the same ratios (sign kept).
 std::vector<Rational> smallest_integers(const std::vector<Rational>& v);

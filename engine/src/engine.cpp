@@ -818,7 +818,7 @@ std::string Engine::reverse(std::string_view reaction) {
     rr.reserve(right.size());
     for (const auto& t : left) l.push_back(t.coefficient);
     for (const auto& t : right) rr.push_back(t.coefficient);
-    return detail::reaction_text(left, l, p->ast.arrow, right, rr);
+    return detail::reaction_text(left, l.data(), p->ast.arrow, right, rr.data());
 }
 
 std::string Engine::scale(std::string_view reaction, std::string_view factor) {

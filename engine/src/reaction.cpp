@@ -15,7 +15,9 @@
 #include <atomic>
 #include <deque>
 #include <functional>
+#include <charconv>
 #include <map>
+#include <numeric>
 #include <set>
 #include <shared_mutex>
 #include <unordered_map>
@@ -26,15 +28,39 @@ namespace {
 
 Error from_parse_error(const grammar::ParseError& e) { return Error(ErrorKind::syntax, e.what()); }
 
-std::string side_text(const std::vector<grammar::Term>& terms, const std::vector<Rational>& coefs,
-                      const Prepared::PerTerm<std::shared_ptr<const Substance>>* resolved, std::size_t offset, double T) {
-    std::string out;
+/// Appends `r` as rational_text writes it ("n" or "n/d"); 64-bit values without a temporary.
+void append_rational(std::string& out, const Rational& r) {
+    if (!r.fits_64()) {
+        out += rational_text(r);
+        return;
+    }
+    char digits[48];
+    char* end = std::to_chars(digits, digits + 24, r.num64()).ptr;
+    if (r.den64() != 1) {
+        *end++ = '/';
+        end = std::to_chars(end, digits + sizeof digits, r.den64()).ptr;
+    }
+    out.append(digits, end);
+}
+
+/// Appends one side: "a A + B + c C", each species as written, or as resolved at T.
+void append_side(std::string& out, const std::vector<grammar::Term>& terms, const Rational* coefs,
+                 const Prepared::PerTerm<std::shared_ptr<const Substance>>* resolved, std::size_t offset, double T) {
     for (std::size_t i = 0; i < terms.size(); ++i) {
         if (i) out += " + ";
-        if (coefs[i] != 1) out += rational_text(coefs[i]) + " ";
+        if (coefs[i] != 1) {
+            append_rational(out, coefs[i]);
+            out += ' ';
+        }
         out += resolved ? (*resolved)[offset + i]->display_at(T) : terms[i].species.written;
     }
-    return out;
+}
+
+/// Bytes a side takes as written (for one reservation of the whole text).
+std::size_t side_bytes(const std::vector<grammar::Term>& terms) {
+    std::size_t n = 0;
+    for (const auto& t : terms) n += t.species.written.size() + 8;  // " + ", and a short coefficient
+    return n;
 }
 
 /// An element or charge total exactly, so that two unequal totals never read alike: a decimal
@@ -70,11 +96,11 @@ bool add_product(Rational& total, const Rational& a, const Rational& b) {
     return true;
 }
 
-// Each element's total on the left and on the right, and the charge's, as text; empty when
-// every total matches. In 64-bit integers when every coefficient and count is a whole number
+// Each element's total on the left and on the right, and the charge's, as text after `lead`;
+// `bad` left empty when every total matches. In 64-bit integers when every coefficient and count is a whole number
 // small enough (nearly every reaction: no rational arithmetic at all), exactly otherwise.
 template <class Number, class Convert, class Text>
-bool side_totals(const Prepared& p, Convert convert, Text text, std::string& bad) {
+bool side_totals(const Prepared& p, Convert convert, Text text, std::string_view lead, std::string& bad) {
     // element -> (left, right); a flat list (a reaction has few elements), in symbol order below
     boost::container::small_vector<std::pair<std::string_view, std::pair<Number, Number>>, 8> totals;
     auto total_of = [&totals](std::string_view sym) -> std::pair<Number, Number>& {
@@ -97,18 +123,29 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string& bad
         if (!add_product(product ? q_right : q_left, n, Number(p.compositions[i]->charge))) return false;
     }
     std::sort(totals.begin(), totals.end(), [](const auto& x, const auto& y) { return x.first < y.first; });
+    // Appended in place: this message is built for every unbalanced reaction a sheet holds (and
+    // a balanced one allocates nothing here).
+    const auto say = [&bad, &text, lead](std::string_view what, const Number& left, const Number& right) {
+        if (bad.empty()) {
+            bad.reserve(lead.size() + 96);
+            bad += lead;
+        } else {
+            bad += "; ";
+        }
+        bad += what;
+        bad += ' ';
+        text(left, bad);
+        bad += " on the left, ";
+        text(right, bad);
+        bad += " on the right";
+    };
     for (const auto& [sym, t] : totals)
-        if (t.first != t.second)
-            bad += std::string(bad.empty() ? "" : "; ") + std::string(sym) + " " + text(t.first) + " on the left, " +
-                   text(t.second) + " on the right";
-    if (q_left != q_right)
-        bad += std::string(bad.empty() ? "" : "; ") + "charge " + text(q_left) + " on the left, " + text(q_right) +
-               " on the right";
+        if (t.first != t.second) say(sym, t.first, t.second);
+    if (q_left != q_right) say("charge", q_left, q_right);
     return true;
 }
 
 void check_balance(Prepared& p) {
-    std::string bad;
     const auto to_integer = [](const Rational& r, long long& out) {
         if (!r.fits_64() || r.den64() != 1 || r.num64() > 1'000'000'000'000'000LL ||
             r.num64() < -1'000'000'000'000'000LL)
@@ -116,16 +153,25 @@ void check_balance(Prepared& p) {
         out = r.num64();
         return true;
     };
-    if (!side_totals<long long>(p, to_integer, [](long long x) { return std::to_string(x); }, bad)) {
-        bad.clear();
-        side_totals<Rational>(p, [](const Rational& r, Rational& out) { out = r; return true; }, atom_count_text, bad);
+    const auto integer_text = [](long long x, std::string& to) {
+        char digits[24];
+        to.append(digits, std::to_chars(digits, digits + sizeof digits, x).ptr);
+    };
+    const auto exact_text = [](const Rational& x, std::string& to) { to += atom_count_text(x); };
+    constexpr std::string_view lead = "the reaction is not balanced: ";
+    std::string msg;
+    if (!side_totals<long long>(p, to_integer, integer_text, lead, msg)) {
+        msg.clear();
+        side_totals<Rational>(p, [](const Rational& r, Rational& out) { out = r; return true; }, exact_text, lead,
+                              msg);
     }
-    if (bad.empty()) return;
-    std::string msg = "the reaction is not balanced: " + bad;
+    if (msg.empty()) return;
     try {
         // Through Prepared::balanced(), which keeps the answer: RXNBALANCE on this reaction
         // then reuses it instead of solving the same balance again.
-        msg += ". Balanced, it would read: " + p.balanced();
+        const std::string& balanced = p.balanced();
+        msg += ". Balanced, it would read: ";
+        msg += balanced;
     } catch (const Error&) {
         // no unique balance: say nothing more
     }
@@ -315,8 +361,11 @@ std::string Prepared::canonical(double T) const {
     std::vector<Rational> l, r;
     for (const auto& t : ast.reactants) l.push_back(t.coefficient);
     for (const auto& t : ast.products) r.push_back(t.coefficient);
-    return side_text(ast.reactants, l, &substances, 0, T) + " -> " +
-           side_text(ast.products, r, &substances, ast.reactants.size(), T);
+    std::string out;
+    append_side(out, ast.reactants, l.data(), &substances, 0, T);
+    out += " -> ";
+    append_side(out, ast.products, r.data(), &substances, ast.reactants.size(), T);
+    return out;
 }
 
 Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
@@ -351,7 +400,7 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     return net;
 }
 
-std::string Prepared::balanced() const {
+const std::string& Prepared::balanced() const {
     std::call_once(balanced_once_, [this] {
         try {
             balanced_text_ = balanced_text(*this);
@@ -365,28 +414,50 @@ std::string Prepared::balanced() const {
 
 std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
                           const std::vector<Rational>& product_coefs) {
-    return reaction_text(r.reactants, reactant_coefs, r.arrow, r.products, product_coefs);
+    return reaction_text(r.reactants, reactant_coefs.data(), r.arrow, r.products, product_coefs.data());
 }
 
-std::string reaction_text(const std::vector<grammar::Term>& left, const std::vector<Rational>& left_coefs,
+std::string reaction_text(const std::vector<grammar::Term>& left, const Rational* left_coefs,
                           const std::string& arrow, const std::vector<grammar::Term>& right,
-                          const std::vector<Rational>& right_coefs) {
-    return side_text(left, left_coefs, nullptr, 0, T_ref) + " " + arrow + " " +
-           side_text(right, right_coefs, nullptr, 0, T_ref);
+                          const Rational* right_coefs) {
+    std::string out;
+    out.reserve(side_bytes(left) + arrow.size() + 2 + side_bytes(right));
+    append_side(out, left, left_coefs, nullptr, 0, T_ref);
+    out += ' ';
+    out += arrow;
+    out += ' ';
+    append_side(out, right, right_coefs, nullptr, 0, T_ref);
+    return out;
 }
 
 std::string balanced_text(const Prepared& prepared) {
     const Prepared* p = &prepared;
     p->require_compositions();
     // One row per element (in order of first appearance) and one for the charge when any
-    // species is charged; one column per term, reactants positive.
-    std::map<std::string, std::size_t> row_of;
-    for (const auto& c : p->compositions)
-        for (const auto& a : c->atoms) row_of.emplace(a.first, row_of.size());
+    // species is charged; one column per term, reactants positive. A reaction names few
+    // elements: a flat list, searched in order, until it passes the small matrix's rows.
+    boost::container::small_vector<std::string_view, SmallBalanceMatrix::max_rows> symbols;
+    std::map<std::string_view, std::size_t> row_map;  // past max_rows elements only
+    const auto row_of = [&](std::string_view sym) -> std::size_t {
+        if (row_map.empty()) {
+            for (std::size_t i = 0; i < symbols.size(); ++i)
+                if (symbols[i] == sym) return i;
+            if (symbols.size() < SmallBalanceMatrix::max_rows) {
+                symbols.push_back(sym);
+                return symbols.size() - 1;
+            }
+            for (std::size_t i = 0; i < symbols.size(); ++i) row_map.emplace(symbols[i], i);
+        }
+        return row_map.emplace(sym, row_map.size()).first->second;
+    };
     bool charged = false;
-    for (const auto& c : p->compositions) charged = charged || c->charge != 0;
+    for (const auto& c : p->compositions) {
+        for (const auto& a : c->atoms) row_of(a.first);
+        charged = charged || c->charge != 0;
+    }
     const std::size_t n = p->terms.size();
-    const std::size_t rows = row_of.size() + (charged ? 1 : 0);
+    const std::size_t elements = row_map.empty() ? symbols.size() : row_map.size();
+    const std::size_t rows = elements + (charged ? 1 : 0);
     // The rank is at most the number of rows, so the null space has at least n − rows
     // dimensions: decided before any matrix is built (thousands of terms cost nothing more).
     if (n >= rows + 2)
@@ -395,14 +466,52 @@ std::string balanced_text(const Prepared& prepared) {
                         " independent ways (only " + std::to_string(rows) +
                         " element and charge totals fix their coefficients), so no single balance exists; give "
                         "the coefficients yourself or split the reaction");
-    std::vector<SparseColumn> m(n);
-    for (std::size_t j = 0; j < n; ++j) {
-        const bool left = p->nu[j].sign() < 0;
-        for (const auto& a : p->compositions[j]->atoms)
-            if (!a.second.is_zero()) m[j].emplace_back(row_of[a.first], left ? a.second : Rational(-a.second));
-        if (const int q = p->compositions[j]->charge) m[j].emplace_back(rows - 1, Rational(left ? q : -q));
+    // Few terms and small whole counts (nearly every reaction): decided on the stack.
+    std::optional<BalanceSolution> small;
+    if (rows <= SmallBalanceMatrix::max_rows && n <= SmallBalanceMatrix::max_cols) {
+        SmallBalanceMatrix sm;
+        sm.rows = rows;
+        sm.cols = n;
+        bool fits = true;
+        for (std::size_t j = 0; j < n && fits; ++j) {
+            const bool left = p->nu[j].sign() < 0;
+            std::int64_t scale = 1;  // least common multiple of the counts' denominators
+            for (const auto& a : p->compositions[j]->atoms) {
+                if (!a.second.fits_64()) {
+                    fits = false;
+                    break;
+                }
+                const std::int64_t d = a.second.den64();
+                const __int128 l = static_cast<__int128>(scale / std::gcd(scale, d)) * d;
+                if (l >= SmallBalanceMatrix::max_entry) {
+                    fits = false;
+                    break;
+                }
+                scale = static_cast<std::int64_t>(l);
+            }
+            sm.scale[j] = scale;
+            for (const auto& a : p->compositions[j]->atoms) {
+                if (!fits) break;
+                const __int128 x = static_cast<__int128>(a.second.num64()) * (scale / a.second.den64());
+                if (x >= SmallBalanceMatrix::max_entry || x <= -SmallBalanceMatrix::max_entry) fits = false;
+                sm.a[row_of(a.first)][j] += static_cast<std::int64_t>(left ? x : -x);
+            }
+            if (const int q = p->compositions[j]->charge) sm.a[rows - 1][j] = std::int64_t(left ? q : -q) * scale;
+        }
+        if (fits) small = solve_balance_small(sm);
     }
-    const BalanceSolution sol = solve_balance(rows, m);
+    std::optional<BalanceSolution> general;
+    if (!small) {
+        std::vector<SparseColumn> m(n);
+        for (std::size_t j = 0; j < n; ++j) {
+            const bool left = p->nu[j].sign() < 0;
+            for (const auto& a : p->compositions[j]->atoms)
+                if (!a.second.is_zero()) m[j].emplace_back(row_of(a.first), left ? a.second : Rational(-a.second));
+            if (const int q = p->compositions[j]->charge) m[j].emplace_back(rows - 1, Rational(left ? q : -q));
+        }
+        general = solve_balance(rows, m);
+    }
+    BalanceSolution& sol = small ? *small : *general;
     switch (sol.kind) {
     case BalanceSolution::Kind::none:
         throw Error(ErrorKind::unbalanced, "no coefficients balance these species: check the formulas, or a species is missing");
@@ -417,7 +526,7 @@ std::string balanced_text(const Prepared& prepared) {
                                                " digits; give the coefficients yourself");
     case BalanceSolution::Kind::unique: break;
     }
-    auto v = sol.coefficients;
+    auto& v = sol.coefficients;
     bool any_neg = false, any_pos = false;
     for (const auto& x : v) {
         any_neg = any_neg || x < 0;
@@ -433,7 +542,9 @@ std::string balanced_text(const Prepared& prepared) {
                                                               : " belongs on the other side"));
     // The suggestion is capped where rxnheat's own reader stops: a coefficient it could not read
     // back is no use as a balance.
+    static_assert(grammar::max_number_digits == 12, "the shortcut below: whole numbers below 10^12");
     for (std::size_t j = 0; j < n; ++j) {
+        if (v[j].fits_64() && v[j].den64() == 1 && v[j].num64() < 1'000'000'000'000) continue;  // v[j] > 0
         const std::string digits = rational_text(v[j]);
         if (digits.size() > grammar::max_number_digits)
             throw Error(ErrorKind::unbalanced,
@@ -443,8 +554,7 @@ std::string balanced_text(const Prepared& prepared) {
                             " digits; give the coefficients yourself");
     }
     const std::size_t nl = p->ast.reactants.size();
-    return reaction_text(p->ast, std::vector<Rational>(v.begin(), v.begin() + nl),
-                                 std::vector<Rational>(v.begin() + nl, v.end()));
+    return reaction_text(p->ast.reactants, v.data(), p->ast.arrow, p->ast.products, v.data() + nl);
 }
 
 // ---- the cache ----------------------------------------------------------------------------------

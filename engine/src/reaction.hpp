@@ -64,7 +64,7 @@ struct Prepared {
 
     /// balanced_text(*this), computed on first use and kept (the null space is the costly part
     /// of RXNBALANCE; a sheet asks for the same reaction's balance again and again). Thread-safe.
-    std::string balanced() const;
+    const std::string& balanced() const;
 
     /// Throws the first error of the stages a function needs.
     void require_compositions() const;
@@ -152,10 +152,11 @@ std::string balanced_text(const Prepared& p);
 /// Text of the reaction with new coefficients, species as written, the arrow as written.
 std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
                           const std::vector<Rational>& product_coefs);
-/// The same from its parts: `left arrow right` (RXNREVERSE writes the sides swapped, uncopied).
-std::string reaction_text(const std::vector<grammar::Term>& left, const std::vector<Rational>& left_coefs,
+/// The same from its parts: `left arrow right`, a coefficient per term (RXNREVERSE writes the
+/// sides swapped, uncopied; RXNBALANCE both sides' coefficients from one vector).
+std::string reaction_text(const std::vector<grammar::Term>& left, const Rational* left_coefs,
                           const std::string& arrow, const std::vector<grammar::Term>& right,
-                          const std::vector<Rational>& right_coefs);
+                          const Rational* right_coefs);
 
 /// Throws Error(too_long / syntax) for input the grammar must not see.
 void check_input_text(std::string_view text, const char* what);

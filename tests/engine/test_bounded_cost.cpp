@@ -14,6 +14,7 @@
 #include <algorithm>
 #include <chrono>
 #include <fstream>
+#include <random>
 #include <string>
 #include <vector>
 
@@ -228,9 +229,8 @@ TEST_CASE("solve_balance: the exact elimination where the residues cannot rebuil
     const BalanceSolution s = rxnheat::detail::solve_balance(2, m);
     REQUIRE(s.kind == BalanceSolution::Kind::unique);
     REQUIRE(s.coefficients.size() == 3);
-    const bool ones = s.coefficients[0] == 1 && s.coefficients[1] == 1 && s.coefficients[2] == 1;
-    const bool minus_ones = s.coefficients[0] == -1 && s.coefficients[1] == -1 && s.coefficients[2] == -1;
-    CHECK((ones || minus_ones));
+    // Signed as every path signs a unique balance: positive in the free column (the third).
+    CHECK((s.coefficients[0] == 1 && s.coefficients[1] == 1 && s.coefficients[2] == 1));
     // The same through the grammar: C^(1 + 10^-20) O + O -> C^(1 + 10^-20) O2, written with a
     // wrong coefficient; its balance is every coefficient 1.
     const std::string s0 = "C(C0.0000000001)0.0000000001O", s1 = "C(C0.0000000001)0.0000000001O2";
@@ -242,4 +242,81 @@ TEST_CASE("solve_balance: the exact elimination where the residues cannot rebuil
     std::vector<SparseColumn> m2 = m;
     m2.push_back({{1, Rational(-1)}});
     CHECK(rxnheat::detail::solve_balance(2, m2).kind == BalanceSolution::Kind::several);
+}
+
+namespace {
+
+using rxnheat::detail::BalanceSolution;
+
+std::string describe(const BalanceSolution& s) {
+    std::string out = s.kind == BalanceSolution::Kind::unique    ? "unique"
+                      : s.kind == BalanceSolution::Kind::none    ? "none"
+                      : s.kind == BalanceSolution::Kind::several ? "several"
+                                                                 : "too_large";
+    out += " ways=" + std::to_string(s.ways) + (s.ways_exact ? "" : "+");
+    for (const auto& c : s.coefficients) out += " " + c.str();
+    return out;
+}
+
+}  // namespace
+
+TEST_CASE("solve_balance_small: the same answer as solve_balance on every small matrix tried", "[bounded][balance]") {
+    using rxnheat::detail::Rational;
+    using rxnheat::detail::SmallBalanceMatrix;
+    using rxnheat::detail::SparseColumn;
+    // 20,000 random matrices of 1–6 rows and 1–7 columns, entries −6…6 (zero half the time, as in
+    // element matrices), each column optionally scaled by 2, 3 or 6 as a fractional count would
+    // be: the stack elimination and the general path (residues, then exact elimination) must give
+    // the same kind, number of ways and coefficients, sign included. A fixed seed: the same
+    // matrices on every run.
+    std::mt19937 rng(20261203);
+    std::size_t counts[4] = {};
+    for (int trial = 0; trial < 20000; ++trial) {
+        SmallBalanceMatrix sm;
+        sm.rows = 1 + rng() % 6;
+        sm.cols = 1 + rng() % 7;
+        std::vector<SparseColumn> m(sm.cols);
+        for (std::size_t j = 0; j < sm.cols; ++j) {
+            static const std::int64_t denominators[] = {1, 2, 3, 6};
+            const std::int64_t d = denominators[rng() % 4];
+            sm.scale[j] = d;
+            for (std::size_t i = 0; i < sm.rows; ++i) {
+                const int x = rng() % 2 ? 0 : int(rng() % 13) - 6;
+                if (x == 0) continue;
+                // The small matrix holds whole numbers (count·d) and the scale d; the general path
+                // gets the counts themselves, x/d.
+                sm.a[i][j] = x;
+                m[j].emplace_back(i, Rational(x, d));
+            }
+        }
+        const auto small = rxnheat::detail::solve_balance_small(sm);
+        REQUIRE(small.has_value());  // entries this small never pass 2^62
+        const BalanceSolution general = rxnheat::detail::solve_balance(sm.rows, m);
+        INFO("trial " << trial << ": " << sm.rows << " x " << sm.cols);
+        REQUIRE(describe(*small) == describe(general));
+        ++counts[static_cast<int>(small->kind)];
+    }
+    // Every kind but too_large was met, each many times.
+    CHECK(counts[0] > 1000);  // unique
+    CHECK(counts[1] > 1000);  // none
+    CHECK(counts[2] > 1000);  // several
+}
+
+TEST_CASE("solve_balance_small: hands over when an intermediate would pass 2^62", "[bounded][balance]") {
+    using rxnheat::detail::SmallBalanceMatrix;
+    // Entries b = 2^31 − 1 on the diagonal and 1 beside it: the second pivot is −(b² + 1), and the
+    // step after it makes an entry of about b³ ≈ 2^93 (worked by hand), past the stack
+    // elimination's bound of 2^62, so it answers nothing and solve_balance decides.
+    SmallBalanceMatrix sm;
+    sm.rows = 3;
+    sm.cols = 4;
+    const std::int64_t b = SmallBalanceMatrix::max_entry - 1;
+    const std::int64_t rows[3][4] = {{b, 1, 0, 0}, {1, -b, 1, 0}, {0, 1, b, 1}};
+    for (std::size_t i = 0; i < 3; ++i)
+        for (std::size_t j = 0; j < 4; ++j) sm.a[i][j] = rows[i][j];
+    for (auto& s : sm.scale) s = 1;
+    CHECK_FALSE(rxnheat::detail::solve_balance_small(sm).has_value());
+    // And an entry at the bound itself is refused before any arithmetic.
+    sm.a[0][0] = SmallBalanceMatrix::max_entry;
+    CHECK_FALSE(rxnheat::detail::solve_balance_small(sm).has_value());
 }
