@@ -10,6 +10,7 @@
 #include <boost/spirit/home/x3.hpp>
 
 #include <algorithm>
+#include <array>
 #include <cstdint>
 #include <cstdio>
 #include <optional>
@@ -121,7 +122,13 @@ void append_utf8(std::string& out, char32_t c) {
 
 std::string utf8(Iter first, Iter last) {
     std::string out;
-    for (; first != last; ++first) append_utf8(out, *first);
+    out.reserve(std::size_t(last - first));  // exact for ASCII, the common case
+    for (; first != last; ++first) {
+        if (*first < 0x80)
+            out.push_back(char(*first));
+        else
+            append_utf8(out, *first);
+    }
     return out;
 }
 std::string utf8(std::u32string_view t) { return utf8(t.data(), t.data() + t.size()); }
@@ -133,8 +140,8 @@ std::string hex_byte(unsigned char b) {
 }
 
 /// Strict decoding (no overlong forms, surrogates or values above U+10FFFF).
-Text decode(std::string_view s) {
-    Text out;
+void decode(std::string_view s, Text& out) {
+    out.clear();
     out.reserve(s.size());
     std::size_t i = 0;
     while (i < s.size()) {
@@ -174,7 +181,6 @@ Text decode(std::string_view s) {
         out.push_back(cp);
         i += len;
     }
-    return out;
 }
 
 /// "'x'" for printable characters, plus the code point for non-ASCII; "U+0007" for controls.
@@ -206,14 +212,28 @@ const char* empty_message(Mode mode) {
 }
 
 /// Length (before decoding), UTF-8, emptiness, bracket pairing and depth, digit counts.
-Text prepare(std::string_view utf8_text, Mode mode) {
-    std::size_t chars = 0;  // code points if valid UTF-8: bytes that do not continue a character
-    for (char b : utf8_text)
-        if ((static_cast<unsigned char>(b) & 0xC0) != 0x80) ++chars;
-    if (chars > max_input_characters)
-        throw ParseError(0, "input longer than " + std::to_string(max_input_characters) + " characters");
+/// What the pre-scan below looks for in an ASCII character (a table: one load, not six tests).
+enum : unsigned char { scan_other, scan_open, scan_close, scan_digit };
+constexpr std::array<unsigned char, 128> ascii_scan_class = [] {
+    std::array<unsigned char, 128> c{};
+    c['('] = c['['] = c['{'] = scan_open;
+    c[')'] = c[']'] = c['}'] = scan_close;
+    for (char d = '0'; d <= '9'; ++d) c[static_cast<unsigned char>(d)] = scan_digit;
+    return c;
+}();
 
-    Text t = decode(utf8_text);
+/// Decodes the text into `t` (a buffer the caller may keep between calls) and checks what the
+/// grammar relies on: the length, bracket pairing and depth, and the digits of each number.
+void prepare(std::string_view utf8_text, Mode mode, Text& t) {
+    if (utf8_text.size() > max_input_characters) {  // bytes ≥ characters: only then count
+        std::size_t chars = 0;  // code points if valid UTF-8: bytes that do not continue a character
+        for (char b : utf8_text)
+            if ((static_cast<unsigned char>(b) & 0xC0) != 0x80) ++chars;
+        if (chars > max_input_characters)
+            throw ParseError(0, "input longer than " + std::to_string(max_input_characters) + " characters");
+    }
+
+    decode(utf8_text, t);
     if (std::all_of(t.begin(), t.end(), is_blank)) throw ParseError(1, empty_message(mode));
 
     struct Open {
@@ -224,6 +244,7 @@ Text prepare(std::string_view utf8_text, Mode mode) {
     auto closer = [](char32_t c) { return c == U'(' ? U')' : c == U'[' ? U']' : U'}'; };
     for (std::size_t i = 0; i < t.size(); ++i) {
         char32_t const c = t[i];
+        if (c < 0x80 && ascii_scan_class[c] == scan_other) continue;  // most characters
         if (c == U'(' || c == U'[' || c == U'{') {
             open.push_back({c, i + 1});
             if (open.size() > max_group_depth)
@@ -259,6 +280,11 @@ Text prepare(std::string_view utf8_text, Mode mode) {
         }
     }
     if (!open.empty()) throw ParseError(open.back().position, "unmatched " + describe(open.back().ch));
+}
+
+Text prepare(std::string_view utf8_text, Mode mode) {
+    Text t;
+    prepare(utf8_text, mode, t);
     return t;
 }
 
@@ -921,8 +947,10 @@ void reserve_sides(const Text& t, ast::Reaction& tree) {
     std::size_t plus_before = 0, plus_after = 0;
     bool after = false;
     for (char32_t c : t) {
-        if (c == U'=' || c == U'>' || c == U'\u2192' || c == U'\u27F6' || c == U'\u21CC') after = true;
-        if (c == U'+') ++(after ? plus_after : plus_before);
+        if (c == U'+')
+            ++(after ? plus_after : plus_before);
+        else if (!after)  // an arrow's characters; once past one, only '+' counts
+            after = c == U'=' || c == U'>' || c == U'\u2192' || c == U'\u27F6' || c == U'\u21CC';
     }
     tree.reactants.reserve(plus_before + 1);
     tree.products.reserve(plus_after + 1);
@@ -939,7 +967,11 @@ void run(Mode mode, const Text& t, Rule const& rule, Tree& tree, parser::Tracker
 }  // namespace
 
 Reaction parse_reaction(std::string_view text) {
-    Text const t = prepare(text, Mode::reaction);
+    // The decoded text in a buffer kept per thread, as the tree below: nothing the result holds
+    // points into it (the Builder copies what it keeps), and no parse runs inside another.
+    thread_local Text decoded;
+    prepare(text, Mode::reaction, decoded);
+    Text const& t = decoded;
     parser::Tracker tracker;
     // One tree per thread, its storage kept from call to call: a side of thousands of terms
     // (some 460 bytes each) would otherwise be a fresh block of up to 1 MB each time, which the C
