@@ -177,21 +177,32 @@ double milliseconds_to_fail(const std::string& text) {
 }
 }  // namespace
 
+// The bounds are for optimised code. Sanitizer builds (RXNHEAT_SANITIZED: ASan, UBSan and the
+// fuzzers' coverage instrumentation) run several times slower by design (measured: 12.4 ms for a
+// 10 ms case), and there the bounds are ten times: still far below what a quadratic or
+// backtracking parse of 4,096 characters would take.
+#ifdef RXNHEAT_SANITIZED
+constexpr double slowdown = 10;
+#else
+constexpr double slowdown = 1;
+#endif
+
 TEST_CASE("hostile input is refused fast", "[grammar][robustness]") {
-    CHECK(milliseconds_to_fail(std::string(4096, '(')) < 10.0);
-    CHECK(milliseconds_to_fail(std::string(4096, '[')) < 10.0);
-    CHECK(milliseconds_to_fail(std::string(4096, ')')) < 10.0);
-    CHECK(milliseconds_to_fail(std::string(1 << 20, '(')) < 10.0);  // refused by length
+    const double bound_ms = 10.0 * slowdown;
+    CHECK(milliseconds_to_fail(std::string(4096, '(')) < bound_ms);
+    CHECK(milliseconds_to_fail(std::string(4096, '[')) < bound_ms);
+    CHECK(milliseconds_to_fail(std::string(4096, ')')) < bound_ms);
+    CHECK(milliseconds_to_fail(std::string(1 << 20, '(')) < bound_ms);  // refused by length
     std::mt19937 rng(99u);
     std::string bytes(4096, '\0');
     for (char& c : bytes) c = static_cast<char>(rng() & 0xFF);
-    CHECK(milliseconds_to_fail(bytes) < 10.0);
+    CHECK(milliseconds_to_fail(bytes) < bound_ms);
     std::string ascii(4096, ' ');
     for (char& c : ascii) c = static_cast<char>(' ' + rng() % 95);  // printable ASCII
-    CHECK(milliseconds_to_fail(ascii) < 10.0);
+    CHECK(milliseconds_to_fail(ascii) < bound_ms);
     std::string nested;  // deep but legal nesting, then an error at the very end
     while (nested.size() < 4000) nested += "(((((((((((((((H)2)2)2)2)2)2)2)2)2)2)2)2)2)2)2 + ";
-    CHECK(milliseconds_to_fail(nested + "->") < 10.0);
+    CHECK(milliseconds_to_fail(nested + "->") < bound_ms);
 }
 
 TEST_CASE("a long legal reaction near the limit parses", "[grammar][robustness]") {
@@ -202,7 +213,7 @@ TEST_CASE("a long legal reaction near the limit parses", "[grammar][robustness]"
     const Reaction r = parse_reaction(text);
     auto const ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
     CHECK(r.reactants.size() == 365);
-    CHECK(ms < 50.0);
+    CHECK(ms < 50.0 * slowdown);
 }
 
 // parse_reaction builds its syntax tree in one object per thread, kept from call to call
