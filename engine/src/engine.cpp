@@ -73,14 +73,14 @@ Substance resolve_one(std::string_view text, const SpeciesTable* table) {
 }
 
 /// Value per mole of extent -> per mole (or mass) of the `per` species, in `unit`.
-double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view unit, std::string_view per,
-                          const SpeciesTable* table, double T) {
-    if (per.empty()) return detail::from_J_per_mol(J_per_mol, unit);
+double per_extent_in_unit(const Prepared& p, double J_per_mol, const char* what, std::string_view unit,
+                          std::string_view per, const SpeciesTable* table, double T) {
+    if (per.empty()) return detail::from_J_per_mol(J_per_mol, unit, what);
     const auto key = parse_one_species(per, "the 'per' species");
     std::size_t idx = 0;
     const Rational nu = p.key_coefficient(key, table, T, &idx);
     const double n = std::fabs(detail::to_double(nu));
-    return detail::from_J_per_mol(J_per_mol / n, unit, p.substances[idx]->molar_mass);
+    return detail::from_J_per_mol(J_per_mol / n, unit, what, p.substances[idx]->molar_mass);
 }
 
 /// Decimal text with an exponent ("1e-7", "2.5E+3", "+4e2"), read exactly; nullopt when the text
@@ -272,20 +272,20 @@ double formation_enthalpy(const Substance& s, double T) {
 double Engine::dh(std::string_view reaction, const Conditions& at, std::string_view unit, std::string_view per) {
     check_temperature(at.temperature_K);
     const auto p = impl_->prepare(reaction, at.table);
-    return per_extent_in_unit(*p, p->dH(at.temperature_K), unit, per, at.table, at.temperature_K);
+    return per_extent_in_unit(*p, p->dH(at.temperature_K), "ΔrH°", unit, per, at.table, at.temperature_K);
 }
 
 double Engine::du(std::string_view reaction, const Conditions& at, std::string_view unit, std::string_view per) {
     check_temperature(at.temperature_K);
     const auto p = impl_->prepare(reaction, at.table);
     const double T = at.temperature_K;
-    return per_extent_in_unit(*p, internal_energy_J_per_mol(*p, T), unit, per, at.table, T);
+    return per_extent_in_unit(*p, internal_energy_J_per_mol(*p, T), "ΔrU°", unit, per, at.table, T);
 }
 
 double Engine::ds(std::string_view reaction, const Conditions& at, std::string_view unit) {
     check_temperature(at.temperature_K);
     const auto p = impl_->prepare(reaction, at.table);
-    return detail::from_J_per_molK(p->dS(at.temperature_K), unit);
+    return detail::from_J_per_molK(p->dS(at.temperature_K), unit, "ΔrS°");
 }
 
 namespace {
@@ -308,7 +308,7 @@ double Engine::dg(std::string_view reaction, const Conditions& at, std::string_v
         throw Error(ErrorKind::unit, "unit '" + std::string(trim(unit)) +
                                          "' is per mass; ΔrG° is given per mole of reaction as written: use J/mol, "
                                          "kJ/mol, MJ/kmol, kcal/mol, cal/mol or BTU/lbmol");
-    return detail::from_J_per_mol(gibbs_J_per_mol(*p, at.temperature_K), unit);
+    return detail::from_J_per_mol(gibbs_J_per_mol(*p, at.temperature_K), unit, "ΔrG°");
 }
 
 double Engine::logk(std::string_view reaction, const Conditions& at) {
@@ -332,7 +332,7 @@ double Engine::load(std::string_view reaction, double quantity, std::string_view
     const double nu = std::fabs(detail::to_double(p->key_coefficient(sp, at.table, at.temperature_K, &idx)));
     const auto qu = detail::quantity_unit(quantity_unit);
     const double mol = detail::quantity_to_mol(quantity, quantity_unit, p->substances[idx]->molar_mass);
-    return detail::load_result(dH * mol / nu, result_unit, qu.is_rate(), quantity_unit);
+    return detail::load_result(dH * mol / nu, result_unit, qu.is_rate(), "the heat load", quantity_unit);
 }
 
 namespace {
@@ -606,7 +606,7 @@ double Engine::stream_enthalpy(const std::vector<FeedItem>& stream, std::string_
         const double mol = detail::quantity_to_mol(item.amount_mol, unit, s.molar_mass);
         if (mol != 0) total += mol * s.H(T);
     }
-    return detail::load_result(total, result_unit, rate, unit);
+    return detail::load_result(total, result_unit, rate, "the stream's enthalpy", unit);
 }
 
 double Engine::duty(std::string_view reaction, const std::vector<FeedItem>& feed, double conversion,
@@ -669,7 +669,7 @@ double Engine::duty(std::string_view reaction, const std::vector<FeedItem>& feed
         if (out != 0 || s.in_mol != 0)
             dH += out * s.substance.H(outlet_K) - s.in_mol * s.substance.H(inlet_K);
     }
-    return detail::load_result(dH, result_unit, rate, unit);
+    return detail::load_result(dH, result_unit, rate, "the duty", unit);
 }
 
 double Engine::adiabatic_temperature(std::string_view reaction, const std::vector<FeedItem>& extra_feed,
@@ -875,11 +875,11 @@ double Engine::hess(std::string_view target, const std::vector<HessStep>& steps,
         if (!std::isfinite(s.dh))
             throw Error(ErrorKind::argument,
                         "the ΔH of step " + std::to_string(s.number) + " is not a finite number");
-        dh_J.push_back(detail::to_J_per_mol(s.dh, unit));
+        dh_J.push_back(detail::to_J_per_mol(s.dh, unit, "the ΔH of step " + std::to_string(s.number)));
     }
     const HessInput in = prepare_hess(*impl_, target, steps);
     const auto c = detail::combine(*in.target, in.steps, steps);
-    return detail::from_J_per_mol(detail::combined_dh_J_per_mol(c, steps, dh_J), unit);
+    return detail::from_J_per_mol(detail::combined_dh_J_per_mol(c, steps, dh_J), unit, "the combined ΔH");
 }
 
 std::string Engine::hess_plan(std::string_view target, const std::vector<HessStep>& steps) {
@@ -910,7 +910,7 @@ ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {
 
 double Engine::species_hf(std::string_view species, const Conditions& at, std::string_view unit) {
     const Substance s = resolve_one(species, at.table);
-    return detail::from_J_per_mol(formation_enthalpy(s, at.temperature_K), unit, s.molar_mass);
+    return detail::from_J_per_mol(formation_enthalpy(s, at.temperature_K), unit, "ΔfH°", s.molar_mass);
 }
 
 double Engine::species_cp(std::string_view species, const Conditions& at) {

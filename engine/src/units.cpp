@@ -112,7 +112,7 @@ bool underflows(std::string_view number) {
     return std::fabs(std::strtod(copy.c_str(), nullptr)) < 1.0;
 }
 
-void require_finite(double v, const char* what) {
+void require_finite(double v, std::string_view what) {
     if (!std::isfinite(v))
         throw Error(ErrorKind::argument, std::string(what) + " is " + number_words(v) + ", not a finite number" +
                                              (std::isinf(v) ? ": the numbers combine beyond the largest a double "
@@ -328,22 +328,27 @@ double energy_to_J_per_mol_factor(std::string_view unit, std::optional<double> m
 
 // ---- energy per amount --------------------------------------------------------------------------
 
-double from_J_per_mol(double J_per_mol, std::string_view unit, std::optional<double> molar_mass) {
+double from_J_per_mol(double J_per_mol, std::string_view unit, std::string_view what,
+                      std::optional<double> molar_mass) {
     const double f = energy_to_J_per_mol_factor(unit, molar_mass);
-    require_finite(J_per_mol, "the value");
-    return J_per_mol / f;
+    require_finite(J_per_mol, what);
+    const double out = J_per_mol / f;  // per mass: J/mol times 1/(g/mol) can pass the largest double
+    require_finite(out, std::string(what) + " in " + quote(trim(unit)));
+    return out;
 }
 
-double to_J_per_mol(double value, std::string_view unit, std::optional<double> molar_mass) {
+double to_J_per_mol(double value, std::string_view unit, std::string_view what, std::optional<double> molar_mass) {
     const double f = energy_to_J_per_mol_factor(unit, molar_mass);
-    require_finite(value, "the value");
-    return value * f;
+    require_finite(value, what);
+    const double out = value * f;  // 1e306 kJ/mol is 1e309 J/mol
+    require_finite(out, std::string(what) + " in J/mol");
+    return out;
 }
 
-double from_J_per_molK(double J_per_molK, std::string_view unit_text) {
+double from_J_per_molK(double J_per_molK, std::string_view unit_text, std::string_view what) {
     // Fast path as in energy_factor(): a unit written exactly as named needs no normalising.
     if (const Named* u = unit_text.empty() ? find(entropy_units, "J/(mol\xC2\xB7K)") : find(entropy_units, unit_text)) {
-        require_finite(J_per_molK, "the value");
+        require_finite(J_per_molK, what);
         return J_per_molK / u->factor;
     }
     const std::string unit = normalise(unit_text);
@@ -372,7 +377,7 @@ double from_J_per_molK(double J_per_molK, std::string_view unit_text) {
                                          "cal/(mol\xC2\xB7K) (thermochemical calorie, 4.184 J), each also "
                                          "written with * or . for \xC2\xB7 or as J/mol/K");
     }
-    require_finite(J_per_molK, "the value");
+    require_finite(J_per_molK, what);
     return J_per_molK / u->factor;
 }
 
@@ -454,7 +459,10 @@ double quantity_to_mol(double quantity, std::string_view unit, std::optional<dou
         break;
     }
     if (q.is_rate()) mol /= q.seconds;
-    if (!std::isfinite(mol)) throw Error(ErrorKind::argument, "the quantity is too large");
+    if (!std::isfinite(mol))
+        throw Error(ErrorKind::argument, "the quantity " + number_words(quantity) + " " + quote(trim(unit)) +
+                                             " is too large: in " + (q.is_rate() ? "mol/s" : "mol") +
+                                             " it passes the largest number a double holds (about 1.8e+308)");
     return mol;
 }
 
@@ -552,7 +560,8 @@ double heating_value_in(double J_per_mol, const HeatingValueUnit& u, double mola
 
 // ---- load results -------------------------------------------------------------------------------
 
-double load_result(double J_or_W, std::string_view unit_text, bool rate, std::string_view quantity_unit_text) {
+double load_result(double J_or_W, std::string_view unit_text, bool rate, const char* what,
+                   std::string_view quantity_unit_text) {
     const std::string unit = hour_as_h(normalise(unit_text));
     const std::string_view name =
         unit.empty() ? (rate ? default_rate_unit : default_total_unit) : std::string_view(unit);
@@ -583,7 +592,7 @@ double load_result(double J_or_W, std::string_view unit_text, bool rate, std::st
                                          "; known units: totals " + join(total_units) +
                                          "; flows (power) " + join(rate_units) + std::string(hr_note));
     }
-    require_finite(J_or_W, "the value");
+    require_finite(J_or_W, what);
     const double v = J_or_W / same->factor;
     return v;
 }

@@ -92,11 +92,12 @@ inline constexpr double ft3_m3 = ft_m * ft_m * ft_m;
 /// MJ/kg, kJ/g, kcal/kg, BTU/lb (or Btu/lb). Empty unit = kJ/mol.
 /// Throws Error(unit) for an unknown unit (the message lists all known ones) and for a per-mass
 /// unit without a molar mass (the message says to give `per`); Error(argument) for a non-finite
-/// value or a molar mass that is not finite and > 0.
-double from_J_per_mol(double J_per_mol, std::string_view unit,
+/// value or a molar mass that is not finite and > 0. `what` names the value in that error
+/// ("ΔrH°"), for the value given and for the value in `unit`.
+double from_J_per_mol(double J_per_mol, std::string_view unit, std::string_view what,
                       std::optional<double> molar_mass_g_per_mol = std::nullopt);
 /// The inverse: a value in `unit` to J/mol (e.g. RXNHESS step values). Same rules and errors.
-double to_J_per_mol(double value, std::string_view unit,
+double to_J_per_mol(double value, std::string_view unit, std::string_view what,
                     std::optional<double> molar_mass_g_per_mol = std::nullopt);
 /// True when `unit` is one of the per-mass units above (so the caller needs a molar mass).
 /// Unknown units give false (from_J_per_mol() then reports them).
@@ -108,8 +109,8 @@ bool is_per_mass_unit(std::string_view unit) noexcept;
 /// when empty), kJ/(mol·K), cal/(mol·K) (thermochemical calorie, 4.184 J); each also written with
 /// '*' or '.' for '·' (J/(mol*K)) or as J/mol/K. "J/mol·K" is refused: read left to right it is
 /// J·K/mol. Throws Error(unit) for any other unit (the message lists the known ones),
-/// Error(argument) for a non-finite value.
-double from_J_per_molK(double J_per_molK, std::string_view unit);
+/// Error(argument) for a non-finite value, naming it `what`.
+double from_J_per_molK(double J_per_molK, std::string_view unit, std::string_view what);
 
 // ---- quantities and flows: RXNLOAD ------------------------------------------------------------
 
@@ -182,8 +183,9 @@ inline constexpr std::string_view default_rate_unit = "kW";
 /// kcal/h, Gcal/h, BTU/h, Btu/h, MMBTU/h, MMBtu/h, TR, each "/h" also written "/hr".
 /// Empty unit = kJ or kW. `quantity_unit` (the RXNLOAD quantity's unit) only
 /// words the error when a total unit is given for a flow or a power unit for a total.
-/// Throws Error(unit) for an unknown or mismatched unit, Error(argument) for a non-finite value.
-double load_result(double J_or_W, std::string_view unit, bool rate,
+/// Throws Error(unit) for an unknown or mismatched unit, Error(argument) for a non-finite value,
+/// naming it as `what` ("the heat load").
+double load_result(double J_or_W, std::string_view unit, bool rate, const char* what,
                    std::string_view quantity_unit = {});
 
 }  // namespace rxnheat::detail

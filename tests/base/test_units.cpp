@@ -135,14 +135,14 @@ TEST_CASE("energy per mole units agree with GNU units", "[units]") {
     for (const Row& r : rows) {
         INFO(r.ours << " = " << r.gnu);
         const double f = gnu_units(r.gnu, "J/mol");
-        CHECK_REL(d::from_J_per_mol(x, r.ours), x / f);
-        CHECK_REL(d::from_J_per_mol(x, r.ours, M_water), x / f);  // a molar mass changes nothing
-        CHECK_REL(d::to_J_per_mol(1.0, r.ours), f);
+        CHECK_REL(d::from_J_per_mol(x, r.ours, "the value"), x / f);
+        CHECK_REL(d::from_J_per_mol(x, r.ours, "the value", M_water), x / f);  // a molar mass changes nothing
+        CHECK_REL(d::to_J_per_mol(1.0, r.ours, "the value"), f);
         CHECK_FALSE(d::is_per_mass_unit(r.ours));
     }
     // Empty unit = kJ/mol; blanks at the ends and around '/' ignored.
-    CHECK_REL(d::from_J_per_mol(x, ""), x / 1000.0);
-    CHECK_REL(d::from_J_per_mol(x, " kJ / mol "), x / gnu_units("kJ/mol", "J/mol"));
+    CHECK_REL(d::from_J_per_mol(x, "", "the value"), x / 1000.0);
+    CHECK_REL(d::from_J_per_mol(x, " kJ / mol ", "the value"), x / gnu_units("kJ/mol", "J/mol"));
 }
 
 TEST_CASE("energy per mass units agree with GNU units", "[units]") {
@@ -160,8 +160,8 @@ TEST_CASE("energy per mass units agree with GNU units", "[units]") {
     for (const Row& r : rows) {
         INFO(r.ours << " = " << r.gnu);
         const double f = gnu_units(r.gnu, "J/g");
-        CHECK_REL(d::from_J_per_mol(x, r.ours, M), x / M / f);
-        CHECK_REL(d::to_J_per_mol(1.0, r.ours, M), f * M);
+        CHECK_REL(d::from_J_per_mol(x, r.ours, "the value", M), x / M / f);
+        CHECK_REL(d::to_J_per_mol(1.0, r.ours, "the value", M), f * M);
         CHECK(d::is_per_mass_unit(r.ours));
     }
 }
@@ -310,17 +310,17 @@ TEST_CASE("load result units agree with GNU units", "[units]") {
     const double x = -3.75e7;
     for (const Row& r : totals) {
         INFO(r.ours << " = " << r.gnu);
-        CHECK_REL(d::load_result(x, r.ours, false), x / gnu_units(r.gnu, "J"));
+        CHECK_REL(d::load_result(x, r.ours, false, "the heat load"), x / gnu_units(r.gnu, "J"));
     }
     for (const Row& r : rates) {
         INFO(r.ours << " = " << r.gnu);
-        CHECK_REL(d::load_result(x, r.ours, true), x / gnu_units(r.gnu, "W"));
+        CHECK_REL(d::load_result(x, r.ours, true, "the heat load"), x / gnu_units(r.gnu, "W"));
     }
     // TR = 12,000 BTU/h (engine/DATA.md, Units). source: GNU units
-    CHECK_REL(d::load_result(x, "TR", true), x / gnu_units("12000 btu/hour", "W"));
+    CHECK_REL(d::load_result(x, "TR", true, "the heat load"), x / gnu_units("12000 btu/hour", "W"));
     // Defaults: kJ for totals, kW for rates.
-    CHECK_REL(d::load_result(x, "", false), x / 1e3);
-    CHECK_REL(d::load_result(x, "", true), x / 1e3);
+    CHECK_REL(d::load_result(x, "", false, "the heat load"), x / 1e3);
+    CHECK_REL(d::load_result(x, "", true, "the heat load"), x / 1e3);
     CHECK(d::default_total_unit == "kJ");
     CHECK(d::default_rate_unit == "kW");
 }
@@ -330,18 +330,18 @@ TEST_CASE("a load end to end: kg/h of methane burnt to kW", "[units]") {
     // arithmetic through the unit functions, checked against GNU units doing the whole sum.
     const double M = 16.04246, dH = -890.36e3;
     const double mol_per_s = d::quantity_to_mol(100, "kg/h", M);
-    const double kW = d::load_result(mol_per_s * dH, "", true, "kg/h");
+    const double kW = d::load_result(mol_per_s * dH, "", true, "the heat load", "kg/h");
     // source: GNU units
     CHECK_REL(kW, gnu_units("100 kg/hour / (16.04246 g/mol) * (-890.36 kJ/mol)", "kW"));
     // The same in the trade's spellings: 10 t/hr to Gcal/h and MMBtu/hr. source: GNU units
     const double s10 = d::quantity_to_mol(10, "t/hr", M) * dH;
-    CHECK_REL(d::load_result(s10, "Gcal/h", true, "t/hr"),
+    CHECK_REL(d::load_result(s10, "Gcal/h", true, "the heat load", "t/hr"),
               gnu_units("10 tonne/hr / (16.04246 g/mol) * (-890.36 kJ/mol)", "1e9 calorie_IT/hour"));
-    CHECK_REL(d::load_result(s10, "MMBtu/hr", true, "t/hr"),
+    CHECK_REL(d::load_result(s10, "MMBtu/hr", true, "the heat load", "t/hr"),
               gnu_units("10 tonne/hr / (16.04246 g/mol) * (-890.36 kJ/mol)", "1e6 btu/hour"));
-    const double BTU_h = d::load_result(mol_per_s * dH, "BTU/h", true, "kg/h");
+    const double BTU_h = d::load_result(mol_per_s * dH, "BTU/h", true, "the heat load", "kg/h");
     CHECK_REL(BTU_h, gnu_units("100 kg/hour / (16.04246 g/mol) * (-890.36 kJ/mol)", "btu/hour"));
-    const double mmbtu = d::load_result(d::quantity_to_mol(1000, "scf") * dH, "MMBTU", false, "scf");
+    const double mmbtu = d::load_result(d::quantity_to_mol(1000, "scf") * dH, "MMBTU", false, "the heat load", "scf");
     CHECK_REL(mmbtu, gnu_units("1000 * 14.696 psi * ft^3 / (R * tempF(60)) * (-890.36 kJ/mol)", "1e6 btu"));
 }
 
@@ -354,71 +354,71 @@ TEST_CASE("unknown energy unit lists every known one, and units are case-sensiti
     for (const char* bad : {"furlong", "mJ/kg", "mj/kg", "KJ/MOL", "kj/mol", "btu/lb", "kJ", "J/kg",
                             "kJ/mol/K", "/", "kJ//mol"}) {
         INFO("unit " << bad);
-        const std::string msg = error_of([&] { d::from_J_per_mol(1.0, bad, 18.0); }, ErrorKind::unit);
+        const std::string msg = error_of([&] { d::from_J_per_mol(1.0, bad, "the value", 18.0); }, ErrorKind::unit);
         for (const std::string& k : known) CHECK(msg.find(k) != std::string::npos);
         CHECK(msg.find(std::string("'") + bad + "'") != std::string::npos);
-        error_of([&] { d::to_J_per_mol(1.0, bad, 18.0); }, ErrorKind::unit);
+        error_of([&] { d::to_J_per_mol(1.0, bad, "the value", 18.0); }, ErrorKind::unit);
     }
     // A wrong-case name is refused, with a hint but no silent fix.
-    CHECK(error_of([] { d::from_J_per_mol(1.0, "mJ/kg", 18.0); }, ErrorKind::unit)
+    CHECK(error_of([] { d::from_J_per_mol(1.0, "mJ/kg", "the value", 18.0); }, ErrorKind::unit)
               .find("did you mean 'MJ/kg'") != std::string::npos);
-    CHECK(error_of([] { d::from_J_per_mol(1.0, "kj/mol"); }, ErrorKind::unit)
+    CHECK(error_of([] { d::from_J_per_mol(1.0, "kj/mol", "the value"); }, ErrorKind::unit)
               .find("did you mean 'kJ/mol'") != std::string::npos);
     CHECK_FALSE(d::is_per_mass_unit("mj/kg"));
     CHECK(d::is_per_mass_unit("Btu/lb"));
-    CHECK(error_of([] { d::from_J_per_mol(1.0, "BTu/lbmol"); }, ErrorKind::unit)
+    CHECK(error_of([] { d::from_J_per_mol(1.0, "BTu/lbmol", "the value"); }, ErrorKind::unit)
               .find("did you mean 'BTU/lbmol'") != std::string::npos);
-    CHECK(error_of([] { d::from_J_per_mol(1.0, "Btu/hr"); }, ErrorKind::unit).find("that is a load unit") !=
+    CHECK(error_of([] { d::from_J_per_mol(1.0, "Btu/hr", "the value"); }, ErrorKind::unit).find("that is a load unit") !=
           std::string::npos);
 }
 
 TEST_CASE("per-mass unit without a molar mass asks for `per`", "[units]") {
     for (const char* u : {"kJ/kg", "MJ/kg", "kJ/g", "kcal/kg", "BTU/lb"}) {
         INFO(u);
-        const std::string msg = error_of([&] { d::from_J_per_mol(-1e5, u); }, ErrorKind::unit);
+        const std::string msg = error_of([&] { d::from_J_per_mol(-1e5, u, "the value"); }, ErrorKind::unit);
         CHECK(msg.find("`per`") != std::string::npos);
-        error_of([&] { d::to_J_per_mol(1.0, u); }, ErrorKind::unit);
+        error_of([&] { d::to_J_per_mol(1.0, u, "the value"); }, ErrorKind::unit);
     }
     for (double bad_M : {0.0, -18.0, std::numeric_limits<double>::quiet_NaN(),
                          std::numeric_limits<double>::infinity()}) {
-        error_of([&] { d::from_J_per_mol(-1e5, "MJ/kg", bad_M); }, ErrorKind::argument);
+        error_of([&] { d::from_J_per_mol(-1e5, "MJ/kg", "the value", bad_M); }, ErrorKind::argument);
         error_of([&] { d::quantity_to_mol(1.0, "kg", bad_M); }, ErrorKind::argument);
     }
 }
 
 TEST_CASE("rate and total result units are not mixed", "[units]") {
-    std::string msg = error_of([] { d::load_result(1.0, "kJ", true, "kg/h"); }, ErrorKind::unit);
+    std::string msg = error_of([] { d::load_result(1.0, "kJ", true, "the heat load", "kg/h"); }, ErrorKind::unit);
     CHECK(msg.find("'kg/h' is a flow: give a power unit such as kW, MW, BTU/h, TR") != std::string::npos);
-    msg = error_of([] { d::load_result(1.0, "MMBTU", true); }, ErrorKind::unit);
+    msg = error_of([] { d::load_result(1.0, "MMBTU", true, "the heat load"); }, ErrorKind::unit);
     CHECK(msg.find("is a flow") != std::string::npos);
-    msg = error_of([] { d::load_result(1.0, "kW", false, "kg"); }, ErrorKind::unit);
+    msg = error_of([] { d::load_result(1.0, "kW", false, "the heat load", "kg"); }, ErrorKind::unit);
     CHECK(msg.find("'kg' is a total, not a flow: give an energy unit") != std::string::npos);
-    msg = error_of([] { d::load_result(1.0, "TR", false, "scf"); }, ErrorKind::unit);
+    msg = error_of([] { d::load_result(1.0, "TR", false, "the heat load", "scf"); }, ErrorKind::unit);
     CHECK(msg.find("energy unit") != std::string::npos);
     // Unknown result unit: every known one is listed.
-    msg = error_of([] { d::load_result(1.0, "kj", false); }, ErrorKind::unit);
+    msg = error_of([] { d::load_result(1.0, "kj", false, "the heat load"); }, ErrorKind::unit);
     for (const char* k : {"J", "kJ", "MJ", "GJ", "kWh", "MWh", "kcal", "BTU", "MMBTU", "therm", "W", "kW",
                           "MW", "kcal/h", "BTU/h", "MMBTU/h", "TR", "Gcal", "Btu", "MMBtu", "Gcal/h", "Btu/h",
                           "MMBtu/h", "/hr"})
         CHECK(msg.find(k) != std::string::npos);
     CHECK(msg.find("did you mean 'kJ'") != std::string::npos);
     // Wrong case keeps its hint; "/hr" totals and rates are not mixed either.
-    CHECK(error_of([] { d::load_result(1.0, "gcal", false); }, ErrorKind::unit).find("did you mean 'Gcal'") !=
+    CHECK(error_of([] { d::load_result(1.0, "gcal", false, "the heat load"); }, ErrorKind::unit).find("did you mean 'Gcal'") !=
           std::string::npos);
-    CHECK(error_of([] { d::load_result(1.0, "GCAL/H", true); }, ErrorKind::unit)
+    CHECK(error_of([] { d::load_result(1.0, "GCAL/H", true, "the heat load"); }, ErrorKind::unit)
               .find("did you mean 'Gcal/h'") != std::string::npos);
-    CHECK(error_of([] { d::load_result(1.0, "mmbtu", false); }, ErrorKind::unit)
+    CHECK(error_of([] { d::load_result(1.0, "mmbtu", false, "the heat load"); }, ErrorKind::unit)
               .find("did you mean 'MMBTU'") != std::string::npos);
-    CHECK(error_of([] { d::load_result(1.0, "Btu/hr", false, "kg"); }, ErrorKind::unit)
+    CHECK(error_of([] { d::load_result(1.0, "Btu/hr", false, "the heat load", "kg"); }, ErrorKind::unit)
               .find("'kg' is a total, not a flow") != std::string::npos);
-    CHECK(error_of([] { d::load_result(1.0, "Gcal", true, "t/hr"); }, ErrorKind::unit)
+    CHECK(error_of([] { d::load_result(1.0, "Gcal", true, "the heat load", "t/hr"); }, ErrorKind::unit)
               .find("'t/hr' is a flow") != std::string::npos);
     for (const char* bad : {"Gcal/H", "Gcal/hrs", "Gcal/hour", "kW/hr", "TR/hr", "Btu/Hr", "MMbtu/h", "/hr",
                             "hr", "Gcal/hr/h"})
-        error_of([&] { d::load_result(1.0, bad, true); }, ErrorKind::unit);
+        error_of([&] { d::load_result(1.0, bad, true, "the heat load"); }, ErrorKind::unit);
     for (const char* bad : {"mJ", "Btu", "btu/h", "kW/h", "kJ/mol", "tr", "kWh/h", "hp"})
-        error_of([&] { d::load_result(1.0, bad, true); }, ErrorKind::unit);
-    error_of([] { d::load_result(1.0, "kJ/mol", false); }, ErrorKind::unit);
+        error_of([&] { d::load_result(1.0, bad, true, "the heat load"); }, ErrorKind::unit);
+    error_of([] { d::load_result(1.0, "kJ/mol", false, "the heat load"); }, ErrorKind::unit);
 }
 
 TEST_CASE("bad quantity units and values", "[units]") {
@@ -452,10 +452,18 @@ TEST_CASE("bad quantity units and values", "[units]") {
     error_of([&] { d::quantity_to_mol(nan, "kmol"); }, ErrorKind::argument);
     error_of([&] { d::quantity_to_mol(-inf, "Nm3/h"); }, ErrorKind::argument);
     error_of([&] { d::quantity_to_mol(1e308, "t", 1e-300); }, ErrorKind::argument);
-    error_of([&] { d::from_J_per_mol(nan, "kJ/mol"); }, ErrorKind::argument);
-    error_of([&] { d::to_J_per_mol(inf, "kJ/mol"); }, ErrorKind::argument);
-    error_of([&] { d::load_result(inf, "kW", true); }, ErrorKind::argument);
-    error_of([&] { d::load_result(nan, "kJ", false); }, ErrorKind::argument);
+    error_of([&] { d::from_J_per_mol(nan, "kJ/mol", "the value"); }, ErrorKind::argument);
+    error_of([&] { d::to_J_per_mol(inf, "kJ/mol", "the value"); }, ErrorKind::argument);
+    error_of([&] { d::load_result(inf, "kW", true, "the heat load"); }, ErrorKind::argument);
+    error_of([&] { d::load_result(nan, "kJ", false, "the heat load"); }, ErrorKind::argument);
+    // Finite in, infinite out: the conversion's result is checked too, and named. 1e306 kJ/mol
+    // is 1e309 J/mol; 1e306 J/mol of a species of 1e-6 g/mol is 1e309 kJ/kg... in kJ/g 1e309.
+    CHECK(error_of([&] { d::to_J_per_mol(1e306, "kJ/mol", "the ΔH of step 2"); }, ErrorKind::argument)
+              .find("the ΔH of step 2 in J/mol is inf, not a finite number") != std::string::npos);
+    CHECK(error_of([&] { d::from_J_per_mol(1e306, "kJ/g", "ΔrH°", 1e-6); }, ErrorKind::argument)
+              .find("ΔrH° in 'kJ/g' is inf") != std::string::npos);
+    CHECK(error_of([&] { d::load_result(-inf, "kW", true, "the duty"); }, ErrorKind::argument)
+              .find("the duty is -inf") != std::string::npos);
 }
 
 // ---- temperature ----------------------------------------------------------------------------------
@@ -580,9 +588,9 @@ TEST_CASE("unit functions throw only rxnheat::Error on random input", "[units]")
         } catch (const Error&) {
             ++errors;
         }
-        try { (void)d::from_J_per_mol(1.0, s, 18.0); ++ok; } catch (const Error&) { ++errors; }
+        try { (void)d::from_J_per_mol(1.0, s, "the value", 18.0); ++ok; } catch (const Error&) { ++errors; }
         try { (void)d::quantity_to_mol(1.0, s, 18.0); ++ok; } catch (const Error&) { ++errors; }
-        try { (void)d::load_result(1.0, s, (i & 1) != 0, s); ++ok; } catch (const Error&) { ++errors; }
+        try { (void)d::load_result(1.0, s, (i & 1) != 0, "the heat load", s); ++ok; } catch (const Error&) { ++errors; }
         (void)d::is_per_mass_unit(s);
     }
     CHECK(ok > 0);

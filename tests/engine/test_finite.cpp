@@ -85,6 +85,41 @@ TEST_CASE("a sum that overflows is an error, and check() says the same as dh() a
     CHECK(std::isfinite(eng().dg(one, at, "J/mol")));
 }
 
+TEST_CASE("a quantity that overflows in mol says which quantity, in which unit", "[finite]") {
+    // 1e306 kmol is 1e309 mol, beyond the largest double (about 1.8e308); 1e300 kmol is not.
+    const char* r = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)";
+    const auto big = attempt([&] { return eng().load(r, 1e306, "kmol/h", "CH4", "", rxnheat::Conditions{298.15}); });
+    REQUIRE_ENGINE_ERROR(big);
+    CHECK(big.kind == ErrorKind::argument);
+    CHECK(contains(big.message, "the quantity 1e+306 'kmol/h' is too large: in mol/s"));
+    const auto amount = attempt([&] { return eng().load(r, 1e306, "kmol", "CH4", "", rxnheat::Conditions{298.15}); });
+    REQUIRE_ENGINE_ERROR(amount);
+    CHECK(contains(amount.message, "'kmol' is too large: in mol it passes"));
+    // 1e300 kmol is 1e303 mol, a double; times ΔrH° of about −8.9e5 J/mol it is not (about
+    // −8.9e308 J): the error names the heat load, not "the value".
+    const auto load = attempt([&] { return eng().load(r, 1e300, "kmol", "CH4", "", rxnheat::Conditions{298.15}); });
+    REQUIRE_ENGINE_ERROR(load);
+    CHECK(contains(load.message, "the heat load is -inf, not a finite number"));
+    CHECK(std::isfinite(eng().load(r, 1e290, "kmol", "CH4", "", rxnheat::Conditions{298.15})));
+}
+
+TEST_CASE("RXNHESS names the step whose ΔH overflows in J/mol", "[finite]") {
+    // 1e306 kJ/mol is 1e309 J/mol, beyond the largest double.
+    const auto h = attempt([&] {
+        return eng().hess("C(s) + O2(g) -> CO2(g)", {{1, "C(s) + O2(g) -> CO2(g)", 1e306}}, "kJ/mol");
+    });
+    REQUIRE_ENGINE_ERROR(h);
+    CHECK(h.kind == ErrorKind::argument);
+    CHECK(contains(h.message, "the ΔH of step 1 in J/mol is inf, not a finite number"));
+    // Two steps each finite in J/mol whose sum is not: the combined value is named.
+    const auto sum = attempt([&] {
+        return eng().hess("C(s) + 1/2 O2(g) -> CO(g)",
+                          {{1, "C(s) + O2(g) -> CO2(g)", 1.5e308}, {2, "CO2(g) -> CO(g) + 1/2 O2(g)", 1.5e308}}, "J/mol");
+    });
+    REQUIRE_ENGINE_ERROR(sum);
+    CHECK(contains(sum.message, "the combined ΔH is inf"));
+}
+
 TEST_CASE("ΔrG° or log K that overflow are said by check() as dg() and logk() throw them", "[finite]") {
     // S of 1e306 J/(mol·K) is finite; T·ΔS at 400 K is not.
     const auto t = SpeciesTable::from_rows({{"formula", "phase", "dHf", "S", "cp", "tmin", "tmax"},
