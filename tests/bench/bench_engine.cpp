@@ -13,10 +13,12 @@
 //          when each species keeps its own data). Their sum is the floor of a cached dh.
 #include <benchmark/benchmark.h>
 
+#include <rxnheat/catalogue.hpp>
 #include <rxnheat/rxnheat.hpp>
 
 #include "cold_texts.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstddef>
 #include <functional>
@@ -180,6 +182,50 @@ void BM_floor_nasa_4_species(benchmark::State& state) {
     state.SetItemsProcessed(state.iterations());
 }
 
+/// A user species table of 10,000 rows as a Calc range passes it (header and 9,999 invented
+/// alkane rows, values of the usual magnitudes, not data).
+const std::vector<rxnheat::Cell>& big_table_cells() {
+    using rxnheat::Cell;
+    static const std::vector<Cell> cells = [] {
+        std::vector<Cell> c;
+        for (const char* h : {"formula", "phase", "dHf", "S", "cp", "tmin", "tmax"}) c.push_back(Cell::of(std::string(h)));
+        for (int i = 21; i < 10020; ++i) {
+            c.push_back(Cell::of("C" + std::to_string(i) + "H" + std::to_string(2 * i + 2)));
+            c.push_back(Cell::of(std::string("g")));
+            for (double x : {-100.0 - i * 0.01, 200.0, 30.0, 200.0, 1000.0}) c.push_back(Cell::of(x));
+        }
+        return c;
+    }();
+    return cells;
+}
+
+// RXNDH through the catalogue with a 10,000-row table range, the table already read: what one
+// cell of a sheet that names such a table pays beyond the reaction (finding the table by its cells).
+void BM_table_range_dh(benchmark::State& state) {
+    const auto& cells = big_table_cells();
+    const rxnheat::FunctionSpec* f = rxnheat::find_function("RXNDH");
+    rxnheat::HostRules calc;
+    calc.zero_is_blank = true;
+    const std::vector<rxnheat::Arg> args{rxnheat::Arg::of(std::string("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)")),
+                                         rxnheat::Arg::of(400.0), rxnheat::Arg::omitted(), rxnheat::Arg::omitted(),
+                                         rxnheat::Arg::range(10000, 7, cells)};
+    rxnheat::evaluate(*f, args, calc);  // reads the table once
+    for (auto _ : state) benchmark::DoNotOptimize(rxnheat::evaluate(*f, args, calc));
+    state.SetItemsProcessed(state.iterations());
+}
+
+// Its floor: one comparison of the range's 70,000 cells with a kept copy (without an identity
+// from the host, a table found by content costs at least this).
+void BM_floor_compare_10000_rows(benchmark::State& state) {
+    const auto& cells = big_table_cells();
+    const std::vector<rxnheat::Cell> kept = cells;
+    const auto same = [](const rxnheat::Cell& a, const rxnheat::Cell& b) {
+        return a.kind == b.kind && a.number == b.number && a.text == b.text;
+    };
+    for (auto _ : state) benchmark::DoNotOptimize(std::equal(cells.begin(), cells.end(), kept.begin(), kept.end(), same));
+    state.SetItemsProcessed(state.iterations());
+}
+
 int register_all() {
     benchmark::RegisterBenchmark("floor/hash_lookup", BM_floor_hash_lookup);
     benchmark::RegisterBenchmark("floor/nasa_4_species", BM_floor_nasa_4_species);
@@ -196,6 +242,8 @@ int register_all() {
     benchmark::RegisterBenchmark("check_cached/unbalanced", BM_check_unbalanced);
     benchmark::RegisterBenchmark("species_h/CO2_1000K", BM_species_h);
     benchmark::RegisterBenchmark("molar_mass/CuSO4_5H2O", BM_molar_mass);
+    benchmark::RegisterBenchmark("floor/compare_10000_rows", BM_floor_compare_10000_rows);
+    benchmark::RegisterBenchmark("table_range/dh_10000_rows", BM_table_range_dh);
     return 0;
 }
 

@@ -358,6 +358,33 @@ TEST_CASE("a species table given as a range, and headers are part of its identit
           ErrorKind::argument);
 }
 
+TEST_CASE("tables read from ranges are kept by their cells: one changed cell is another table", "[catalogue][table]") {
+    // Row values are our own test values (an invented row), as above.
+    const char* const XEF6 = "Xe(g) + 3 F2(g) -> XeF6(g)";
+    const auto range = [](Cell dHf) {
+        return Arg::range(2, 4, {t("formula"), t("phase"), t("dHf"), t("S"), t("XeF6"), t("g"), std::move(dHf), n(300)});
+    };
+    const auto dh = [&](const Arg& table) {
+        return one("RXNDH", {text(XEF6), Arg::omitted(), Arg::omitted(), Arg::omitted(), table}, calc);
+    };
+    // Alternating between two ranges that differ in one digit of one cell: each gets its own table.
+    for (int round = 0; round < 3; ++round) {
+        CHECK(number_of(dh(range(n(-279)))) == Approx(-279).margin(1e-9));
+        CHECK(number_of(dh(range(n(-279.5)))) == Approx(-279.5).margin(1e-9));
+    }
+    // The number −279 and the text "-279" are read alike: the same table either way.
+    CHECK(number_of(dh(range(t("-279")))) == Approx(-279).margin(1e-9));
+    // The same cells in another shape are another table (here a malformed one), and the first
+    // shape still reads as before.
+    const Arg tall = Arg::range(4, 2, {t("formula"), t("phase"), t("dHf"), t("S"), t("XeF6"), t("g"), n(-279), n(300)});
+    CHECK(dh(tall).error == ErrorKind::table);
+    CHECK(number_of(dh(range(n(-279)))) == Approx(-279).margin(1e-9));
+    // Texts that would read the same run together are told apart ("XeF6" + "g" and "XeF6g" + "").
+    const Arg run_in = Arg::range(2, 4, {t("formula"), t("phase"), t("dHf"), t("S"), t("XeF6g"), t(""), n(-279), n(300)});
+    CHECK(dh(run_in).kind == rxnheat::Outcome::Kind::error);
+    CHECK(number_of(dh(range(n(-279)))) == Approx(-279).margin(1e-9));
+}
+
 TEST_CASE("the Engine's own cache: sized, observable, clearable", "[catalogue][cache]") {
     Engine small(rxnheat::EngineOptions{8});
     auto s = small.cache_stats();
