@@ -73,7 +73,7 @@ Substance resolve_one(std::string_view text, const SpeciesTable* table) {
 }
 
 /// Value per mole of extent -> per mole (or mass) of the `per` species, in `unit`.
-double per_extent_in_unit(const Prepared& p, double J_per_mol, const char* what, std::string_view unit,
+double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view what, std::string_view unit,
                           std::string_view per, const SpeciesTable* table, double T) {
     if (per.empty()) return detail::from_J_per_mol(J_per_mol, unit, what);
     const auto key = parse_one_species(per, "the 'per' species");
