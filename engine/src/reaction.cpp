@@ -13,9 +13,9 @@
 #include <cmath>
 #include <cstdio>
 #include <atomic>
+#include <charconv>
 #include <deque>
 #include <functional>
-#include <charconv>
 #include <map>
 #include <numeric>
 #include <set>
@@ -97,8 +97,8 @@ bool add_product(Rational& total, const Rational& a, const Rational& b) {
 }
 
 // Each element's total on the left and on the right, and the charge's, as text after `lead`;
-// `bad` left empty when every total matches. In 64-bit integers when every coefficient and count is a whole number
-// small enough (nearly every reaction: no rational arithmetic at all), exactly otherwise.
+// `bad` left empty when every total matches. In 64-bit integers when every coefficient and count
+// is a whole number small enough (nearly every reaction: no rational arithmetic), exactly otherwise.
 template <class Number, class Convert, class Text>
 bool side_totals(const Prepared& p, Convert convert, Text text, std::string_view lead, std::string& bad) {
     // element -> (left, right); a flat list (a reaction has few elements), in symbol order below
@@ -493,7 +493,10 @@ std::string balanced_text(const Prepared& prepared) {
             for (const auto& a : p->compositions[j]->atoms) {
                 if (!fits) break;
                 const __int128 x = static_cast<__int128>(a.second.num64()) * (scale / a.second.den64());
-                if (x >= SmallBalanceMatrix::max_entry || x <= -SmallBalanceMatrix::max_entry) fits = false;
+                if (x >= SmallBalanceMatrix::max_entry || x <= -SmallBalanceMatrix::max_entry) {
+                    fits = false;
+                    break;
+                }
                 sm.a[row_of(a.first)][j] += static_cast<std::int64_t>(left ? x : -x);
             }
             if (const int q = p->compositions[j]->charge) sm.a[rows - 1][j] = std::int64_t(left ? q : -q) * scale;

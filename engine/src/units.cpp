@@ -113,8 +113,9 @@ bool underflows(std::string_view number) {
 }
 
 /// The error for a value that is not finite: `what`, then " in " and `in` when `in` is given.
-/// Apart from the test below and never inlined, so that the conversions on every cell's path
-/// carry no string building, not even in their prologue (measured: 40 instructions a cached dh).
+/// Out of line (cold, never inlined), apart from the test in require_finite, so that the
+/// conversions on every cell's path carry no string building, not even in their prologue
+/// (measured: building the name in place cost a cached dh 47 instructions, batch 20 %).
 [[noreturn]] __attribute__((noinline, cold)) void not_finite(double v, std::string_view what, std::string_view in) {
     std::string name(what);
     if (!in.empty()) name += " in " + std::string(trim(in));
