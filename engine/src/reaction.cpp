@@ -371,9 +371,17 @@ std::string Prepared::canonical(double T) const {
 Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
                                    std::size_t* term_index) const {
     require_thermo();
-    const Database& db = Database::get();
-    const Composition want = db.composition(key, table);
-    const std::string want_key = want.key();
+    // The key written exactly as a term of the reaction (the common case, "CH4(g)" for
+    // "CH4(g) + 2 O2(g) -> ..."): the same text and table give the same composition, already
+    // keyed in prepare. Otherwise it is worked out.
+    std::string want_key;
+    bool keyed = false;
+    for (std::size_t i = 0; i < terms.size() && !keyed; ++i)
+        if (terms[i]->species.written == key.written) {
+            want_key = composition_keys[i];
+            keyed = true;
+        }
+    if (!keyed) want_key = Database::get().composition(key, table).key();
     const char want_phase = key.phase.empty() ? 0 : key.phase == "aq" ? 'a' : key.phase[0];
     Rational net = 0;
     std::string identity;

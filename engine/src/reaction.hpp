@@ -76,6 +76,7 @@ struct Prepared {
     std::string canonical(double T) const;    ///< with the phases used at T, "->"
     /// Net signed coefficient of the species `key` in the reaction (matched by composition,
     /// and by phase when `key` has one). Throws when absent, netted to zero or ambiguous.
+    /// `table`: the one this reaction was prepared with.
     Rational key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
                              std::size_t* term_index) const;
 

@@ -256,3 +256,45 @@ TEST_CASE("cache: a cached reaction's later evaluations equal its first bit for 
     CHECK(wrong == 0);
     CHECK(ref.rfind("error", 0) != 0);
 }
+
+// Species arguments (RXNLOAD's key, RXNDH's `per`) are parsed once per text and kept per thread
+// for the last few texts (engine.cpp, parse_one_species): every answer must be the one a fresh
+// parse gives, with more texts than are kept, errors among them and phases that differ.
+TEST_CASE("cache: kept parses of species arguments give the answers of a fresh parse", "[cache]") {
+    Engine& e = Engine::shared();
+    const char* r = "CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)";
+    const double dh_kJ = e.dh(r);  // per mole of reaction as written (NASA Glenn data)
+    // 1000 mol of the key: ΔrH° · 1000 / |ν| in kJ, ν by construction of the reaction text.
+    struct Key {
+        const char* text;
+        double nu;  // 0: not a species of the reaction (an error, every time)
+    };
+    const Key keys[] = {{"CH4(g)", 1}, {"O2", 2},     {"N2", 0},  {"CO2(g)", 1}, {"H2O", 2},
+                        {"H2O(g)", 0}, {"O2(g)", 2},  {"C(", 0},  {"CH4", 1},    {"H2O(l)", 2}};
+    for (int round = 0; round < 3; ++round)
+        for (const Key& k : keys) {
+            INFO("round " << round << ", key " << k.text);
+            if (k.nu == 0) {
+                // An error, worded as a fresh parse words it (on a new thread nothing is kept).
+                std::string here, fresh;
+                try {
+                    e.load(r, 1000, "mol", k.text, "kJ");
+                } catch (const rxnheat::Error& x) {
+                    here = x.what();
+                }
+                std::thread([&] {
+                    try {
+                        e.load(r, 1000, "mol", k.text, "kJ");
+                    } catch (const rxnheat::Error& x) {
+                        fresh = x.what();
+                    }
+                }).join();
+                CHECK_FALSE(here.empty());
+                CHECK(here == fresh);
+                continue;
+            }
+            CHECK(e.load(r, 1000, "mol", k.text, "kJ") == Approx(dh_kJ * 1000 / k.nu).epsilon(1e-12));
+            // And `per` through the same kept parses: ΔrH° per mole of the species.
+            CHECK(e.dh(r, rxnheat::Conditions{}, "kJ/mol", k.text) == Approx(dh_kJ / k.nu).epsilon(1e-12));
+        }
+}
