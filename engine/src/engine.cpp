@@ -805,6 +805,7 @@ std::string Engine::check(std::string_view reaction, const Conditions& at) noexc
         const double T = at.temperature_K;
         check_temperature(T);
         const auto p = impl_->prepare(reaction, at.table);
+        if (const Error* e = p->thermo_error()) return e->what();  // kept from prepare: no throw
         p->dH(T);
         internal_energy_J_per_mol(*p, T);
         // What RXNDS, RXNDG and RXNLOGK would throw for values that are not finite numbers is said

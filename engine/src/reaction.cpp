@@ -200,10 +200,15 @@ void Prepared::require_compositions() const {
     if (composition_error) throw *composition_error;
 }
 
+const Error* Prepared::thermo_error() const noexcept {
+    if (composition_error) return &*composition_error;
+    if (balance_error) return &*balance_error;
+    if (resolve_error) return &*resolve_error;
+    return nullptr;
+}
+
 void Prepared::require_thermo() const {
-    require_compositions();
-    if (balance_error) throw *balance_error;
-    if (resolve_error) throw *resolve_error;
+    if (const Error* e = thermo_error()) throw *e;
 }
 
 namespace {

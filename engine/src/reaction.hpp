@@ -69,6 +69,9 @@ struct Prepared {
     /// Throws the first error of the stages a function needs.
     void require_compositions() const;
     void require_thermo() const;              ///< compositions, balance and data
+    /// The error require_thermo() throws, or null: for answers that are the error in words
+    /// (RXNCHECK), without the cost of a throw (some 16,000 instructions a call).
+    const Error* thermo_error() const noexcept;
 
     double dH(double T) const;                ///< J/mol of extent
     double dS(double T) const;                ///< J/(mol·K)

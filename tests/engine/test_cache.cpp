@@ -298,3 +298,27 @@ TEST_CASE("cache: kept parses of species arguments give the answers of a fresh p
             CHECK(e.dh(r, rxnheat::Conditions{}, "kJ/mol", k.text) == Approx(dh_kJ / k.nu).epsilon(1e-12));
         }
 }
+
+// check() reads the error a prepared reaction keeps (a composition, balance or data error)
+// without throwing it; its answer must be the message dh() throws, on a first call and a cached one.
+TEST_CASE("cache: check() answers a kept error exactly as dh() throws it", "[cache]") {
+    Engine& e = Engine::shared();
+    const char* kept[] = {
+        "H2(g) + O2(g) -> H2O(l)",     // unbalanced
+        "Qx + H2 -> QxH2",             // no such element
+        "Xe(g) + 3 F2(g) -> XeF6(g)",  // no data for XeF6(g) without a table
+    };
+    for (const char* r : kept)
+        for (int call = 0; call < 2; ++call) {
+            INFO(r << ", call " << call);
+            std::string thrown;
+            try {
+                e.dh(r);
+            } catch (const rxnheat::Error& x) {
+                thrown = x.what();
+            }
+            REQUIRE_FALSE(thrown.empty());
+            CHECK(e.check(r) == thrown);
+        }
+    CHECK(e.check("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)") == "ok");
+}
