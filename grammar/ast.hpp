@@ -80,8 +80,9 @@ struct Formula : Located {
     boost::optional<Charge> charge;
 };
 
-/// A species is a name (a Span, starts lowercase, inner whitespace as written) or a formula.
-struct Body : x3::variant<Span, Formula> {
+/// A species is a formula or a name (a Span, starts lowercase, inner whitespace as written). The
+/// formula comes first, so a default Body holds one and the grammar parses into it as it is.
+struct Body : x3::variant<Formula, Span> {
     using base_type::base_type;
     using base_type::operator=;
 };

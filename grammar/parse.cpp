@@ -121,8 +121,11 @@ void append_utf8(std::string& out, char32_t c) {
 }
 
 std::string utf8(Iter first, Iter last) {
+    bool ascii = true;  // nearly every text: then each code point is its own byte
+    for (Iter p = first; p != last; ++p) ascii &= *p < 0x80;
+    if (ascii) return std::string(first, last);
     std::string out;
-    out.reserve(std::size_t(last - first));  // exact for ASCII, the common case
+    out.reserve(std::size_t(last - first));
     for (; first != last; ++first) {
         if (*first < 0x80)
             out.push_back(char(*first));
@@ -142,6 +145,14 @@ std::string hex_byte(unsigned char b) {
 /// Strict decoding (no overlong forms, surrogates or values above U+10FFFF).
 void decode(std::string_view s, Text& out) {
     out.clear();
+    // All ASCII, the common case: one pass to find out, one to widen (no per-run searching).
+    unsigned char any = 0;
+    for (char b : s) any |= static_cast<unsigned char>(b);
+    if (any < 0x80) {
+        out.resize(s.size());
+        for (std::size_t k = 0; k < s.size(); ++k) out[k] = static_cast<unsigned char>(s[k]);
+        return;
+    }
     out.reserve(s.size());
     std::size_t i = 0;
     while (i < s.size()) {
@@ -211,19 +222,29 @@ const char* empty_message(Mode mode) {
     return "the text is empty";
 }
 
-/// Length (before decoding), UTF-8, emptiness, bracket pairing and depth, digit counts.
-/// The ASCII characters the pre-scan below looks at: brackets and digits (a table: one load,
-/// not seven tests, for each of the other characters).
+/// The ASCII characters the pre-scan below looks at: brackets, digits, '+' and the arrows'
+/// '=' and '>' (a table: one load, not eleven tests, for each of the other characters).
 constexpr std::array<bool, 128> ascii_scanned = [] {
     std::array<bool, 128> c{};
-    for (char b : {'(', '[', '{', ')', ']', '}'}) c[static_cast<unsigned char>(b)] = true;
+    for (char b : {'(', '[', '{', ')', ']', '}', '+', '=', '>'}) c[static_cast<unsigned char>(b)] = true;
     for (char d = '0'; d <= '9'; ++d) c[static_cast<unsigned char>(d)] = true;
     return c;
 }();
 
+/// What the pre-scan counts on the way, for reserve_sides(): the '+' signs before the first
+/// arrow character ('=', '>', U+2192, U+27F6, U+21CC) and after it.
+struct Counts {
+    std::size_t plus_before = 0, plus_after = 0;
+};
+
+bool is_arrow_char(char32_t c) {
+    return c == U'=' || c == U'>' || c == U'\u2192' || c == U'\u27F6' || c == U'\u21CC';
+}
+
 /// Decodes the text into `t` (a buffer the caller may keep between calls) and checks what the
 /// grammar relies on: the length, bracket pairing and depth, and the digits of each number.
-void prepare(std::string_view utf8_text, Mode mode, Text& t) {
+/// One pass over the decoded text, which also counts `counts` (when given).
+void prepare(std::string_view utf8_text, Mode mode, Text& t, Counts* counts = nullptr) {
     if (utf8_text.size() > max_input_characters) {  // bytes ≥ characters: only then count
         std::size_t chars = 0;  // code points if valid UTF-8: bytes that do not continue a character
         for (char b : utf8_text)
@@ -241,10 +262,16 @@ void prepare(std::string_view utf8_text, Mode mode, Text& t) {
     };
     boost::container::small_vector<Open, max_group_depth + 1> open;  // never more: checked below
     auto closer = [](char32_t c) { return c == U'(' ? U')' : c == U'[' ? U']' : U'}'; };
+    std::size_t plus[2] = {0, 0};  // before and after the first arrow character
+    bool after = false;
     for (std::size_t i = 0; i < t.size(); ++i) {
         char32_t const c = t[i];
         if (c < 0x80 && !ascii_scanned[c]) continue;  // most characters
-        if (c == U'(' || c == U'[' || c == U'{') {
+        if (c == U'+') {
+            ++plus[after];
+        } else if (is_arrow_char(c)) {
+            after = true;
+        } else if (c == U'(' || c == U'[' || c == U'{') {
             open.push_back({c, i + 1});
             if (open.size() > max_group_depth)
                 throw ParseError(i + 1, "groups nested deeper than " + std::to_string(max_group_depth) +
@@ -279,6 +306,7 @@ void prepare(std::string_view utf8_text, Mode mode, Text& t) {
         }
     }
     if (!open.empty()) throw ParseError(open.back().position, "unmatched " + describe(open.back().ch));
+    if (counts) *counts = {plus[0], plus[1]};
 }
 
 Text prepare(std::string_view utf8_text, Mode mode) {
@@ -638,18 +666,27 @@ public:
         return negative ? Rational(-value) : value;
     }
 
+    // Terms and species are built in place, in the vector's element and the term's member, not
+    // built aside and moved in (a move and a destruction of four strings and a vector each).
     Reaction reaction(const ast::Reaction& tree) const {
         Reaction r;
         r.reactants.reserve(tree.reactants.size());
         r.products.reserve(tree.products.size());
-        for (const auto& term : tree.reactants) r.reactants.push_back(this->term(term));
-        for (const auto& term : tree.products) r.products.push_back(this->term(term));
+        for (const auto& term : tree.reactants) this->term(term, r.reactants.emplace_back());
+        for (const auto& term : tree.products) this->term(term, r.products.emplace_back());
         r.arrow = utf8(view(tree.arrow));
         return r;
     }
 
     Species species(const ast::Species& tree) const {
         Species s;
+        species(tree, s);
+        return s;
+    }
+
+private:
+    /// Fills `s`, a default-constructed Species.
+    void species(const ast::Species& tree, Species& s) const {
         auto const range = tr_.position_of(tree);
         s.position = pos(range.begin());
         s.written = utf8(range.begin(), range.end());
@@ -669,31 +706,31 @@ public:
         } else {
             formula(boost::get<ast::Formula>(tree.body.get()), s);
         }
-        return s;
     }
 
-private:
     std::size_t pos(Iter it) const { return std::size_t(it - t_.data()) + 1; }
     std::size_t start(const ast::Located& node) const { return pos(tr_.position_of(node).begin()); }
 
-    Term term(const ast::Term& tree) const {
-        Term term;
+    /// Fills `term`, a default-constructed Term.
+    void term(const ast::Term& tree, Term& term) const {
         term.position = start(tree);
-        term.species = species(tree.species);
+        species(tree.species, term.species);
         if (tree.coefficient) {
             term.coefficient_written = true;
             term.coefficient = number(*tree.coefficient, term.position);
             if (term.coefficient == 0)
                 throw ParseError(term.position, "a coefficient of zero is not allowed: " + in_quotes(*tree.coefficient));
         }
-        return term;
     }
 
-    std::string phase(const Span& written, Iter species_end) const {
+    /// The phase's public name (a literal: assigned without building a string first).
+    const char* phase(const Span& written, Iter species_end) const {
         std::u32string_view const word = view(written);
         std::size_t const position = pos(species_end) - word.size() - 2;  // at the '('
-        if (word == U"g" || word == U"l" || word == U"s" || word == U"aq") return utf8(word);
-        if (word == U"cr") return "s";
+        if (word == U"g") return "g";
+        if (word == U"l") return "l";
+        if (word == U"s" || word == U"cr") return "s";
+        if (word == U"aq") return "aq";
         throw ParseError(position, "unknown phase '(" + utf8(word) + ")': the phases are (g), (l), (s), "
                                    "(cr) (the same as (s)) and (aq)");
     }
@@ -702,7 +739,7 @@ private:
         auto const range = tr_.position_of(tree);
         Where where{std::size_t(range.begin() - t_.data()), std::size_t(range.end() - t_.data()), 0, 0};
         s.atoms.reserve(element_items(tree));
-        std::vector<Atom> before_last;  // s.atoms before the last part, to count that part alone
+        Atoms before_last;  // s.atoms before the last part, to count that part alone
         for (std::size_t k = 0; k < tree.parts.size(); ++k) {
             const ast::Part& part = tree.parts[k];
             if (k > 0 && k + 1 == tree.parts.size()) before_last = s.atoms;  // (none before the first)
@@ -729,7 +766,7 @@ private:
 
     /// The atoms of one formula part per unit of it (its hydrate multiplier divided out): `after`
     /// less `before`, the totals before and after the part was added.
-    Rational part_count(const std::vector<Atom>& after, const std::vector<Atom>& before, const char* symbol) const {
+    Rational part_count(const Atoms& after, const Atoms& before, const char* symbol) const {
         Rational n{0};
         for (const auto& a : after)
             if (a.symbol == symbol) n += a.count;
@@ -740,7 +777,7 @@ private:
     struct PartAtoms {
         Rational C, H, N;
     };
-    PartAtoms part_atoms(const std::vector<Atom>& after, const std::vector<Atom>& before, const ast::Part& part) const {
+    PartAtoms part_atoms(const Atoms& after, const Atoms& before, const ast::Part& part) const {
         Rational const m = part.multiplier.empty() ? Rational{1} : number(part.multiplier, start(part));
         return {part_count(after, before, "C") / m, part_count(after, before, "H") / m,
                 part_count(after, before, "N") / m};
@@ -879,7 +916,7 @@ private:
     Text formula_text(const Where& where) const { return t_.substr(where.first, where.last - where.first); }
 
     /// An element symbol is ASCII letters (the grammar's `upper >> -lower`).
-    static void add_atom(std::vector<Atom>& atoms, const Span& symbol, const Rational& n, std::size_t position) {
+    static void add_atom(Atoms& atoms, const Span& symbol, const Rational& n, std::size_t position) {
         auto const same = [&](const std::string& a) {
             if (a.size() != std::size_t(symbol.size())) return false;
             for (std::size_t k = 0; k < a.size(); ++k)
@@ -940,19 +977,11 @@ private:
 
 /// Room for the terms of each side before the grammar runs, so a side of thousands of terms is
 /// not moved to a larger block again and again (a term of the syntax tree is some 460 bytes):
-/// at most one more term than '+' signs before the first arrow character, and after it. Only a
-/// capacity: the grammar decides what the terms are.
-void reserve_sides(const Text& t, ast::Reaction& tree) {
-    std::size_t plus_before = 0, plus_after = 0;
-    bool after = false;
-    for (char32_t c : t) {
-        if (c == U'+')
-            ++(after ? plus_after : plus_before);
-        else if (!after)  // an arrow's characters; once past one, only '+' counts
-            after = c == U'=' || c == U'>' || c == U'\u2192' || c == U'\u27F6' || c == U'\u21CC';
-    }
-    tree.reactants.reserve(plus_before + 1);
-    tree.products.reserve(plus_after + 1);
+/// at most one more term than '+' signs before the first arrow character, and after it (counted
+/// by prepare()). Only a capacity: the grammar decides what the terms are.
+void reserve_sides(const Counts& counts, ast::Reaction& tree) {
+    tree.reactants.reserve(counts.plus_before + 1);
+    tree.products.reserve(counts.plus_after + 1);
 }
 
 template <typename Rule, typename Tree>
@@ -969,7 +998,8 @@ Reaction parse_reaction(std::string_view text) {
     // The decoded text in a buffer kept per thread, as the tree below: nothing the result holds
     // points into it (the Builder copies what it keeps), and no parse runs inside another.
     thread_local Text decoded;
-    prepare(text, Mode::reaction, decoded);
+    Counts counts;
+    prepare(text, Mode::reaction, decoded, &counts);
     Text const& t = decoded;
     parser::Tracker tracker;
     // One tree per thread, its storage kept from call to call: a side of thousands of terms
@@ -980,7 +1010,7 @@ Reaction parse_reaction(std::string_view text) {
     tree.reactants.clear();
     tree.products.clear();
     tree.arrow = {};
-    reserve_sides(t, tree);
+    reserve_sides(counts, tree);
     tracker.build(&tree);
     run(Mode::reaction, t, parser::reaction(), tree.arrow, tracker);
     return Builder(t, tracker).reaction(tree);

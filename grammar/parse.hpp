@@ -5,6 +5,8 @@
 
 #include "grammar/rational.hpp"
 
+#include <boost/container/small_vector.hpp>
+
 #include <cstddef>
 #include <stdexcept>
 #include <string>
@@ -20,11 +22,15 @@ struct Atom {
     std::size_t position;   ///< 1-based character position of the symbol's first occurrence
 };
 
+/// A formula's atoms: up to four held inline (nearly every formula has at most four elements), so
+/// a species is built without a heap block of its own.
+using Atoms = boost::container::small_vector<Atom, 4>;
+
 struct Species {
     bool is_name = false;   ///< true for a name such as "ethanol" or "n-octane" (starts lowercase)
     std::string name;       ///< the name as written (is_name only), inner spaces folded to one
     std::string formula;    ///< formula as ASCII without phase/charge: "CuSO4*5H2O", "Ca(OH)2"
-    std::vector<Atom> atoms;  ///< element counts, one entry per distinct symbol, in order of first appearance
+    Atoms atoms;              ///< element counts, one entry per distinct symbol, in order of first appearance
     int charge = 0;         ///< net charge, e.g. -2 for "SO4^2-"
     std::string phase;      ///< "", "g", "l", "s" (also for "(cr)"), "aq"
     std::string written;    ///< the species exactly as written (UTF-8, trimmed), phase included

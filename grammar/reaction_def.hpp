@@ -377,7 +377,10 @@ auto const formula_def = parts >> -charge;
 auto const name_char = lower | digit | (name_joiner >> &(lower | digit));
 auto const name_def = x3::raw[lower >> *name_char >> *(+blank >> &lower >> +name_char)];
 
-auto const body_def = detail::in_place(name, formula);  // name | formula
+// formula | name: the two start differently (uppercase or a bracket, lowercase), so the order
+// decides nothing but which is tried first; a formula fails at a lowercase first character
+// without an expectation. Formulas, nearly every species, first: the Body holds one already.
+auto const body_def = detail::in_place(formula, name);
 auto const phase_def = open_paren >> &lower >> expect("phase")[phase_word >> close_paren];
 auto const phase_word_def = x3::raw[+lower];
 auto const species_def = body >> -(ws >> phase);

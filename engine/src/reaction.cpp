@@ -590,7 +590,7 @@ std::size_t heap_bytes(const boost::container::small_vector<T, N>& v) {
 
 std::size_t species_bytes(const grammar::Species& sp) {
     std::size_t n = string_bytes(sp.name) + string_bytes(sp.formula) + string_bytes(sp.phase) +
-                    string_bytes(sp.written) + sp.atoms.capacity() * sizeof(grammar::Atom);
+                    string_bytes(sp.written) + heap_bytes(sp.atoms);
     for (const auto& a : sp.atoms) n += string_bytes(a.symbol);
     return n;
 }
