@@ -790,20 +790,28 @@ void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::s
     s.evict(max_entries, max_bytes);  // may evict the new entry itself when it alone is too big
 }
 
-std::shared_ptr<const PreparedCache::SpeciesMemo> PreparedCache::find_species(std::string_view written) const {
-    if (capacity_ == 0 || written.size() > 64) return nullptr;
+void PreparedCache::find_species(const std::string_view* written, std::size_t n,
+                                 std::shared_ptr<const SpeciesMemo>* found) const {
+    if (capacity_ == 0) return;
     std::shared_lock<std::shared_mutex> lock(species_mutex_);
-    const auto it = species_.find(std::string(written));
-    if (it == species_.end()) return nullptr;
-    return it->second;
+    for (std::size_t i = 0; i < n; ++i) {
+        if (written[i].size() > 64) continue;
+        const auto it = species_.find(written[i]);
+        if (it != species_.end()) found[i] = it->second;
+    }
 }
 
 void PreparedCache::put_species(std::string_view written, SpeciesMemo memo) {
     if (capacity_ == 0 || written.size() > 64) return;
+    memo.written.assign(written.data(), written.size());
+    auto kept = std::make_shared<const SpeciesMemo>(std::move(memo));
     std::unique_lock<std::shared_mutex> lock(species_mutex_);
     if (species_.size() >= species_memo_entries) species_.clear();
-    // Replaces an entry without data (kept for the composition of an unbalanced reaction's species).
-    species_.insert_or_assign(std::string(written), std::make_shared<const SpeciesMemo>(std::move(memo)));
+    // Replaces an entry without data (kept for the composition of an unbalanced reaction's
+    // species). Erased first: the old key views the old memo's text.
+    species_.erase(written);
+    const std::string_view key = kept->written;
+    species_.emplace(key, std::move(kept));
 }
 
 CacheStats PreparedCache::stats() const {
@@ -864,8 +872,11 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     // Species already resolved by this engine (no user table only: a table's rows come first).
     const bool memo = cache && !(table && table->impl());
     boost::container::small_vector<std::shared_ptr<const PreparedCache::SpeciesMemo>, 8> known(p->terms.size());
-    if (memo)
-        for (std::size_t i = 0; i < p->terms.size(); ++i) known[i] = cache->find_species(p->terms[i]->species.written);
+    if (memo) {
+        boost::container::small_vector<std::string_view, 8> written;
+        for (const auto* t : p->terms) written.push_back(t->species.written);
+        cache->find_species(written.data(), written.size(), known.data());
+    }
     try {
         for (std::size_t i = 0; i < p->terms.size(); ++i) {
             if (known[i]) {

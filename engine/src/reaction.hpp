@@ -126,9 +126,13 @@ public:
         std::shared_ptr<const Composition> composition;
         std::string composition_key;
         std::shared_ptr<const Substance> substance;  ///< null: not resolved (an unbalanced reaction's species) or resolving failed
+        std::string written;  ///< the key (set by put_species; the memo's map keys view it)
     };
     static constexpr std::size_t species_memo_entries = 1024;
-    std::shared_ptr<const SpeciesMemo> find_species(std::string_view written) const;  ///< null: not seen
+    /// For each of the n texts, its memo or null (not seen), under one shared lock: a reaction's
+    /// species are looked up together.
+    void find_species(const std::string_view* written, std::size_t n,
+                      std::shared_ptr<const SpeciesMemo>* found) const;
     void put_species(std::string_view written, SpeciesMemo memo);
 
 private:
@@ -137,7 +141,8 @@ private:
     std::vector<std::unique_ptr<Shard>> shards_;
     Shard& shard_of(std::uint64_t hash) const;
     mutable std::shared_mutex species_mutex_;
-    std::unordered_map<std::string, std::shared_ptr<const SpeciesMemo>> species_;
+    /// Keyed by a view of the memo's own `written`, so a look-up builds no string.
+    std::unordered_map<std::string_view, std::shared_ptr<const SpeciesMemo>> species_;
 };
 
 /// Estimated bytes of a prepared reaction: its own parts (sizes and string capacities), not the
