@@ -122,6 +122,9 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string_view
         }
         if (!add_product(product ? q_right : q_left, n, Number(p.compositions[i]->charge))) return false;
     }
+    bool balanced = q_left == q_right;
+    for (const auto& e : totals) balanced = balanced && e.second.first == e.second.second;
+    if (balanced) return true;  // nearly every reaction: nothing to sort or say
     std::sort(totals.begin(), totals.end(), [](const auto& x, const auto& y) { return x.first < y.first; });
     // Appended in place: this message is built for every unbalanced reaction a sheet holds (and
     // a balanced one allocates nothing here).
@@ -615,27 +618,26 @@ std::uint64_t mix64(std::uint64_t x) {  // splitmix64's finaliser: spreads a fin
 
 }  // namespace
 
+std::size_t composition_bytes(const Composition& c, const std::string& key) {
+    std::size_t n = sizeof(Composition) + c.atoms.capacity() * sizeof(c.atoms[0]) + string_bytes(key);
+    for (const auto& a : c.atoms) n += string_bytes(a.first);
+    return n;
+}
+
+std::size_t substance_bytes(const Substance& s) {
+    std::size_t n = sizeof(Substance) + string_bytes(s.label) + string_bytes(s.display) +
+                    s.composition.atoms.capacity() * sizeof(s.composition.atoms[0]);
+    for (const auto& a : s.composition.atoms) n += string_bytes(a.first);
+    return n + (s.records.capacity() + s.candidates.capacity() + s.vapour.capacity()) * sizeof(void*);
+}
+
 std::size_t estimated_bytes(const Prepared& p) {
     std::size_t n = sizeof(Prepared) + string_bytes(p.ast.arrow);
     n += (p.ast.reactants.capacity() + p.ast.products.capacity()) * sizeof(grammar::Term);
     for (const auto* t : p.terms) n += species_bytes(t->species);
     n += heap_bytes(p.terms) + heap_bytes(p.nu) + heap_bytes(p.nu_double);
     n += p.segments_bytes_bound;  // the segments' heap bytes once built (none yet, most often)
-    // A composition shared with the species memo is counted here too: an upper bound.
-    n += p.compositions.size() * sizeof(Composition);
-    for (const auto& c : p.compositions) {
-        n += c->atoms.capacity() * sizeof(c->atoms[0]);
-        for (const auto& a : c->atoms) n += string_bytes(a.first);
-    }
-    n += heap_bytes(p.composition_keys);
-    for (const auto& k : p.composition_keys) n += string_bytes(k);
-    n += heap_bytes(p.substances) + p.substances.size() * sizeof(Substance);
-    for (const auto& sp : p.substances) {
-        const Substance& s = *sp;
-        n += string_bytes(s.label) + string_bytes(s.display) + s.composition.atoms.capacity() * sizeof(s.composition.atoms[0]);
-        for (const auto& a : s.composition.atoms) n += string_bytes(a.first);
-        n += (s.records.capacity() + s.candidates.capacity() + s.vapour.capacity()) * sizeof(void*);
-    }
+    n += heap_bytes(p.composition_keys) + heap_bytes(p.substances) + p.species_data_bytes;
     return n + error_bytes(p.composition_error) + error_bytes(p.balance_error) + error_bytes(p.resolve_error);
 }
 
@@ -804,6 +806,8 @@ void PreparedCache::find_species(const std::string_view* written, std::size_t n,
 void PreparedCache::put_species(std::string_view written, SpeciesMemo memo) {
     if (capacity_ == 0 || written.size() > 64) return;
     memo.written.assign(written.data(), written.size());
+    memo.composition_bytes = composition_bytes(*memo.composition, memo.composition_key);
+    memo.substance_bytes = memo.substance ? substance_bytes(*memo.substance) : 0;
     auto kept = std::make_shared<const SpeciesMemo>(std::move(memo));
     std::unique_lock<std::shared_mutex> lock(species_mutex_);
     if (species_.size() >= species_memo_entries) species_.clear();
@@ -926,6 +930,16 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                 p->substances.clear();
             }
         }
+    }
+    // The species' share of the entry's bytes, from the memo where it holds these very objects.
+    for (std::size_t i = 0; i < p->compositions.size(); ++i) {
+        const auto& m = known[i];
+        p->species_data_bytes += m && m->composition == p->compositions[i]
+                                     ? m->composition_bytes
+                                     : composition_bytes(*p->compositions[i], p->composition_keys[i]);
+        if (i < p->substances.size())
+            p->species_data_bytes += m && m->substance == p->substances[i] ? m->substance_bytes
+                                                                           : substance_bytes(*p->substances[i]);
     }
     if (cache) cache->put(text, table, p);
     return p;

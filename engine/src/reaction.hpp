@@ -37,6 +37,8 @@ struct Prepared {
     std::optional<Error> balance_error;       ///< unbalanced elements or charge
     PerTerm<std::shared_ptr<const Substance>> substances;  ///< per term (empty if resolve_error); shared with the species memo
     std::optional<Error> resolve_error;       ///< no data, ambiguous, missing phase
+    /// Σ over terms of composition_bytes() and substance_bytes(), set by prepare() (estimated_bytes).
+    std::size_t species_data_bytes = 0;
 
     /// Each species' NASA polynomial interval per temperature segment, found once when every
     /// species is a NASA record of a written phase, so an evaluation searches no records and
@@ -127,6 +129,9 @@ public:
         std::string composition_key;
         std::shared_ptr<const Substance> substance;  ///< null: not resolved (an unbalanced reaction's species) or resolving failed
         std::string written;  ///< the key (set by put_species; the memo's map keys view it)
+        /// composition_bytes() and substance_bytes() of the above (set by put_species), so a
+        /// reaction using this memo counts its species without walking them again.
+        std::size_t composition_bytes = 0, substance_bytes = 0;
     };
     static constexpr std::size_t species_memo_entries = 1024;
     /// For each of the n texts, its memo or null (not seen), under one shared lock: a reaction's
@@ -144,6 +149,11 @@ private:
     /// Keyed by a view of the memo's own `written`, so a look-up builds no string.
     std::unordered_map<std::string_view, std::shared_ptr<const SpeciesMemo>> species_;
 };
+
+/// Bytes of a term's composition with its key, and of its substance, as estimated_bytes counts
+/// them (the objects may be shared with the species memo: counted for each user, an upper bound).
+std::size_t composition_bytes(const Composition& c, const std::string& key);
+std::size_t substance_bytes(const Substance& s);
 
 /// Estimated bytes of a prepared reaction: its own parts (sizes and string capacities), not the
 /// user-table rows it refers to. Public for the tests of the cache's bound.
