@@ -13,6 +13,7 @@
 #include <array>
 #include <cstdint>
 #include <cstdio>
+#include <cstring>
 #include <optional>
 #include <utility>
 
@@ -145,12 +146,25 @@ std::string hex_byte(unsigned char b) {
 /// Strict decoding (no overlong forms, surrogates or values above U+10FFFF).
 void decode(std::string_view s, Text& out) {
     out.clear();
-    // All ASCII, the common case: one pass to find out, one to widen (no per-run searching).
-    unsigned char any = 0;
-    for (char b : s) any |= static_cast<unsigned char>(b);
-    if (any < 0x80) {
+    // All ASCII, the common case: one pass to find out, one to widen (no per-run searching),
+    // each eight bytes at a time.
+    std::uint64_t any = 0;
+    std::size_t k = 0;
+    for (; k + 8 <= s.size(); k += 8) {
+        std::uint64_t w;
+        std::memcpy(&w, s.data() + k, 8);
+        any |= w;
+    }
+    for (; k < s.size(); ++k) any |= static_cast<unsigned char>(s[k]);
+    if ((any & 0x8080808080808080ull) == 0) {
         out.resize(s.size());
-        for (std::size_t k = 0; k < s.size(); ++k) out[k] = static_cast<unsigned char>(s[k]);
+        char32_t* o = out.data();
+        for (k = 0; k + 8 <= s.size(); k += 8) {
+            unsigned char b[8];
+            std::memcpy(b, s.data() + k, 8);
+            for (int j = 0; j < 8; ++j) o[k + std::size_t(j)] = b[j];
+        }
+        for (; k < s.size(); ++k) o[k] = static_cast<unsigned char>(s[k]);
         return;
     }
     out.reserve(s.size());

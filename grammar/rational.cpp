@@ -185,10 +185,9 @@ Rational operator/(const Rational& a, const Rational& b) {
     return a * inverse;
 }
 
-bool operator==(const Rational& a, const Rational& b) {
+bool Rational::equal_big(const Rational& a, const Rational& b) {
     if (a.big_ && b.big_) return *a.big_ == *b.big_;
-    if (a.big_ || b.big_) return false;  // canonical: a value that fits is never held big
-    return a.n_ == b.n_ && a.d_ == b.d_;
+    return false;  // canonical: a value that fits is never held big
 }
 
 bool operator<(const Rational& a, const Rational& b) {

@@ -82,7 +82,11 @@ public:
     friend Rational operator-(const Rational& a, const Rational& b);
     friend Rational operator*(const Rational& a, const Rational& b);
     friend Rational operator/(const Rational& a, const Rational& b);
-    friend bool operator==(const Rational& a, const Rational& b);
+    /// Inline for values held in 64 bits (nearly every comparison: "is this count 1", "is it 0").
+    friend bool operator==(const Rational& a, const Rational& b) {
+        if (!a.big_ && !b.big_) return a.n_ == b.n_ && a.d_ == b.d_;
+        return equal_big(a, b);
+    }
     friend bool operator<(const Rational& a, const Rational& b);
     friend bool operator!=(const Rational& a, const Rational& b) { return !(a == b); }
     friend bool operator>(const Rational& a, const Rational& b) { return b < a; }
@@ -90,6 +94,7 @@ public:
     friend bool operator>=(const Rational& a, const Rational& b) { return !(a < b); }
 
 private:
+    static bool equal_big(const Rational& a, const Rational& b);  ///< == when either is held big
     void assign(const big_type& v);
     /// num/den reduced (den != 0), then as lowest_terms().
     static Rational reduced(__int128 num, __int128 den);
