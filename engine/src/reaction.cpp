@@ -653,7 +653,7 @@ struct PreparedCache::Shard {
         mutable std::atomic<bool> used{false};            ///< CLOCK's reference bit
     };
     mutable std::shared_mutex mutex;
-    std::unordered_multimap<std::uint64_t, std::unique_ptr<Entry>> map;  ///< by hash
+    std::unordered_multimap<std::uint64_t, Entry> map;  ///< by hash; an entry lives in its node (stable)
     std::deque<Entry*> clock;                           ///< the hand takes from the front
     std::unordered_map<const UserSpecies*, std::size_t> rows_held;  ///< row -> entries holding it
     std::size_t bytes = 0;
@@ -689,7 +689,7 @@ struct PreparedCache::Shard {
         hold_rows(*e->value, -1);
         auto range = map.equal_range(e->hash);
         for (auto it = range.first; it != range.second; ++it)
-            if (it->second.get() == e) {
+            if (&it->second == e) {
                 map.erase(it);
                 return;
             }
@@ -725,23 +725,22 @@ PreparedCache::Shard& PreparedCache::shard_of(std::uint64_t hash) const {
     return *shards_[(hash >> 56) % shards_.size()];
 }
 
-namespace {
-std::uint64_t key_hash(std::string_view text, std::uint64_t fingerprint) {
-    return std::hash<std::string_view>{}(text) ^ mix64(fingerprint);
+std::uint64_t PreparedCache::hash_of(std::string_view text, const SpeciesTable* table) {
+    const SpeciesTable::Impl* want = table ? table->impl() : nullptr;
+    return std::hash<std::string_view>{}(text) ^ mix64(want ? want->fingerprint : 0);
 }
-}  // namespace
 
-std::shared_ptr<const Prepared> PreparedCache::find(std::string_view text, const SpeciesTable* table) {
+std::shared_ptr<const Prepared> PreparedCache::find(std::string_view text, const SpeciesTable* table,
+                                                    std::uint64_t h) {
     if (capacity_ == 0) return nullptr;
     const SpeciesTable::Impl* want = table ? table->impl() : nullptr;
     const std::uint64_t fp = want ? want->fingerprint : 0;
-    const std::uint64_t h = key_hash(text, fp);
     Shard& s = shard_of(h);
     {
         std::shared_lock<std::shared_mutex> lock(s.mutex);
         auto range = s.map.equal_range(h);
         for (auto it = range.first; it != range.second; ++it) {
-            const auto& e = *it->second;
+            const auto& e = it->second;
             if (!Shard::matches(e, text, fp, want)) continue;
             // Written only when not yet set: readers of a hot entry do not keep writing its line.
             if (!e.used.load(std::memory_order_relaxed)) e.used.store(true, std::memory_order_relaxed);
@@ -753,39 +752,40 @@ std::shared_ptr<const Prepared> PreparedCache::find(std::string_view text, const
     return nullptr;
 }
 
-void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::shared_ptr<const Prepared> value) {
+void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::uint64_t h,
+                        std::shared_ptr<const Prepared> value) {
     if (capacity_ == 0) return;
     const SpeciesTable::Impl* want = table ? table->impl() : nullptr;
     const std::uint64_t fp = want ? want->fingerprint : 0;
-    const std::uint64_t h = key_hash(text, fp);
-    auto e = std::make_unique<Shard::Entry>();
-    e->text.assign(text.data(), text.size());
-    e->hash = h;
-    e->fingerprint = fp;
-    e->table_address = want;
-    if (want) e->table = table->shared_impl();
+    std::shared_ptr<const SpeciesTable::Impl> held_table;
+    if (want) held_table = table->shared_impl();
     // + room for the balanced text Prepared::balanced() may keep later (about the text's size).
-    e->bytes = sizeof(Shard::Entry) + string_bytes(e->text) + estimated_bytes(*value) + 4 * sizeof(void*) +
-               2 * text.size() + 64;
-    e->value = std::move(value);
+    const std::size_t bytes = sizeof(Shard::Entry) + estimated_bytes(*value) + 4 * sizeof(void*) + 2 * text.size() + 64;
     const std::size_t n = shards_.size();
     const std::size_t max_entries = capacity_ / n, max_bytes = capacity_bytes_ / n;
     Shard& s = shard_of(h);
     std::unique_lock<std::shared_mutex> lock(s.mutex);
     auto range = s.map.equal_range(h);
     for (auto it = range.first; it != range.second; ++it)
-        if (Shard::matches(*it->second, text, fp, want)) return;  // another thread put it first
+        if (Shard::matches(it->second, text, fp, want)) return;  // another thread put it first
     // An entry for the same text and fingerprint whose table is gone (or is another table of the
     // same fingerprint) can never hit again: replace it.
     for (auto it = range.first; it != range.second; ++it)
-        if (it->second->fingerprint == fp && it->second->text == text) {
-            Shard::Entry* old = it->second.get();
+        if (it->second.fingerprint == fp && it->second.text == text) {
+            Shard::Entry* old = &it->second;
             s.clock.erase(std::find(s.clock.begin(), s.clock.end(), old));
             s.erase(old);
             break;
         }
-    Shard::Entry* raw = e.get();
-    s.map.emplace(h, std::move(e));
+    // Built in its map node (no block of its own).
+    Shard::Entry* raw = &s.map.emplace(std::piecewise_construct, std::forward_as_tuple(h), std::forward_as_tuple())->second;
+    raw->text.assign(text.data(), text.size());
+    raw->hash = h;
+    raw->fingerprint = fp;
+    raw->table_address = want;
+    raw->table = held_table;
+    raw->bytes = bytes + string_bytes(raw->text);
+    raw->value = std::move(value);
     s.clock.push_back(raw);
     s.bytes += raw->bytes;
     s.hold_rows(*raw->value, +1);
@@ -848,8 +848,9 @@ void PreparedCache::clear() {
 
 std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table, PreparedCache* cache) {
     check_input_text(text, "the reaction");
+    const std::uint64_t hash = cache ? PreparedCache::hash_of(text, table) : 0;
     if (cache)
-        if (auto hit = cache->find(text, table)) return hit;
+        if (auto hit = cache->find(text, table, hash)) return hit;
 
     auto p = std::make_shared<Prepared>();
     try {
@@ -941,7 +942,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
             p->species_data_bytes += m && m->substance == p->substances[i] ? m->substance_bytes
                                                                            : substance_bytes(*p->substances[i]);
     }
-    if (cache) cache->put(text, table, p);
+    if (cache) cache->put(text, table, hash, p);
     return p;
 }
 

@@ -114,8 +114,11 @@ public:
     ~PreparedCache();
     PreparedCache(const PreparedCache&) = delete;
     PreparedCache& operator=(const PreparedCache&) = delete;
-    std::shared_ptr<const Prepared> find(std::string_view text, const SpeciesTable* table);
-    void put(std::string_view text, const SpeciesTable* table, std::shared_ptr<const Prepared> value);
+    /// The hash `text` is filed under with `table` (its fingerprint): computed once for a find
+    /// and, on a miss, the put that follows.
+    static std::uint64_t hash_of(std::string_view text, const SpeciesTable* table);
+    std::shared_ptr<const Prepared> find(std::string_view text, const SpeciesTable* table, std::uint64_t hash);
+    void put(std::string_view text, const SpeciesTable* table, std::uint64_t hash, std::shared_ptr<const Prepared> value);
     CacheStats stats() const;
     void clear();
 
