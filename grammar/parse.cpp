@@ -752,7 +752,6 @@ private:
     void formula(const ast::Formula& tree, Species& s) const {
         auto const range = tr_.position_of(tree);
         Where where{std::size_t(range.begin() - t_.data()), std::size_t(range.end() - t_.data()), 0, 0};
-        s.atoms.reserve(element_items(tree));
         Atoms before_last;  // s.atoms before the last part, to count that part alone
         for (std::size_t k = 0; k < tree.parts.size(); ++k) {
             const ast::Part& part = tree.parts[k];
@@ -949,24 +948,6 @@ private:
     static void append_formula_text(std::string& out, const Span& symbol, const Span& count) {
         for (char32_t c : symbol) out += char(c);
         for (char32_t c : count) out += subscript_value(c) >= 0 ? char('0' + subscript_value(c)) : char(c);
-    }
-
-    /// Element items in a formula, groups included: at most this many distinct atoms.
-    template <typename Items>
-    static std::size_t element_items(const Items& items) {
-        std::size_t n = 0;
-        for (const ast::Item& item : items) {
-            if (boost::get<ast::Element>(&item.get()))
-                ++n;
-            else
-                n += element_items(boost::get<x3::forward_ast<ast::Group>>(item.get()).get().items);
-        }
-        return n;
-    }
-    static std::size_t element_items(const ast::Formula& f) {
-        std::size_t n = 0;
-        for (const ast::Part& part : f.parts) n += element_items(part.items);
-        return n;
     }
 
     int charge(const ast::Charge& c) const {
