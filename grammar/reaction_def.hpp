@@ -218,6 +218,48 @@ constexpr some_in_place_directive<typename x3::extension::as_parser<Subject>::va
     return some_in_place_directive<typename x3::extension::as_parser<Subject>::value_type>(x3::as_parser(subject));
 }
 
+/// `head >> *(separator >> expect(key)[tail])` into a container, each element parsed in place in
+/// a new last element (a formula's parts: X3's sequence would parse each into a temporary, with
+/// its inline items, and move it in).
+template <typename Container, typename Head, typename Separator, typename Tail>
+struct chain_in_place_parser : x3::parser<chain_in_place_parser<Container, Head, Separator, Tail>> {
+    using attribute_type = Container;
+    static bool const has_attribute = true;
+    static bool const handles_container = true;
+
+    constexpr chain_in_place_parser(Head const& head, Separator const& separator, Tail const& tail, char const* key)
+        : head(head), separator(separator), tail(tail), key(key) {}
+
+    template <typename Iterator, typename Context, typename RContext>
+    bool parse(Iterator& first, Iterator const& last, Context const& context, RContext& rcontext,
+               Container& out) const {
+        out.emplace_back();
+        if (!head.parse(first, last, context, rcontext, out.back())) {
+            out.pop_back();
+            return false;
+        }
+        for (;;) {
+            Iterator i = first;
+            x3::unused_type none;
+            if (!separator.parse(i, last, context, rcontext, none)) return true;
+            out.emplace_back();
+            if (!tail.parse(i, last, context, rcontext, out.back()))
+                boost::throw_exception(x3::expectation_failure<Iterator>(i, key));
+            first = i;
+        }
+    }
+
+    Head head;
+    Separator separator;
+    Tail tail;
+    char const* key;
+};
+
+template <typename Container, typename Head, typename Separator, typename Tail>
+constexpr auto chain_in_place(Head const& head, Separator const& separator, Tail const& tail, char const* key) {
+    return chain_in_place_parser<Container, Head, Separator, Tail>(head, separator, tail, key);
+}
+
 struct expect_key_gen {
     template <typename Subject>
     constexpr expect_key_directive<typename x3::extension::as_parser<Subject>::value_type>
@@ -403,7 +445,9 @@ auto const item_def = detail::in_place(element, group);  // element | group
 auto const multiplier_def = x3::raw[(decimal >> -vulgar_fraction) | vulgar_fraction];
 auto const first_part_def = x3::attr(ast::Span()) >> items;
 auto const later_part_def = ((multiplier >> ws) | x3::attr(ast::Span())) >> items;
-auto const parts_def = first_part >> *(ws >> hydrate_dot >> ws >> expect("hydrate")[later_part]);
+// first_part >> *(ws >> hydrate_dot >> ws >> expect("hydrate")[later_part]), parts in place:
+auto const parts_def =
+    detail::chain_in_place<decltype(ast::Formula::parts)>(first_part, ws >> hydrate_dot >> ws, later_part, "hydrate");
 
 // Charges: ^2+ ^- {2+} ²⁻ ⁺ and the trailing sign. A trailing sign is a charge only when the
 // formula ends there: before the end, whitespace, '(' or an arrow; otherwise a '+' is the
