@@ -145,9 +145,9 @@ std::string hex_byte(unsigned char b) {
 
 /// Strict decoding (no overlong forms, surrogates or values above U+10FFFF).
 void decode(std::string_view s, Text& out) {
-    out.clear();
     // All ASCII, the common case: one pass to find out, one to widen (no per-run searching),
-    // each eight bytes at a time.
+    // each eight bytes at a time. `out` is resized from what it held, every character of it then
+    // written: a buffer kept between calls fills only the difference in length.
     std::uint64_t any = 0;
     std::size_t k = 0;
     for (; k + 8 <= s.size(); k += 8) {
@@ -167,6 +167,7 @@ void decode(std::string_view s, Text& out) {
         for (; k < s.size(); ++k) o[k] = static_cast<unsigned char>(s[k]);
         return;
     }
+    out.clear();
     out.reserve(s.size());
     std::size_t i = 0;
     while (i < s.size()) {
