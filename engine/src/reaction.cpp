@@ -454,10 +454,17 @@ std::string balanced_text(const Prepared& prepared) {
     // elements: a flat list, searched in order, until it passes the small matrix's rows.
     boost::container::small_vector<std::string_view, SmallBalanceMatrix::max_rows> symbols;
     std::map<std::string_view, std::size_t> row_map;  // past max_rows elements only
+    // A symbol is a few letters: compared inline, not through memcmp.
+    const auto same = [](std::string_view a, std::string_view b) {
+        if (a.size() != b.size()) return false;
+        for (std::size_t k = 0; k < a.size(); ++k)
+            if (a[k] != b[k]) return false;
+        return true;
+    };
     const auto row_of = [&](std::string_view sym) -> std::size_t {
         if (row_map.empty()) {
             for (std::size_t i = 0; i < symbols.size(); ++i)
-                if (symbols[i] == sym) return i;
+                if (same(symbols[i], sym)) return i;
             if (symbols.size() < SmallBalanceMatrix::max_rows) {
                 symbols.push_back(sym);
                 return symbols.size() - 1;
@@ -466,9 +473,11 @@ std::string balanced_text(const Prepared& prepared) {
         }
         return row_map.emplace(sym, row_map.size()).first->second;
     };
+    // Each atom's row, in the order of the terms and their atoms, found once for both matrices.
+    boost::container::small_vector<std::size_t, 32> atom_rows;
     bool charged = false;
     for (const auto& c : p->compositions) {
-        for (const auto& a : c->atoms) row_of(a.first);
+        for (const auto& a : c->atoms) atom_rows.push_back(row_of(a.first));
         charged = charged || c->charge != 0;
     }
     const std::size_t n = p->terms.size();
@@ -489,6 +498,7 @@ std::string balanced_text(const Prepared& prepared) {
         sm.rows = rows;
         sm.cols = n;
         bool fits = true;
+        std::size_t next_atom = 0;  // into atom_rows
         for (std::size_t j = 0; j < n && fits; ++j) {
             const bool left = p->nu[j].sign() < 0;
             std::int64_t scale = 1;  // least common multiple of the counts' denominators
@@ -513,7 +523,7 @@ std::string balanced_text(const Prepared& prepared) {
                     fits = false;
                     break;
                 }
-                sm.a[row_of(a.first)][j] += static_cast<std::int64_t>(left ? x : -x);
+                sm.a[atom_rows[next_atom++]][j] += static_cast<std::int64_t>(left ? x : -x);
             }
             if (const int q = p->compositions[j]->charge) sm.a[rows - 1][j] = std::int64_t(left ? q : -q) * scale;
         }
@@ -522,10 +532,13 @@ std::string balanced_text(const Prepared& prepared) {
     std::optional<BalanceSolution> general;
     if (!small) {
         std::vector<SparseColumn> m(n);
+        std::size_t next_atom = 0;  // into atom_rows
         for (std::size_t j = 0; j < n; ++j) {
             const bool left = p->nu[j].sign() < 0;
-            for (const auto& a : p->compositions[j]->atoms)
-                if (!a.second.is_zero()) m[j].emplace_back(row_of(a.first), left ? a.second : Rational(-a.second));
+            for (const auto& a : p->compositions[j]->atoms) {
+                const std::size_t row = atom_rows[next_atom++];
+                if (!a.second.is_zero()) m[j].emplace_back(row, left ? a.second : Rational(-a.second));
+            }
             if (const int q = p->compositions[j]->charge) m[j].emplace_back(rows - 1, Rational(left ? q : -q));
         }
         general = solve_balance(rows, m);
