@@ -699,7 +699,7 @@ struct PreparedCache::Shard {
 
     void erase(Entry* e) {
         bytes -= e->bytes;
-        hold_rows(*e->value, -1);
+        if (e->table_address) hold_rows(*e->value, -1);  // rows come only from a table
         auto range = map.equal_range(e->hash);
         for (auto it = range.first; it != range.second; ++it)
             if (&it->second == e) {
@@ -801,7 +801,7 @@ void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::u
     raw->value = std::move(value);
     s.clock.push_back(raw);
     s.bytes += raw->bytes;
-    s.hold_rows(*raw->value, +1);
+    if (want) s.hold_rows(*raw->value, +1);  // rows come only from a table
     s.evict(max_entries, max_bytes);  // may evict the new entry itself when it alone is too big
 }
 
