@@ -6,6 +6,7 @@
 
 #include <cmath>
 #include <cstdint>
+#include <numeric>
 
 namespace rxnheat::detail {
 
@@ -409,13 +410,21 @@ std::optional<BalanceSolution> solve_balance_small(const SmallBalanceMatrix& m) 
         if (sum != 0) throw Error(ErrorKind::internal, "the exact balance does not balance");
     }
     // The balance of the unscaled matrix, in lowest terms (scale < 2^31: products below 2^93).
-    i128 g = 0;
+    bool in_64 = true;  // nearly always: then the gcd and the quotients in the processor's own division
     for (std::size_t j = 0; j < cols; ++j) {
         v[j] *= m.scale[j];
-        g = g == 0 ? abs_i128(v[j]) : v[j] == 0 ? g : gcd_i128(g, abs_i128(v[j]));
+        in_64 = in_64 && abs_i128(v[j]) <= INT64_MAX;
     }
     out.kind = BalanceSolution::Kind::unique;
     out.coefficients.reserve(cols);
+    if (in_64) {
+        std::int64_t g = 0;
+        for (std::size_t j = 0; j < cols; ++j) g = std::gcd(g, static_cast<std::int64_t>(v[j]));
+        for (std::size_t j = 0; j < cols; ++j) out.coefficients.emplace_back(static_cast<std::int64_t>(v[j]) / g);
+        return out;
+    }
+    i128 g = 0;
+    for (std::size_t j = 0; j < cols; ++j) g = g == 0 ? abs_i128(v[j]) : v[j] == 0 ? g : gcd_i128(g, abs_i128(v[j]));
     for (std::size_t j = 0; j < cols; ++j) {
         const i128 x = v[j] / g;
         if (x >= INT64_MIN && x <= INT64_MAX)
