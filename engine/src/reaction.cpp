@@ -816,8 +816,13 @@ void PreparedCache::find_species(const std::string_view* written, std::size_t n,
     }
 }
 
-void PreparedCache::put_species(std::string_view written, SpeciesMemo memo) {
+void PreparedCache::put_species(std::string_view written, std::shared_ptr<const Composition> composition,
+                                const std::string& composition_key, std::shared_ptr<const Substance> substance) {
     if (capacity_ == 0 || written.size() > 64) return;
+    SpeciesMemo memo;
+    memo.composition = std::move(composition);
+    memo.composition_key = composition_key;
+    memo.substance = std::move(substance);
     memo.written.assign(written.data(), written.size());
     memo.composition_bytes = composition_bytes(*memo.composition, memo.composition_key);
     memo.substance_bytes = memo.substance ? substance_bytes(*memo.substance) : 0;
@@ -906,8 +911,8 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                 // Kept now, not only once the data is found below: an unbalanced reaction's
                 // species are never resolved, and its next text would pay the composition again.
                 if (memo)
-                    cache->put_species(p->terms[i]->species.written,
-                                       {p->compositions.back(), p->composition_keys.back(), nullptr});
+                    cache->put_species(p->terms[i]->species.written, p->compositions.back(),
+                                       p->composition_keys.back(), nullptr);
             }
         }
     } catch (const Error& e) {
@@ -929,8 +934,8 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                     }
                     p->substances.push_back(std::make_shared<const Substance>(db.resolve(p->terms[i]->species, table)));
                     if (memo)
-                        cache->put_species(p->terms[i]->species.written,
-                                           {p->compositions[i], p->composition_keys[i], p->substances.back()});
+                        cache->put_species(p->terms[i]->species.written, p->compositions[i],
+                                           p->composition_keys[i], p->substances.back());
                 }
                 plan_segments(*p);
                 try {

@@ -141,7 +141,8 @@ public:
     /// species are looked up together.
     void find_species(const std::string_view* written, std::size_t n,
                       std::shared_ptr<const SpeciesMemo>* found) const;
-    void put_species(std::string_view written, SpeciesMemo memo);
+    void put_species(std::string_view written, std::shared_ptr<const Composition> composition,
+                     const std::string& composition_key, std::shared_ptr<const Substance> substance);
 
 private:
     struct Shard;
