@@ -345,10 +345,10 @@ std::optional<BalanceSolution> solve_balance_small(const SmallBalanceMatrix& m) 
         return out;
     }
     // The same fraction-free Gauss–Jordan elimination as eliminate_exactly, carried to the end
-    // (the matrix is small): every entry a minor of m, kept below 2^62 so that each product of
-    // two fits 128 bits.
-    constexpr i128 limit = i128(1) << 62;
-    i128 a[R][C];
+    // (the matrix is small): every entry a minor of m, kept below 2^62, so held in 64 bits and
+    // each product of two a single widening multiplication into 128 bits.
+    constexpr std::int64_t limit = std::int64_t(1) << 62;
+    std::int64_t a[R][C];
     for (std::size_t i = 0; i < rows; ++i)
         for (std::size_t j = 0; j < cols; ++j) {
             if (m.a[i][j] >= SmallBalanceMatrix::max_entry || m.a[i][j] <= -SmallBalanceMatrix::max_entry)
@@ -356,7 +356,7 @@ std::optional<BalanceSolution> solve_balance_small(const SmallBalanceMatrix& m) 
             a[i][j] = m.a[i][j];
         }
     std::size_t pivots[C], free[C], nfree = 0, r = 0;
-    i128 prev = 1;
+    std::int64_t prev = 1;
     for (std::size_t c = 0; c < cols; ++c) {
         std::size_t p = r;
         while (p < rows && a[p][c] == 0) ++p;
@@ -366,22 +366,22 @@ std::optional<BalanceSolution> solve_balance_small(const SmallBalanceMatrix& m) 
         }
         if (p != r)
             for (std::size_t j = 0; j < cols; ++j) std::swap(a[p][j], a[r][j]);
-        const i128 pivot = a[r][c];
+        const std::int64_t pivot = a[r][c];
         for (std::size_t i = 0; i < rows; ++i) {
             if (i == r) continue;
-            const i128 f = a[i][c];
+            const std::int64_t f = a[i][c];
             if (f == 0 && pivot == prev) continue;
             for (std::size_t j = 0; j < cols; ++j) {
                 if (j == c) continue;
-                const i128 num = pivot * a[i][j] - f * a[r][j];
+                const i128 num = i128(pivot) * a[i][j] - i128(f) * a[r][j];
                 // exact (Bareiss); by the first pivot, 1, nothing to divide, and a quotient of
                 // 64-bit numbers by the processor's own division, not the 128-bit routine's
                 const i128 x = prev == 1 ? num
                                : num > INT64_MIN && num <= INT64_MAX  // (INT64_MIN / -1 would overflow)
-                                   ? i128(static_cast<std::int64_t>(num) / static_cast<std::int64_t>(prev))
+                                   ? i128(static_cast<std::int64_t>(num) / prev)
                                    : num / prev;
                 if (abs_i128(x) >= limit) return std::nullopt;
-                a[i][j] = x;
+                a[i][j] = static_cast<std::int64_t>(x);
             }
             a[i][c] = 0;
         }
@@ -399,20 +399,21 @@ std::optional<BalanceSolution> solve_balance_small(const SmallBalanceMatrix& m) 
     }
     // One free column f: D x_f + a[i][f] = 0 on each pivot row i, D the common pivot, x_f > 0.
     const std::size_t f = free[0];
-    i128 v[C] = {};
-    const i128 sign = prev < 0 ? -1 : 1;
-    v[f] = sign * prev;
-    for (std::size_t i = 0; i < r; ++i) v[pivots[i]] = -sign * a[i][f];
-    // Checked on m itself (|m| < 2^31, |v| < 2^62: each sum stays far below 2^127).
+    std::int64_t w[C] = {};  // the solution of the scaled matrix, each |w| < 2^62
+    const std::int64_t sign = prev < 0 ? -1 : 1;
+    w[f] = sign * prev;
+    for (std::size_t i = 0; i < r; ++i) w[pivots[i]] = -sign * a[i][f];
+    // Checked on m itself (|m| < 2^31, |w| < 2^62: each sum stays far below 2^127).
     for (std::size_t i = 0; i < rows; ++i) {
         i128 sum = 0;
-        for (std::size_t j = 0; j < cols; ++j) sum += m.a[i][j] * v[j];
+        for (std::size_t j = 0; j < cols; ++j) sum += i128(m.a[i][j]) * w[j];
         if (sum != 0) throw Error(ErrorKind::internal, "the exact balance does not balance");
     }
     // The balance of the unscaled matrix, in lowest terms (scale < 2^31: products below 2^93).
+    i128 v[C];
     bool in_64 = true;  // nearly always: then the gcd and the quotients in the processor's own division
     for (std::size_t j = 0; j < cols; ++j) {
-        v[j] *= m.scale[j];
+        v[j] = i128(w[j]) * m.scale[j];
         in_64 = in_64 && abs_i128(v[j]) <= INT64_MAX;
     }
     out.kind = BalanceSolution::Kind::unique;
