@@ -106,10 +106,7 @@ void Rational::assign(const big_type& v) {
     big_ = std::make_shared<const big_type>(v);
 }
 
-int Rational::sign() const noexcept {
-    if (big_) return big_->sign();
-    return n_ > 0 ? 1 : n_ < 0 ? -1 : 0;
-}
+int Rational::sign_big() const noexcept { return big_->sign(); }
 
 Rational::integer_type Rational::numerator() const {
     return big_ ? integer_type(boost::multiprecision::numerator(*big_)) : integer_type(n_);

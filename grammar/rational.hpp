@@ -52,7 +52,7 @@ public:
     explicit Rational(const char* text) { assign(big_type(text)); }
 
     bool is_zero() const noexcept { return !big_ && n_ == 0; }
-    int sign() const noexcept;
+    int sign() const noexcept { return big_ ? sign_big() : (n_ > 0) - (n_ < 0); }
     bool is_integer() const noexcept { return big_ ? boost::multiprecision::denominator(*big_) == 1 : d_ == 1; }
     /// True when the value is held in 64 bits (then num64()/den64() are the reduced terms).
     bool fits_64() const noexcept { return !big_; }
@@ -95,6 +95,7 @@ public:
 
 private:
     static bool equal_big(const Rational& a, const Rational& b);  ///< == when either is held big
+    int sign_big() const noexcept;
     void assign(const big_type& v);
     /// num/den reduced (den != 0), then as lowest_terms().
     static Rational reduced(__int128 num, __int128 den);

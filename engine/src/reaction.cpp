@@ -104,16 +104,17 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string_view
     // element -> (left, right); a flat list (a reaction has few elements), in symbol order below
     boost::container::small_vector<std::pair<std::string_view, std::pair<Number, Number>>, 8> totals;
     auto total_of = [&totals](std::string_view sym) -> std::pair<Number, Number>& {
-        for (auto& e : totals)
-            if (e.first == sym) return e.second;
+        for (auto& e : totals)  // a symbol is a few letters: compared inline, not through memcmp
+            if (e.first.size() == sym.size() && std::equal(sym.begin(), sym.end(), e.first.begin())) return e.second;
         totals.emplace_back(sym, std::pair<Number, Number>(0, 0));
         return totals.back().second;
     };
     Number q_left = 0, q_right = 0;
     for (std::size_t i = 0; i < p.terms.size(); ++i) {
         const bool product = p.nu[i].sign() > 0;
-        Number n;
-        if (!convert(product ? p.nu[i] : Rational(-p.nu[i]), n)) return false;
+        Number n;  // the coefficient as written: nu without its sign
+        if (!convert(p.nu[i], n)) return false;
+        if (!product) n = -n;
         for (const auto& [sym, count] : p.compositions[i]->atoms) {
             Number c;
             if (!convert(count, c)) return false;
