@@ -14,6 +14,7 @@
 #include <cstdio>
 #include <atomic>
 #include <charconv>
+#include <cstring>
 #include <deque>
 #include <functional>
 #include <map>
@@ -28,8 +29,45 @@ namespace {
 
 Error from_parse_error(const grammar::ParseError& e) { return Error(ErrorKind::syntax, e.what()); }
 
+/// Text gathered in a buffer on the stack and appended to a string when the buffer is full and
+/// at the end (flush() or the destructor): each append to a std::string is a call into the
+/// library, and a reaction's text is a couple of dozen short pieces.
+class StackText {
+public:
+    explicit StackText(std::string& out) : out_(out) {}
+    StackText(const StackText&) = delete;
+    StackText& operator=(const StackText&) = delete;
+    ~StackText() { flush(); }
+    StackText& operator+=(std::string_view v) {
+        if (v.size() > sizeof buf_ - n_) {
+            flush();
+            if (v.size() > sizeof buf_) {
+                out_.append(v.data(), v.size());
+                return *this;
+            }
+        }
+        std::memcpy(buf_ + n_, v.data(), v.size());
+        n_ += v.size();
+        return *this;
+    }
+    StackText& operator+=(char c) {
+        if (n_ == sizeof buf_) flush();
+        buf_[n_++] = c;
+        return *this;
+    }
+    void flush() {
+        out_.append(buf_, n_);
+        n_ = 0;
+    }
+
+private:
+    std::string& out_;
+    char buf_[240];
+    std::size_t n_ = 0;
+};
+
 /// Appends `r` as rational_text writes it ("n" or "n/d"); 64-bit values without a temporary.
-void append_rational(std::string& out, const Rational& r) {
+void append_rational(StackText& out, const Rational& r) {
     if (!r.fits_64()) {
         out += rational_text(r);
         return;
@@ -40,11 +78,11 @@ void append_rational(std::string& out, const Rational& r) {
         *end++ = '/';
         end = std::to_chars(end, digits + sizeof digits, r.den64()).ptr;
     }
-    out.append(digits, end);
+    out += std::string_view(digits, std::size_t(end - digits));
 }
 
 /// Appends one side: "a A + B + c C", each species as written, or as resolved at T.
-void append_side(std::string& out, const std::vector<grammar::Term>& terms, const Rational* coefs,
+void append_side(StackText& out, const std::vector<grammar::Term>& terms, const Rational* coefs,
                  const Prepared::PerTerm<std::shared_ptr<const Substance>>* resolved, std::size_t offset, double T) {
     for (std::size_t i = 0; i < terms.size(); ++i) {
         if (i) out += " + ";
@@ -52,7 +90,10 @@ void append_side(std::string& out, const std::vector<grammar::Term>& terms, cons
             append_rational(out, coefs[i]);
             out += ' ';
         }
-        out += resolved ? (*resolved)[offset + i]->display_at(T) : terms[i].species.written;
+        if (resolved)
+            out += (*resolved)[offset + i]->display_at(T);
+        else
+            out += terms[i].species.written;
     }
 }
 
@@ -127,21 +168,19 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string_view
     for (const auto& e : totals) balanced = balanced && e.second.first == e.second.second;
     if (balanced) return true;  // nearly every reaction: nothing to sort or say
     std::sort(totals.begin(), totals.end(), [](const auto& x, const auto& y) { return x.first < y.first; });
-    // Appended in place: this message is built for every unbalanced reaction a sheet holds (and
-    // a balanced one allocates nothing here).
-    const auto say = [&bad, &text, lead](std::string_view what, const Number& left, const Number& right) {
-        if (bad.empty()) {
-            bad.reserve(lead.size() + 96);
-            bad += lead;
-        } else {
-            bad += "; ";
-        }
-        bad += what;
-        bad += ' ';
-        text(left, bad);
-        bad += " on the left, ";
-        text(right, bad);
-        bad += " on the right";
+    // Gathered on the stack: this message is built for every unbalanced reaction a sheet holds
+    // (and a balanced one allocates nothing here).
+    StackText out(bad);
+    bool first = true;
+    const auto say = [&](std::string_view what, const Number& left, const Number& right) {
+        out += first ? lead : std::string_view("; ");
+        first = false;
+        out += what;
+        out += ' ';
+        text(left, out);
+        out += " on the left, ";
+        text(right, out);
+        out += " on the right";
     };
     for (const auto& [sym, t] : totals)
         if (t.first != t.second) say(sym, t.first, t.second);
@@ -157,11 +196,11 @@ void check_balance(Prepared& p) {
         out = r.num64();
         return true;
     };
-    const auto integer_text = [](long long x, std::string& to) {
+    const auto integer_text = [](long long x, StackText& to) {
         char digits[24];
-        to.append(digits, std::to_chars(digits, digits + sizeof digits, x).ptr);
+        to += std::string_view(digits, std::size_t(std::to_chars(digits, digits + sizeof digits, x).ptr - digits));
     };
-    const auto exact_text = [](const Rational& x, std::string& to) { to += atom_count_text(x); };
+    const auto exact_text = [](const Rational& x, StackText& to) { to += atom_count_text(x); };
     constexpr std::string_view lead = "the reaction is not balanced: ";
     std::string msg;
     if (!side_totals<long long>(p, to_integer, integer_text, lead, msg)) {
@@ -371,9 +410,12 @@ std::string Prepared::canonical(double T) const {
     for (const auto& t : ast.reactants) l.push_back(t.coefficient);
     for (const auto& t : ast.products) r.push_back(t.coefficient);
     std::string out;
-    append_side(out, ast.reactants, l.data(), &substances, 0, T);
-    out += " -> ";
-    append_side(out, ast.products, r.data(), &substances, ast.reactants.size(), T);
+    {
+        StackText text(out);
+        append_side(text, ast.reactants, l.data(), &substances, 0, T);
+        text += " -> ";
+        append_side(text, ast.products, r.data(), &substances, ast.reactants.size(), T);
+    }
     return out;
 }
 
@@ -439,11 +481,14 @@ std::string reaction_text(const std::vector<grammar::Term>& left, const Rational
                           const Rational* right_coefs) {
     std::string out;
     out.reserve(side_bytes(left) + arrow.size() + 2 + side_bytes(right));
-    append_side(out, left, left_coefs, nullptr, 0, T_ref);
-    out += ' ';
-    out += arrow;
-    out += ' ';
-    append_side(out, right, right_coefs, nullptr, 0, T_ref);
+    {
+        StackText text(out);
+        append_side(text, left, left_coefs, nullptr, 0, T_ref);
+        text += ' ';
+        text += arrow;
+        text += ' ';
+        append_side(text, right, right_coefs, nullptr, 0, T_ref);
+    }
     return out;
 }
 
