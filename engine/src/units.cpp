@@ -308,7 +308,12 @@ double energy_factor(std::string_view unit_text, bool& per_mass) {
         }
         return nullptr;
     };
-    if (const Named* u = look_up(unit_text.empty() ? std::string_view("kJ/mol") : unit_text)) return u->factor;
+    if (unit_text.empty()) {  // the default, nearly every call: its row found once
+        static const Named* const default_unit = find(molar_units, "kJ/mol");
+        per_mass = false;
+        return default_unit->factor;
+    }
+    if (const Named* u = look_up(unit_text)) return u->factor;
     const std::string unit = normalise(unit_text);
     const std::string_view name = unit.empty() ? std::string_view("kJ/mol") : std::string_view(unit);
     if (const Named* u = look_up(name)) return u->factor;
