@@ -29,6 +29,14 @@ namespace {
 
 Error from_parse_error(const grammar::ParseError& e) { return Error(ErrorKind::syntax, e.what()); }
 
+/// Two element symbols (a few letters) compared inline, not through a call to memcmp.
+bool same_symbol(std::string_view a, std::string_view b) {
+    if (a.size() != b.size()) return false;
+    for (std::size_t k = 0; k < a.size(); ++k)
+        if (a[k] != b[k]) return false;
+    return true;
+}
+
 /// Text gathered in a buffer on the stack and appended to a string when the buffer is full and
 /// at the end (flush() or the destructor): each append to a std::string is a call into the
 /// library, and a reaction's text is a couple of dozen short pieces.
@@ -145,8 +153,8 @@ bool side_totals(const Prepared& p, Convert convert, Text text, std::string_view
     // element -> (left, right); a flat list (a reaction has few elements), in symbol order below
     boost::container::small_vector<std::pair<std::string_view, std::pair<Number, Number>>, 8> totals;
     auto total_of = [&totals](std::string_view sym) -> std::pair<Number, Number>& {
-        for (auto& e : totals)  // a symbol is a few letters: compared inline, not through memcmp
-            if (e.first.size() == sym.size() && std::equal(sym.begin(), sym.end(), e.first.begin())) return e.second;
+        for (auto& e : totals)
+            if (same_symbol(e.first, sym)) return e.second;
         totals.emplace_back(sym, std::pair<Number, Number>(0, 0));
         return totals.back().second;
     };
@@ -500,17 +508,10 @@ std::string balanced_text(const Prepared& prepared) {
     // elements: a flat list, searched in order, until it passes the small matrix's rows.
     boost::container::small_vector<std::string_view, SmallBalanceMatrix::max_rows> symbols;
     std::map<std::string_view, std::size_t> row_map;  // past max_rows elements only
-    // A symbol is a few letters: compared inline, not through memcmp.
-    const auto same = [](std::string_view a, std::string_view b) {
-        if (a.size() != b.size()) return false;
-        for (std::size_t k = 0; k < a.size(); ++k)
-            if (a[k] != b[k]) return false;
-        return true;
-    };
     const auto row_of = [&](std::string_view sym) -> std::size_t {
         if (row_map.empty()) {
             for (std::size_t i = 0; i < symbols.size(); ++i)
-                if (same(symbols[i], sym)) return i;
+                if (same_symbol(symbols[i], sym)) return i;
             if (symbols.size() < SmallBalanceMatrix::max_rows) {
                 symbols.push_back(sym);
                 return symbols.size() - 1;
