@@ -32,12 +32,42 @@ using detail::Substance;
 
 // What one engine owns: the data it reads (the embedded set, parsed once and shared by every
 // engine) and its own cache of prepared reactions.
+namespace {
+std::shared_ptr<const grammar::Species> parse_one_species(std::string_view text, const char* what);  // below
+}  // namespace
+
 struct Engine::Impl {
     const Database& db;
     detail::PreparedCache cache;
     explicit Impl(const EngineOptions& o) : db(Database::get()), cache(o.prepared_cache_entries, o.prepared_cache_bytes) {}
     std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTable* table) {
         return detail::prepare(text, table, &cache);
+    }
+    /// A species argument (SPECIESH, SPECIESCP, a stream's species ...) resolved to its data.
+    /// Without a user table, through the species memo that reactions use: a sheet names the same
+    /// species in cell after cell, and a species' data depend on its written text alone, so a
+    /// kept one is what resolving again would give (measured: SPECIESH 8,089 instructions a call
+    /// when resolving every time).
+    std::shared_ptr<const Substance> resolve(std::string_view text, const SpeciesTable* table) {
+        const auto species = parse_one_species(text, "the species");
+        const bool memo = !(table && table->impl());
+        if (memo) {
+            const std::string_view written = species->written;
+            std::shared_ptr<const detail::PreparedCache::SpeciesMemo> found;
+            cache.find_species(&written, 1, &found);
+            if (found && found->substance) return found->substance;
+        }
+        auto substance = std::make_shared<const Substance>(db.resolve(*species, table));
+        if (memo) {
+            try {  // a memo entry holds the composition too, as a reaction's species would
+                auto composition = std::make_shared<const detail::Composition>(db.composition(*species, table));
+                const std::string key = composition->key();
+                cache.put_species(species->written, std::move(composition), key, substance);
+            } catch (const Error&) {
+                // not kept (no species resolves without a composition; should one, it is resolved each time)
+            }
+        }
+        return substance;
     }
 };
 
@@ -85,9 +115,6 @@ std::shared_ptr<const grammar::Species> parse_one_species(std::string_view text,
     return species;
 }
 
-Substance resolve_one(std::string_view text, const SpeciesTable* table) {
-    return Database::get().resolve(*parse_one_species(text, "the species"), table);
-}
 
 /// Value per mole of extent -> per mole (or mass) of the `per` species, in `unit`.
 double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view what, std::string_view unit,
@@ -614,7 +641,8 @@ double Engine::stream_enthalpy(const std::vector<FeedItem>& stream, std::string_
             throw Error(ErrorKind::argument, "the flow of '" + item.species +
                                                  "' must be a number, zero or more (got " +
                                                  number_words(item.amount_mol) + ")");
-        const Substance s = resolve_one(item.species, at.table);
+        const auto kept = impl_->resolve(item.species, at.table);
+        const Substance& s = *kept;
         const std::string id = same_species_key(s, T);
         for (const auto& other : seen)
             if (other == id)
@@ -928,32 +956,33 @@ ReactionReport Engine::report(std::string_view reaction, const Conditions& at) {
 }
 
 double Engine::species_hf(std::string_view species, const Conditions& at, std::string_view unit) {
-    const Substance s = resolve_one(species, at.table);
-    return detail::from_J_per_mol(formation_enthalpy(s, at.temperature_K), unit, "ΔfH°", s.molar_mass);
+    const auto s = impl_->resolve(species, at.table);
+    return detail::from_J_per_mol(formation_enthalpy(*s, at.temperature_K), unit, "ΔfH°", s->molar_mass);
 }
 
 double Engine::species_cp(std::string_view species, const Conditions& at) {
     check_temperature(at.temperature_K);
-    return resolve_one(species, at.table).Cp(at.temperature_K);
+    return impl_->resolve(species, at.table)->Cp(at.temperature_K);
 }
 
 double Engine::species_h(std::string_view species, const Conditions& at, double Tref) {
     const double T = at.temperature_K;
     check_temperature(T);
     check_temperature(Tref);
-    const Substance s = resolve_one(species, at.table);
-    return finite_value(s.H(T) - s.H(Tref), "H°(T) − H°(Tref)", T, "J/mol") / 1000.0;
+    const auto s = impl_->resolve(species, at.table);
+    return finite_value(s->H(T) - s->H(Tref), "H°(T) − H°(Tref)", T, "J/mol") / 1000.0;
 }
 
 double Engine::species_s(std::string_view species, const Conditions& at) {
     check_temperature(at.temperature_K);
-    return resolve_one(species, at.table).S(at.temperature_K);
+    return impl_->resolve(species, at.table)->S(at.temperature_K);
 }
 
 SpeciesReport Engine::species_report(std::string_view species, const Conditions& at) {
     const double T = at.temperature_K;
     check_temperature(T);
-    const Substance s = resolve_one(species, at.table);
+    const auto kept = impl_->resolve(species, at.table);
+    const Substance& s = *kept;
     SpeciesReport r;
     r.species = s.display_at(T);
     r.temperature_K = T;
@@ -1008,7 +1037,7 @@ std::string Engine::source(std::string_view text, const Conditions& at) {
         for (const auto& s : p->substances)
             if (seen.insert(s->identity()).second) out += s->source(at.temperature_K) + "\n";
     } else {
-        out += resolve_one(text, table).source(at.temperature_K) + "\n";
+        out += impl_->resolve(text, table)->source(at.temperature_K) + "\n";
     }
     out += "Molar masses: standard atomic weights, data/elements.csv. " + Database::get().identity() + ".";
     return out;

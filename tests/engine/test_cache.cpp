@@ -322,3 +322,43 @@ TEST_CASE("cache: check() answers a kept error exactly as dh() throws it", "[cac
         }
     CHECK(e.check("CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)") == "ok");
 }
+
+// Species arguments of SPECIESH, SPECIESCP, SPECIESS, SPECIESHF, the species report and a
+// stream's species are resolved through the species memo that reactions fill (engine.cpp,
+// Engine::Impl::resolve): every answer, and every error, must be the one of an engine without
+// a cache (and so without a memo) — on first sight, on later calls, and for a species the memo
+// first met in an unbalanced reaction, which holds its composition but no data.
+TEST_CASE("cache: species functions through the species memo answer as an engine without one", "[cache]") {
+    Engine e(rxnheat::EngineOptions{64});
+    Engine none(rxnheat::EngineOptions{0});
+    CHECK(e.check("H2(g) + O2(g) -> H2O(l)").find("not balanced") != std::string::npos);  // memo: composition only
+    const char* species[] = {"H2(g)", "O2(g)", "CO2(g)", "H2O", "H2O(l)", "CH4", "N2",
+                             "Xx",    "H2O(q)", "XeF6(g)", "C(", "  CO2(g) "};
+    const auto answer = [](Engine& engine, const char* s, double T) {
+        std::string out;
+        const auto add = [&](auto&& f) {
+            try {
+                char buf[64];
+                std::snprintf(buf, sizeof buf, "%.17g|", f());
+                out += buf;
+            } catch (const rxnheat::Error& x) {
+                out += std::string("error: ") + x.what() + "|";
+            }
+        };
+        add([&] { return engine.species_h(s, T); });
+        add([&] { return engine.species_cp(s, T); });
+        add([&] { return engine.species_s(s, T); });
+        add([&] { return engine.species_hf(s, T); });
+        add([&] { return engine.species_report(s, T).molar_mass_g_per_mol; });
+        add([&] { return engine.stream_enthalpy({{s, 2.0}}, "mol/s", "kW", T); });
+        return out;
+    };
+    for (int round = 0; round < 2; ++round)
+        for (const char* s : species)
+            for (double T : {298.15, 500.0, 1500.0}) {
+                INFO("round " << round << ", " << s << " at " << T << " K");
+                CHECK(answer(e, s, T) == answer(none, s, T));
+            }
+    // And a reaction after the species functions filled the memo: the same value as without.
+    CHECK(e.dh("CH4 + 2 O2(g) -> CO2(g) + 2 H2O(l)", 500) == none.dh("CH4 + 2 O2(g) -> CO2(g) + 2 H2O(l)", 500));
+}
