@@ -30,12 +30,12 @@ using detail::Prepared;
 using detail::Rational;
 using detail::Substance;
 
-// What one engine owns: the data it reads (the embedded set, parsed once and shared by every
-// engine) and its own cache of prepared reactions.
 namespace {
 std::shared_ptr<const grammar::Species> parse_one_species(std::string_view text, const char* what);  // below
 }  // namespace
 
+// What one engine owns: the data it reads (the embedded set, parsed once and shared by every
+// engine) and its own cache of prepared reactions, with the species memo its reactions fill.
 struct Engine::Impl {
     const Database& db;
     detail::PreparedCache cache;
@@ -114,7 +114,6 @@ std::shared_ptr<const grammar::Species> parse_one_species(std::string_view text,
     next = (next + 1) % kept.size();
     return species;
 }
-
 
 /// Value per mole of extent -> per mole (or mass) of the `per` species, in `unit`.
 double per_extent_in_unit(const Prepared& p, double J_per_mol, std::string_view what, std::string_view unit,
