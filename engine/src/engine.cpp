@@ -51,14 +51,16 @@ struct Engine::Impl {
     std::shared_ptr<const Substance> resolve(std::string_view text, const SpeciesTable* table) {
         const auto species = parse_one_species(text, "the species");
         const bool memo = !(table && table->impl());
+        std::shared_ptr<const detail::PreparedCache::SpeciesMemo> found;
         if (memo) {
             const std::string_view written = species->written;
-            std::shared_ptr<const detail::PreparedCache::SpeciesMemo> found;
             cache.find_species(&written, 1, &found);
             if (found && found->substance) return found->substance;
         }
         auto substance = std::make_shared<const Substance>(db.resolve(*species, table));
-        if (memo) {
+        if (found) {  // the composition is kept already (a species first met in an unbalanced reaction)
+            cache.put_species(species->written, found->composition, found->composition_key, substance);
+        } else if (memo) {
             try {  // a memo entry holds the composition too, as a reaction's species would
                 auto composition = std::make_shared<const detail::Composition>(db.composition(*species, table));
                 const std::string key = composition->key();
