@@ -202,7 +202,7 @@ std::string scaled(const Prepared& prepared, const Rational& factor) {
     if (factor <= 0)
         throw Error(ErrorKind::argument, "the factor must be above zero (to exchange the sides, reverse the reaction)");
     const Prepared* p = &prepared;
-    std::vector<Rational> l, r;
+    std::vector<Rational> c;
     // The text must read back as a reaction: no number in it longer than the grammar reads.
     auto too_long = [](const Rational& c) {
         if (c.fits_64()) {  // the common case: count the digits without big integers
@@ -217,21 +217,17 @@ std::string scaled(const Prepared& prepared, const Rational& factor) {
         return c.numerator().str().size() > grammar::max_number_digits ||
                c.denominator().str().size() > grammar::max_number_digits;
     };
-    l.reserve(p->ast.reactants.size());
-    r.reserve(p->ast.products.size());
-    auto times = [&](const grammar::Term& t) {
-        Rational c = t.coefficient * factor;
-        if (too_long(c))
+    c.reserve(p->terms.size());
+    for (std::size_t i = 0; i < p->terms.size(); ++i) {
+        c.push_back(p->coefficient(i) * factor);
+        if (too_long(c.back()))
             throw Error(ErrorKind::argument,
-                        "scaled by " + detail::rational_text(factor) + ", the coefficient of " + t.species.written +
-                            " would be " + detail::rational_text(c) + ", a number longer than the " +
-                            std::to_string(grammar::max_number_digits) +
+                        "scaled by " + detail::rational_text(factor) + ", the coefficient of " +
+                            std::string(p->written(i)) + " would be " + detail::rational_text(c.back()) +
+                            ", a number longer than the " + std::to_string(grammar::max_number_digits) +
                             " digits a reaction's numbers may have (grammar/SYNTAX.md)");
-        return c;
-    };
-    for (const auto& t : p->ast.reactants) l.push_back(times(t));
-    for (const auto& t : p->ast.products) r.push_back(times(t));
-    return detail::reaction_text(p->ast, l, r);
+    }
+    return detail::reaction_text(*p, p->reactants(), c.data(), p->products(), c.data() + p->n_reactants);
 }
 
 /// A value derived from the data and the arguments: itself when finite, else Error(argument)
@@ -859,14 +855,10 @@ std::string Engine::balance(std::string_view reaction, const Conditions& at) {
 
 std::string Engine::reverse(std::string_view reaction) {
     const auto p = impl_->prepare(reaction, nullptr);
-    const auto& left = p->ast.products;  // the sides swapped, written from the prepared tree
-    const auto& right = p->ast.reactants;
-    std::vector<Rational> l, rr;
-    l.reserve(left.size());
-    rr.reserve(right.size());
-    for (const auto& t : left) l.push_back(t.coefficient);
-    for (const auto& t : right) rr.push_back(t.coefficient);
-    return detail::reaction_text(left, l.data(), p->ast.arrow, right, rr.data());
+    std::vector<Rational> c;  // the sides swapped, written from the prepared reaction
+    c.reserve(p->terms.size());
+    for (std::size_t i = 0; i < p->terms.size(); ++i) c.push_back(p->coefficient(i));
+    return detail::reaction_text(*p, p->products(), c.data() + p->n_reactants, p->reactants(), c.data());
 }
 
 std::string Engine::scale(std::string_view reaction, std::string_view factor) {

@@ -19,17 +19,15 @@ namespace rxnheat::detail {
 
 namespace {
 
-/// The identity of a species as written: formula (or name) with charge and written phase.
-std::string written_identity(const grammar::Species& s) {
-    std::string id = s.is_name ? "name:" + lower(s.name) : s.formula;
-    if (s.charge != 0) id += "^" + std::to_string(s.charge);
-    return id + "(" + s.phase + ")";
-}
 /// The same without the phase: for "written with a phase here, without one there".
-std::string phaseless_identity(const grammar::Species& s) {
-    std::string id = s.is_name ? "name:" + lower(s.name) : s.formula;
+std::string phaseless_identity(const Prepared::SpeciesText& s) {
+    std::string id = s.is_name ? "name:" + lower(s.body) : std::string(s.body);
     if (s.charge != 0) id += "^" + std::to_string(s.charge);
     return id;
+}
+/// The identity of a species as written: formula (or name) with charge and written phase.
+std::string written_identity(const Prepared::SpeciesText& s) {
+    return phaseless_identity(s) + "(" + std::string(s.phase) + ")";
 }
 
 struct Seen {
@@ -42,7 +40,7 @@ struct Seen {
 /// Species of every reaction by identity, checked for the two spellings the law cannot settle.
 class SpeciesIndex {
 public:
-    std::size_t add(const grammar::Species& s, const std::string& composition_key, const std::string& where) {
+    std::size_t add(const Prepared::SpeciesText& s, const std::string& composition_key, const std::string& where) {
         const std::string id = written_identity(s);
         const auto it = index_.find(id);
         if (it != index_.end()) return it->second;
@@ -50,7 +48,7 @@ public:
             if (other.composition_key == composition_key && other.phase == s.phase)
                 throw Error(
                     ErrorKind::argument,
-                    "'" + s.written + "' (" + where + ") and '" + other.written + "' (" + other.where +
+                    "'" + std::string(s.written) + "' (" + where + ") and '" + other.written + "' (" + other.where +
                         ") have the same composition and phase; write one substance the same way in the "
                         "target and every step (rxnheat does not guess whether two spellings are one "
                         "substance or two isomers)");
@@ -61,13 +59,13 @@ public:
             const Seen& other = seen_[k];
             if (other.phase.empty() != s.phase.empty())
                 throw Error(ErrorKind::argument,
-                            "'" + s.written + "' (" + where + ") and '" + other.written + "' (" +
+                            "'" + std::string(s.written) + "' (" + where + ") and '" + other.written + "' (" +
                                 other.where +
                                 ") differ only in that one has a phase written; write the phase "
                                 "the same way in the target and every step");
         }
         const std::size_t k = seen_.size();
-        seen_.push_back({s.written, where, composition_key, s.phase});
+        seen_.push_back({std::string(s.written), where, composition_key, std::string(s.phase)});
         index_.emplace(id, k);
         bare_.emplace_back(bare, k);
         return k;
@@ -88,7 +86,7 @@ std::map<std::size_t, Rational> net_coefficients(const Prepared& p, SpeciesIndex
                                                  const std::string& where) {
     std::map<std::size_t, Rational> net;
     for (std::size_t i = 0; i < p.terms.size(); ++i) {
-        const std::size_t k = index.add(p.terms[i]->species, p.composition_keys[i], where);
+        const std::size_t k = index.add(p.species(i), p.composition_keys[i], where);
         net[k] += p.nu[i];
     }
     return net;

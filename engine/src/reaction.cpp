@@ -90,26 +90,36 @@ void append_rational(StackText& out, const Rational& r) {
 }
 
 /// Appends one side: "a A + B + c C", each species as written, or as resolved at T.
-void append_side(StackText& out, const std::vector<grammar::Term>& terms, const Rational* coefs,
-                 const Prepared::PerTerm<std::shared_ptr<const Substance>>* resolved, std::size_t offset, double T) {
-    for (std::size_t i = 0; i < terms.size(); ++i) {
-        if (i) out += " + ";
-        if (coefs[i] != 1) {
-            append_rational(out, coefs[i]);
+void append_side(StackText& out, const Prepared& p, Prepared::Side side, const Rational* coefs, bool resolved,
+                 double T) {
+    for (std::size_t k = 0; k < side.count; ++k) {
+        if (k) out += " + ";
+        if (coefs[k] != 1) {
+            append_rational(out, coefs[k]);
             out += ' ';
         }
         if (resolved)
-            out += (*resolved)[offset + i]->display_at(T);
+            out += p.substances[side.first + k]->display_at(T);
         else
-            out += terms[i].species.written;
+            out += p.written(side.first + k);
     }
 }
 
 /// Bytes a side takes as written (for one reservation of the whole text).
-std::size_t side_bytes(const std::vector<grammar::Term>& terms) {
+std::size_t side_bytes(const Prepared& p, Prepared::Side side) {
     std::size_t n = 0;
-    for (const auto& t : terms) n += t.species.written.size() + 8;  // " + ", and a short coefficient
+    for (std::size_t k = 0; k < side.count; ++k)
+        n += p.terms[side.first + k].written_size + 8;  // " + ", and a short coefficient
     return n;
+}
+
+/// The phases a kept term may have (KeptTerm::phase indexes them), as the grammar writes them.
+constexpr std::string_view kept_phases[] = {"", "g", "l", "s", "aq"};
+std::uint8_t kept_phase(const std::string& phase) {
+    for (std::uint8_t j = 0; j < std::size(kept_phases); ++j)
+        if (phase == kept_phases[j]) return j;
+    // The grammar writes only the phases above (grammar/parse.cpp); a new one is added there.
+    throw Error(ErrorKind::syntax, "unknown phase '" + phase + "'");
 }
 
 /// An element or charge total exactly, so that two unequal totals never read alike: a decimal
@@ -414,17 +424,22 @@ double Prepared::dn_gas(double T) const {
 
 std::string Prepared::canonical(double T) const {
     require_thermo();
-    std::vector<Rational> l, r;
-    for (const auto& t : ast.reactants) l.push_back(t.coefficient);
-    for (const auto& t : ast.products) r.push_back(t.coefficient);
+    std::vector<Rational> c;
+    for (std::size_t i = 0; i < terms.size(); ++i) c.push_back(coefficient(i));
     std::string out;
     {
         StackText text(out);
-        append_side(text, ast.reactants, l.data(), &substances, 0, T);
+        append_side(text, *this, reactants(), c.data(), true, T);
         text += " -> ";
-        append_side(text, ast.products, r.data(), &substances, ast.reactants.size(), T);
+        append_side(text, *this, products(), c.data() + n_reactants, true, T);
     }
     return out;
+}
+
+Prepared::SpeciesText Prepared::species(std::size_t i) const {
+    const KeptTerm& t = terms[i];
+    return {written(i), std::string_view(texts.data() + t.body_at, t.body_size), kept_phases[t.phase], t.charge,
+            t.is_name};
 }
 
 Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTable* table, double T,
@@ -436,7 +451,7 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     std::string want_key;
     bool keyed = false;
     for (std::size_t i = 0; i < terms.size() && !keyed; ++i)
-        if (terms[i]->species.written == key.written) {
+        if (written(i) == key.written) {
             want_key = composition_keys[i];
             keyed = true;
         }
@@ -479,23 +494,17 @@ const std::string& Prepared::balanced() const {
     return balanced_text_;
 }
 
-std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
-                          const std::vector<Rational>& product_coefs) {
-    return reaction_text(r.reactants, reactant_coefs.data(), r.arrow, r.products, product_coefs.data());
-}
-
-std::string reaction_text(const std::vector<grammar::Term>& left, const Rational* left_coefs,
-                          const std::string& arrow, const std::vector<grammar::Term>& right,
-                          const Rational* right_coefs) {
+std::string reaction_text(const Prepared& p, Prepared::Side left, const Rational* left_coefs,
+                          Prepared::Side right, const Rational* right_coefs) {
     std::string out;
-    out.reserve(side_bytes(left) + arrow.size() + 2 + side_bytes(right));
+    out.reserve(side_bytes(p, left) + p.arrow.size() + 2 + side_bytes(p, right));
     {
         StackText text(out);
-        append_side(text, left, left_coefs, nullptr, 0, T_ref);
+        append_side(text, p, left, left_coefs, false, T_ref);
         text += ' ';
-        text += arrow;
+        text += p.arrow;
         text += ' ';
-        append_side(text, right, right_coefs, nullptr, 0, T_ref);
+        append_side(text, p, right, right_coefs, false, T_ref);
     }
     return out;
 }
@@ -616,7 +625,7 @@ std::string balanced_text(const Prepared& prepared) {
     for (std::size_t j = 0; j < n; ++j)
         if (v[j] <= 0)
             throw Error(ErrorKind::unbalanced, "no balance with these species on these sides: " +
-                                                   p->terms[j]->species.written +
+                                                   std::string(p->written(j)) +
                                                    (v[j] == 0 ? " would get a coefficient of zero"
                                                               : " belongs on the other side"));
     // The suggestion is capped where rxnheat's own reader stops: a coefficient it could not read
@@ -628,12 +637,11 @@ std::string balanced_text(const Prepared& prepared) {
         if (digits.size() > grammar::max_number_digits)
             throw Error(ErrorKind::unbalanced,
                         "the only balance needs " + std::to_string(digits.size()) + " digits for " +
-                            p->terms[j]->species.written + ", and rxnheat reads numbers of at most " +
+                            std::string(p->written(j)) + ", and rxnheat reads numbers of at most " +
                             std::to_string(grammar::max_number_digits) +
                             " digits; give the coefficients yourself");
     }
-    const std::size_t nl = p->ast.reactants.size();
-    return reaction_text(p->ast.reactants, v.data(), p->ast.arrow, p->ast.products, v.data() + nl);
+    return reaction_text(*p, p->reactants(), v.data(), p->products(), v.data() + p->n_reactants);
 }
 
 // ---- the cache ----------------------------------------------------------------------------------
@@ -692,9 +700,7 @@ std::size_t substance_bytes(const Substance& s) {
 }
 
 std::size_t estimated_bytes(const Prepared& p) {
-    std::size_t n = sizeof(Prepared) + string_bytes(p.ast.arrow);
-    n += (p.ast.reactants.capacity() + p.ast.products.capacity()) * sizeof(grammar::Term);
-    for (const auto* t : p.terms) n += species_bytes(t->species);
+    std::size_t n = sizeof(Prepared) + string_bytes(p.arrow) + heap_bytes(p.texts);
     n += heap_bytes(p.terms) + heap_bytes(p.nu) + heap_bytes(p.nu_double);
     n += p.segments_bytes_bound;  // the segments' heap bytes once built (none yet, most often)
     n += heap_bytes(p.composition_keys) + heap_bytes(p.substances) + p.species_data_bytes;
@@ -918,24 +924,49 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         if (auto hit = cache->find(text, table, hash)) return hit;
 
     auto p = std::make_shared<Prepared>();
+    // The tree lives for this call only; the prepared reaction keeps its terms' texts (KeptTerm).
+    grammar::Reaction ast;
     try {
-        p->ast = grammar::parse_reaction(text);
+        ast = grammar::parse_reaction(text);
     } catch (const grammar::ParseError& e) {
         throw from_parse_error(e);
     }
-    const std::size_t n_terms = p->ast.reactants.size() + p->ast.products.size();
+    const std::size_t n_terms = ast.reactants.size() + ast.products.size();
+    Prepared::PerTerm<const grammar::Term*> tree;  // reactants then products, as p->terms
+    tree.reserve(n_terms);
     p->terms.reserve(n_terms);
     p->nu.reserve(n_terms);
     p->nu_double.reserve(n_terms);
     p->compositions.reserve(n_terms);
     p->composition_keys.reserve(n_terms);
-    for (const auto& t : p->ast.reactants) {
-        p->terms.push_back(&t);
-        p->nu.push_back(-t.coefficient);
-    }
-    for (const auto& t : p->ast.products) {
-        p->terms.push_back(&t);
-        p->nu.push_back(t.coefficient);
+    p->n_reactants = ast.reactants.size();
+    p->arrow = std::move(ast.arrow);
+    std::size_t text_bytes = 0;
+    for (const auto& side : {&ast.reactants, &ast.products})
+        for (const auto& t : *side) {
+            tree.push_back(&t);
+            p->nu.push_back(side == &ast.reactants ? -t.coefficient : t.coefficient);
+            text_bytes += t.species.written.size() + (t.species.is_name ? t.species.name : t.species.formula).size();
+        }
+    // One block of texts, copied piece by piece (the range insert of a small vector took ten
+    // times the instructions of these copies).
+    p->texts.resize(text_bytes, boost::container::default_init);
+    std::size_t at = 0;
+    const auto keep = [&](const std::string& piece, std::uint32_t& offset, std::uint32_t& size) {
+        offset = static_cast<std::uint32_t>(at);
+        size = static_cast<std::uint32_t>(piece.size());
+        std::memcpy(p->texts.data() + at, piece.data(), piece.size());
+        at += piece.size();
+    };
+    for (const auto* t : tree) {
+        const grammar::Species& sp = t->species;
+        Prepared::KeptTerm k;
+        keep(sp.written, k.written_at, k.written_size);
+        keep(sp.is_name ? sp.name : sp.formula, k.body_at, k.body_size);
+        k.charge = sp.charge;
+        k.is_name = sp.is_name;
+        k.phase = kept_phase(sp.phase);
+        p->terms.push_back(k);
     }
     for (const auto& n : p->nu) p->nu_double.push_back(to_double(n));
     const Database& db = Database::get();
@@ -944,7 +975,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     boost::container::small_vector<std::shared_ptr<const PreparedCache::SpeciesMemo>, 8> known(p->terms.size());
     if (memo) {
         boost::container::small_vector<std::string_view, 8> written;
-        for (const auto* t : p->terms) written.push_back(t->species.written);
+        for (std::size_t i = 0; i < n_terms; ++i) written.push_back(p->written(i));
         cache->find_species(written.data(), written.size(), known.data());
     }
     try {
@@ -953,12 +984,12 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                 p->compositions.push_back(known[i]->composition);
                 p->composition_keys.push_back(known[i]->composition_key);
             } else {
-                p->compositions.push_back(std::make_shared<const Composition>(db.composition(p->terms[i]->species, table)));
+                p->compositions.push_back(std::make_shared<const Composition>(db.composition(tree[i]->species, table)));
                 p->composition_keys.push_back(p->compositions.back()->key());
                 // Kept now, not only once the data is found below: an unbalanced reaction's
                 // species are never resolved, and its next text would pay the composition again.
                 if (memo)
-                    cache->put_species(p->terms[i]->species.written, p->compositions.back(),
+                    cache->put_species(p->written(i), p->compositions.back(),
                                        p->composition_keys.back(), nullptr);
             }
         }
@@ -979,9 +1010,9 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                         p->substances.push_back(known[i]->substance);
                         continue;
                     }
-                    p->substances.push_back(std::make_shared<const Substance>(db.resolve(p->terms[i]->species, table)));
+                    p->substances.push_back(std::make_shared<const Substance>(db.resolve(tree[i]->species, table)));
                     if (memo)
-                        cache->put_species(p->terms[i]->species.written, p->compositions[i],
+                        cache->put_species(p->written(i), p->compositions[i],
                                            p->composition_keys[i], p->substances.back());
                 }
                 plan_segments(*p);

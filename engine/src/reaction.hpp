@@ -26,8 +26,37 @@ struct Prepared {
     /// Per-term lists hold up to four terms inline: a typical reaction's prepare allocates none
     /// of them (each heap block is paid twice, when made and when the cache evicts it).
     template <class T> using PerTerm = boost::container::small_vector<T, 4>;
-    grammar::Reaction ast;
-    PerTerm<const grammar::Term*> terms;      ///< reactants then products
+
+    /// What is kept of a term's species once the reaction is prepared: its texts, as ranges of
+    /// `texts`. The grammar's tree (some 500 bytes a term, four strings and the atoms) is dropped
+    /// at the end of prepare(), so a cached reaction is this one block. The cache evicts entries
+    /// last touched thousands of calls before, and destroying the tree read it back from memory:
+    /// a cold dh of CH4 took 2.25 µs with the tree kept and 1.83 µs with it dropped (medians of
+    /// 5, four alternated rounds, tests/bench/RESULTS-engine.md).
+    struct KeptTerm {
+        std::uint32_t written_at = 0, written_size = 0;  ///< the species exactly as written
+        std::uint32_t body_at = 0, body_size = 0;        ///< its formula, or its name (is_name)
+        std::int32_t charge = 0;
+        std::uint8_t phase = 0;  ///< an index into kept_phases: "", "g", "l", "s", "aq"
+        bool is_name = false;
+    };
+    /// A term's species as kept: views into the prepared reaction (grammar::Species's text fields).
+    struct SpeciesText {
+        std::string_view written;  ///< exactly as written, phase included
+        std::string_view body;     ///< the formula without phase or charge, or the name
+        std::string_view phase;    ///< "", "g", "l", "s" or "aq"
+        int charge = 0;
+        bool is_name = false;
+    };
+    /// A side: terms [first, first + count).
+    struct Side {
+        std::size_t first = 0, count = 0;
+    };
+
+    PerTerm<KeptTerm> terms;                  ///< reactants then products
+    std::size_t n_reactants = 0;
+    std::string arrow;                        ///< as written
+    boost::container::small_vector<char, 64> texts;  ///< the terms' texts (inline for a typical reaction)
     PerTerm<Rational> nu;                     ///< signed: reactants < 0, products > 0
     PerTerm<double> nu_double;                ///< nu as doubles, converted once (hot path)
     /// Per term (empty if composition_error); shared with the species memo, not copied.
@@ -71,6 +100,15 @@ struct Prepared {
     /// Throws the first error of the stages a function needs.
     void require_compositions() const;
     void require_thermo() const;              ///< compositions, balance and data
+    std::string_view written(std::size_t i) const {
+        return {texts.data() + terms[i].written_at, terms[i].written_size};
+    }
+    SpeciesText species(std::size_t i) const;
+    Side reactants() const { return {0, n_reactants}; }
+    Side products() const { return {n_reactants, terms.size() - n_reactants}; }
+    /// The coefficient of term i as written (nu without its sign).
+    Rational coefficient(std::size_t i) const { return i < n_reactants ? -nu[i] : nu[i]; }
+
     /// The error require_thermo() throws, or null: for answers that are the error in words
     /// (RXNCHECK), without the cost of a throw (some 16,000 instructions a call).
     const Error* thermo_error() const noexcept;
@@ -172,14 +210,11 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
 /// balance, more than one independent one, or a species would need a zero or negative coefficient.
 std::string balanced_text(const Prepared& p);
 
-/// Text of the reaction with new coefficients, species as written, the arrow as written.
-std::string reaction_text(const grammar::Reaction& r, const std::vector<Rational>& reactant_coefs,
-                          const std::vector<Rational>& product_coefs);
-/// The same from its parts: `left arrow right`, a coefficient per term (RXNREVERSE writes the
-/// sides swapped, uncopied; RXNBALANCE both sides' coefficients from one vector).
-std::string reaction_text(const std::vector<grammar::Term>& left, const Rational* left_coefs,
-                          const std::string& arrow, const std::vector<grammar::Term>& right,
-                          const Rational* right_coefs);
+/// Text of a prepared reaction with new coefficients, species as written, the arrow as written:
+/// `left arrow right`, a coefficient per term of each side (RXNREVERSE writes the sides swapped;
+/// RXNBALANCE both sides' coefficients from one vector).
+std::string reaction_text(const Prepared& p, Prepared::Side left, const Rational* left_coefs,
+                          Prepared::Side right, const Rational* right_coefs);
 
 /// Throws Error(too_long / syntax) for input the grammar must not see.
 void check_input_text(std::string_view text, const char* what);
