@@ -432,7 +432,7 @@ void add_feed(std::vector<StreamSpecies>& sp, std::size_t reacting, const Prepar
         const char want_phase = fs.phase.empty() ? 0 : fs.phase == "aq" ? 'a' : fs.phase[0];
         std::size_t match = reacting;
         for (std::size_t i = 0; i < p.terms.size(); ++i) {
-            if (p.composition_keys[i] != want) continue;
+            if (p.composition_key(i) != want) continue;
             if (want_phase && p.substances[i]->phase_at(T) != want_phase) continue;
             if (match != reacting && match != group[i])
                 throw Error(ErrorKind::argument, std::string("the ") + what + " species '" + item.species +

@@ -40,7 +40,7 @@ struct Seen {
 /// Species of every reaction by identity, checked for the two spellings the law cannot settle.
 class SpeciesIndex {
 public:
-    std::size_t add(const Prepared::SpeciesText& s, const std::string& composition_key, const std::string& where) {
+    std::size_t add(const Prepared::SpeciesText& s, std::string_view composition_key, const std::string& where) {
         const std::string id = written_identity(s);
         const auto it = index_.find(id);
         if (it != index_.end()) return it->second;
@@ -65,7 +65,7 @@ public:
                                 "the same way in the target and every step");
         }
         const std::size_t k = seen_.size();
-        seen_.push_back({std::string(s.written), where, composition_key, std::string(s.phase)});
+        seen_.push_back({std::string(s.written), where, std::string(composition_key), std::string(s.phase)});
         index_.emplace(id, k);
         bare_.emplace_back(bare, k);
         return k;
@@ -86,7 +86,7 @@ std::map<std::size_t, Rational> net_coefficients(const Prepared& p, SpeciesIndex
                                                  const std::string& where) {
     std::map<std::size_t, Rational> net;
     for (std::size_t i = 0; i < p.terms.size(); ++i) {
-        const std::size_t k = index.add(p.species(i), p.composition_keys[i], where);
+        const std::size_t k = index.add(p.species(i), p.composition_key(i), where);
         net[k] += p.nu[i];
     }
     return net;

@@ -452,7 +452,7 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     bool keyed = false;
     for (std::size_t i = 0; i < terms.size() && !keyed; ++i)
         if (written(i) == key.written) {
-            want_key = composition_keys[i];
+            want_key = composition_key(i);
             keyed = true;
         }
     if (!keyed) want_key = Database::get().composition(key, table).key();
@@ -461,7 +461,7 @@ Rational Prepared::key_coefficient(const grammar::Species& key, const SpeciesTab
     std::string identity;
     bool found = false;
     for (std::size_t i = 0; i < terms.size(); ++i) {
-        if (composition_keys[i] != want_key) continue;
+        if (composition_key(i) != want_key) continue;
         if (want_phase && substances[i]->phase_at(T) != want_phase) continue;
         if (found && substances[i]->identity() != identity)
             throw Error(ErrorKind::argument, "'" + key.written + "' fits more than one species of the reaction (" +
@@ -703,13 +703,13 @@ std::size_t estimated_bytes(const Prepared& p) {
     std::size_t n = sizeof(Prepared) + string_bytes(p.arrow) + heap_bytes(p.texts);
     n += heap_bytes(p.terms) + heap_bytes(p.nu) + heap_bytes(p.nu_double);
     n += p.segments_bytes_bound;  // the segments' heap bytes once built (none yet, most often)
-    n += heap_bytes(p.composition_keys) + heap_bytes(p.substances) + p.species_data_bytes;
+    n += heap_bytes(p.substances) + p.species_data_bytes;
     return n + error_bytes(p.composition_error) + error_bytes(p.balance_error) + error_bytes(p.resolve_error);
 }
 
 struct PreparedCache::Shard {
     struct Entry {
-        std::string text;
+        std::string_view text;  ///< the reaction's text, kept in `value` (Prepared::text())
         std::uint64_t hash = 0;
         std::uint64_t fingerprint = 0;                    ///< of the table; 0: none
         const SpeciesTable::Impl* table_address = nullptr;  ///< fast check only, never dereferenced
@@ -845,13 +845,13 @@ void PreparedCache::put(std::string_view text, const SpeciesTable* table, std::u
         }
     // Built in its map node (no block of its own).
     Shard::Entry* raw = &s.map.emplace(std::piecewise_construct, std::forward_as_tuple(h), std::forward_as_tuple())->second;
-    raw->text.assign(text.data(), text.size());
     raw->hash = h;
     raw->fingerprint = fp;
     raw->table_address = want;
     raw->table = held_table;
-    raw->bytes = bytes + string_bytes(raw->text);
+    raw->bytes = bytes;  // the text is value's (in estimated_bytes)
     raw->value = std::move(value);
+    raw->text = raw->value->text();
     s.clock.push_back(raw);
     s.bytes += raw->bytes;
     if (want) s.hold_rows(*raw->value, +1);  // rows come only from a table
@@ -870,11 +870,11 @@ void PreparedCache::find_species(const std::string_view* written, std::size_t n,
 }
 
 void PreparedCache::put_species(std::string_view written, std::shared_ptr<const Composition> composition,
-                                const std::string& composition_key, std::shared_ptr<const Substance> substance) {
+                                std::string_view composition_key, std::shared_ptr<const Substance> substance) {
     if (capacity_ == 0 || written.size() > 64) return;
     SpeciesMemo memo;
     memo.composition = std::move(composition);
-    memo.composition_key = composition_key;
+    memo.composition_key.assign(composition_key.data(), composition_key.size());
     memo.substance = std::move(substance);
     memo.written.assign(written.data(), written.size());
     memo.composition_bytes = composition_bytes(*memo.composition, memo.composition_key);
@@ -938,10 +938,9 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     p->nu.reserve(n_terms);
     p->nu_double.reserve(n_terms);
     p->compositions.reserve(n_terms);
-    p->composition_keys.reserve(n_terms);
     p->n_reactants = ast.reactants.size();
     p->arrow = std::move(ast.arrow);
-    std::size_t text_bytes = 0;
+    std::size_t text_bytes = text.size();
     for (const auto& side : {&ast.reactants, &ast.products})
         for (const auto& t : *side) {
             tree.push_back(&t);
@@ -951,8 +950,10 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
     // One block of texts, copied piece by piece (the range insert of a small vector took ten
     // times the instructions of these copies).
     p->texts.resize(text_bytes, boost::container::default_init);
-    std::size_t at = 0;
-    const auto keep = [&](const std::string& piece, std::uint32_t& offset, std::uint32_t& size) {
+    std::memcpy(p->texts.data(), text.data(), text.size());
+    p->text_size = text.size();
+    std::size_t at = text.size();
+    const auto keep = [&](std::string_view piece, std::uint32_t& offset, std::uint32_t& size) {
         offset = static_cast<std::uint32_t>(at);
         size = static_cast<std::uint32_t>(piece.size());
         std::memcpy(p->texts.data() + at, piece.data(), piece.size());
@@ -962,7 +963,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         const grammar::Species& sp = t->species;
         Prepared::KeptTerm k;
         keep(sp.written, k.written_at, k.written_size);
-        keep(sp.is_name ? sp.name : sp.formula, k.body_at, k.body_size);
+        keep(sp.is_name ? std::string_view(sp.name) : std::string_view(sp.formula), k.body_at, k.body_size);
         k.charge = sp.charge;
         k.is_name = sp.is_name;
         k.phase = kept_phase(sp.phase);
@@ -979,24 +980,35 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         cache->find_species(written.data(), written.size(), known.data());
     }
     try {
+        Prepared::PerTerm<std::string> worked_out;  // keys of the species not in the memo
+        Prepared::PerTerm<std::string_view> keys;   // each term's, viewing the memo or worked_out
+        worked_out.reserve(n_terms);
         for (std::size_t i = 0; i < p->terms.size(); ++i) {
             if (known[i]) {
                 p->compositions.push_back(known[i]->composition);
-                p->composition_keys.push_back(known[i]->composition_key);
+                keys.push_back(known[i]->composition_key);
             } else {
                 p->compositions.push_back(std::make_shared<const Composition>(db.composition(tree[i]->species, table)));
-                p->composition_keys.push_back(p->compositions.back()->key());
+                worked_out.push_back(p->compositions.back()->key());
+                keys.push_back(worked_out.back());
                 // Kept now, not only once the data is found below: an unbalanced reaction's
                 // species are never resolved, and its next text would pay the composition again.
-                if (memo)
-                    cache->put_species(p->written(i), p->compositions.back(),
-                                       p->composition_keys.back(), nullptr);
+                if (memo) cache->put_species(p->written(i), p->compositions.back(), keys.back(), nullptr);
             }
+        }
+        std::size_t key_bytes = 0;
+        for (const auto k : keys) key_bytes += k.size();
+        std::size_t at = p->texts.size();
+        p->texts.resize(at + key_bytes, boost::container::default_init);
+        for (std::size_t i = 0; i < keys.size(); ++i) {
+            p->terms[i].key_at = static_cast<std::uint32_t>(at);
+            p->terms[i].key_size = static_cast<std::uint32_t>(keys[i].size());
+            std::memcpy(p->texts.data() + at, keys[i].data(), keys[i].size());
+            at += keys[i].size();
         }
     } catch (const Error& e) {
         p->composition_error = e;
         p->compositions.clear();
-        p->composition_keys.clear();
     }
     if (!p->composition_error) {
         check_balance(*p);
@@ -1013,7 +1025,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
                     p->substances.push_back(std::make_shared<const Substance>(db.resolve(tree[i]->species, table)));
                     if (memo)
                         cache->put_species(p->written(i), p->compositions[i],
-                                           p->composition_keys[i], p->substances.back());
+                                           p->composition_key(i), p->substances.back());
                 }
                 plan_segments(*p);
                 try {
@@ -1033,7 +1045,7 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         const auto& m = known[i];
         p->species_data_bytes += m && m->composition == p->compositions[i]
                                      ? m->composition_bytes
-                                     : composition_bytes(*p->compositions[i], p->composition_keys[i]);
+                                     : composition_bytes(*p->compositions[i]);  // its key is in texts
         if (i < p->substances.size())
             p->species_data_bytes += m && m->substance == p->substances[i] ? m->substance_bytes
                                                                            : substance_bytes(*p->substances[i]);

@@ -36,6 +36,7 @@ struct Prepared {
     struct KeptTerm {
         std::uint32_t written_at = 0, written_size = 0;  ///< the species exactly as written
         std::uint32_t body_at = 0, body_size = 0;        ///< its formula, or its name (is_name)
+        std::uint32_t key_at = 0, key_size = 0;          ///< Composition::key() (none after composition_error)
         std::int32_t charge = 0;
         std::uint8_t phase = 0;  ///< an index into kept_phases: "", "g", "l", "s", "aq"
         bool is_name = false;
@@ -56,12 +57,14 @@ struct Prepared {
     PerTerm<KeptTerm> terms;                  ///< reactants then products
     std::size_t n_reactants = 0;
     std::string arrow;                        ///< as written
-    boost::container::small_vector<char, 64> texts;  ///< the terms' texts (inline for a typical reaction)
+    /// The reaction's text as given (the cache's key views it), then the terms' texts; inline for
+    /// a typical reaction, so a cached one is a single block.
+    boost::container::small_vector<char, 160> texts;
+    std::size_t text_size = 0;                ///< of the reaction's text, at the start of `texts`
     PerTerm<Rational> nu;                     ///< signed: reactants < 0, products > 0
     PerTerm<double> nu_double;                ///< nu as doubles, converted once (hot path)
     /// Per term (empty if composition_error); shared with the species memo, not copied.
     PerTerm<std::shared_ptr<const Composition>> compositions;
-    PerTerm<std::string> composition_keys;    ///< Composition::key() per term, for matching `per`/`key`
     std::optional<Error> composition_error;   ///< a bad element symbol or unknown name
     std::optional<Error> balance_error;       ///< unbalanced elements or charge
     PerTerm<std::shared_ptr<const Substance>> substances;  ///< per term (empty if resolve_error); shared with the species memo
@@ -100,8 +103,13 @@ struct Prepared {
     /// Throws the first error of the stages a function needs.
     void require_compositions() const;
     void require_thermo() const;              ///< compositions, balance and data
+    std::string_view text() const { return {texts.data(), text_size}; }
     std::string_view written(std::size_t i) const {
         return {texts.data() + terms[i].written_at, terms[i].written_size};
+    }
+    /// Composition::key() of term i, for matching `per`/`key` (after prepare, unless composition_error).
+    std::string_view composition_key(std::size_t i) const {
+        return {texts.data() + terms[i].key_at, terms[i].key_size};
     }
     SpeciesText species(std::size_t i) const;
     Side reactants() const { return {0, n_reactants}; }
@@ -156,6 +164,7 @@ public:
     /// and, on a miss, the put that follows.
     static std::uint64_t hash_of(std::string_view text, const SpeciesTable* table);
     std::shared_ptr<const Prepared> find(std::string_view text, const SpeciesTable* table, std::uint64_t hash);
+    /// `value` is prepared from `text` (the entry's key views value->text()).
     void put(std::string_view text, const SpeciesTable* table, std::uint64_t hash, std::shared_ptr<const Prepared> value);
     CacheStats stats() const;
     void clear();
@@ -180,7 +189,7 @@ public:
     void find_species(const std::string_view* written, std::size_t n,
                       std::shared_ptr<const SpeciesMemo>* found) const;
     void put_species(std::string_view written, std::shared_ptr<const Composition> composition,
-                     const std::string& composition_key, std::shared_ptr<const Substance> substance);
+                     std::string_view composition_key, std::shared_ptr<const Substance> substance);
 
 private:
     struct Shard;
@@ -194,7 +203,7 @@ private:
 
 /// Bytes of a term's composition with its key, and of its substance, as estimated_bytes counts
 /// them (the objects may be shared with the species memo: counted for each user, an upper bound).
-std::size_t composition_bytes(const Composition& c, const std::string& key);
+std::size_t composition_bytes(const Composition& c, const std::string& key = {});
 std::size_t substance_bytes(const Substance& s);
 
 /// Estimated bytes of a prepared reaction: its own parts (sizes and string capacities), not the
