@@ -31,7 +31,7 @@ struct Prepared {
     /// `texts`. The grammar's tree (some 500 bytes a term, four strings and the atoms) is dropped
     /// at the end of prepare(), so a cached reaction is this one block. The cache evicts entries
     /// last touched thousands of calls before, and destroying the tree read it back from memory:
-    /// a cold dh of CH4 took 2.25 µs with the tree kept and 1.83 µs with it dropped (medians of
+    /// a cold dh of CH4 took 2.27 µs with the tree kept and 1.83 µs with it dropped (medians of
     /// 5, four alternated rounds, tests/bench/RESULTS-engine.md).
     struct KeptTerm {
         std::uint32_t written_at = 0, written_size = 0;  ///< the species exactly as written
