@@ -19,13 +19,14 @@ namespace rxnheat::detail {
 
 namespace {
 
-/// The same without the phase: for "written with a phase here, without one there".
+/// The identity of a species as written, without its phase: formula (or name) with charge; for
+/// "written with a phase here, without one there".
 std::string phaseless_identity(const Prepared::SpeciesText& s) {
     std::string id = s.is_name ? "name:" + lower(s.body) : std::string(s.body);
     if (s.charge != 0) id += "^" + std::to_string(s.charge);
     return id;
 }
-/// The identity of a species as written: formula (or name) with charge and written phase.
+/// The same with the written phase.
 std::string written_identity(const Prepared::SpeciesText& s) {
     return phaseless_identity(s) + "(" + std::string(s.phase) + ")";
 }

@@ -998,14 +998,8 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         }
         std::size_t key_bytes = 0;
         for (const auto k : keys) key_bytes += k.size();
-        std::size_t at = p->texts.size();
-        p->texts.resize(at + key_bytes, boost::container::default_init);
-        for (std::size_t i = 0; i < keys.size(); ++i) {
-            p->terms[i].key_at = static_cast<std::uint32_t>(at);
-            p->terms[i].key_size = static_cast<std::uint32_t>(keys[i].size());
-            std::memcpy(p->texts.data() + at, keys[i].data(), keys[i].size());
-            at += keys[i].size();
-        }
+        p->texts.resize(at + key_bytes, boost::container::default_init);  // `at` is its end
+        for (std::size_t i = 0; i < keys.size(); ++i) keep(keys[i], p->terms[i].key_at, p->terms[i].key_size);
     } catch (const Error& e) {
         p->composition_error = e;
         p->compositions.clear();
