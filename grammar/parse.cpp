@@ -683,14 +683,15 @@ public:
 
     // Terms and species are built in place, in the vector's element and the term's member, not
     // built aside and moved in (a move and a destruction of four strings and a vector each).
-    Reaction reaction(const ast::Reaction& tree) const {
-        Reaction r;
+    // `r`'s lists are emptied first and keep their storage.
+    void reaction(const ast::Reaction& tree, Reaction& r) const {
+        r.reactants.clear();
+        r.products.clear();
         r.reactants.reserve(tree.reactants.size());
         r.products.reserve(tree.products.size());
         for (const auto& term : tree.reactants) this->term(term, r.reactants.emplace_back());
         for (const auto& term : tree.products) this->term(term, r.products.emplace_back());
         r.arrow = utf8(view(tree.arrow));
-        return r;
     }
 
     Species species(const ast::Species& tree) const {
@@ -991,6 +992,12 @@ void run(Mode mode, const Text& t, Rule const& rule, Tree& tree, parser::Tracker
 }  // namespace
 
 Reaction parse_reaction(std::string_view text) {
+    Reaction r;
+    parse_reaction(text, r);
+    return r;
+}
+
+void parse_reaction(std::string_view text, Reaction& out) {
     // The decoded text in a buffer kept per thread, as the tree below: nothing the result holds
     // points into it (the Builder copies what it keeps), and no parse runs inside another.
     thread_local Text decoded;
@@ -1009,7 +1016,7 @@ Reaction parse_reaction(std::string_view text) {
     reserve_sides(counts, tree);
     tracker.build(&tree);
     run(Mode::reaction, t, parser::reaction(), tree.arrow, tracker);
-    return Builder(t, tracker).reaction(tree);
+    Builder(t, tracker).reaction(tree, out);
 }
 
 Species parse_species(std::string_view text) {

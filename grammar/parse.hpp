@@ -71,6 +71,10 @@ private:
 
 /// Parses a whole reaction. Throws ParseError. Input must be valid UTF-8.
 Reaction parse_reaction(std::string_view utf8);
+/// The same into `out`, whose previous content it replaces, reusing its storage: a caller that
+/// parses one reaction after another into the same tree allocates no term lists. After a
+/// ParseError `out` holds an unspecified reaction (valid, to be parsed into again).
+void parse_reaction(std::string_view utf8, Reaction& out);
 
 /// Parses one species with optional phase, no coefficient (SPECIESHF, --per, RXNLOAD key).
 Species parse_species(std::string_view utf8);

@@ -924,10 +924,24 @@ std::shared_ptr<const Prepared> prepare(std::string_view text, const SpeciesTabl
         if (auto hit = cache->find(text, table, hash)) return hit;
 
     auto p = std::make_shared<Prepared>();
-    // The tree lives for this call only; the prepared reaction keeps its terms' texts (KeptTerm).
-    grammar::Reaction ast;
+    // The tree serves this call only; the prepared reaction keeps its terms' texts (KeptTerm).
+    // It is kept per thread, so that its term lists keep their storage from call to call (two
+    // blocks fewer to allocate and free; held: the largest input's tree, as the grammar's own).
+    // A nested prepare (there is none today) would parse into a tree of its own.
+    thread_local grammar::Reaction kept_tree;
+    thread_local bool kept_tree_busy = false;
+    grammar::Reaction own_tree;
+    const bool use_kept = !kept_tree_busy;
+    grammar::Reaction& ast = use_kept ? kept_tree : own_tree;
+    struct Release {
+        bool* busy;
+        ~Release() {
+            if (busy) *busy = false;
+        }
+    } release{use_kept ? &kept_tree_busy : nullptr};
+    if (use_kept) kept_tree_busy = true;
     try {
-        ast = grammar::parse_reaction(text);
+        grammar::parse_reaction(text, ast);
     } catch (const grammar::ParseError& e) {
         throw from_parse_error(e);
     }

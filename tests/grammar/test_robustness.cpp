@@ -7,7 +7,9 @@
 #include <cstdint>
 #include <random>
 #include <string>
+#include <iterator>
 #include <thread>
+#include <vector>
 
 using namespace grammar_test;
 using rxnheat::grammar::parse_number;
@@ -253,4 +255,66 @@ TEST_CASE("one parse leaves nothing behind for the next", "[grammar][robustness]
     b.join();
     CHECK(bad_a == 0);
     CHECK(bad_b == 0);
+}
+
+namespace {
+/// Every field of a parsed reaction as one text, atoms and positions included, to compare two
+/// parses of the same input.
+std::string describe(const Reaction& r) {
+    std::string out = "arrow " + r.arrow;
+    const auto side = [&out](const char* name, const std::vector<Term>& terms) {
+        for (const Term& t : terms) {
+            const Species& s = t.species;
+            out += std::string("\n") + name + " " + t.coefficient.str() + (t.coefficient_written ? " written" : "") +
+                   " @" + std::to_string(t.position) + " [" + s.written + "] @" + std::to_string(s.position) +
+                   (s.is_name ? " name '" + s.name + "'" : " formula " + s.formula) + " charge " +
+                   std::to_string(s.charge) + " phase '" + s.phase + "' atoms";
+            for (const Atom& a : s.atoms) out += " " + a.symbol + "=" + a.count.str() + "@" + std::to_string(a.position);
+        }
+    };
+    side("left", r.reactants);
+    side("right", r.products);
+    return out;
+}
+}  // namespace
+
+// parse_reaction(text, out) reuses `out`'s storage (the engine parses every reaction into one
+// tree per thread): whatever `out` held before, a failed parse included, the result must be the
+// fresh parse's, field for field.
+TEST_CASE("a reaction parsed into a used tree is the one a fresh parse gives", "[grammar][robustness]") {
+    std::string long_text;
+    for (int i = 0; i < 299; ++i) long_text += "H2O + ";
+    long_text += "ethanol(l) -> 3 CO2(g) + Fe^3+(aq)";
+    std::vector<std::string> texts(std::begin(seeds), std::end(seeds));
+    texts.push_back(long_text);
+    texts.push_back("CH4(g) + O0 -> CO2(g)");          // fails in building the tree (a count of zero)
+    texts.push_back("CH4 + O2 + N2 + -> CO2");          // fails in the grammar after three terms
+    texts.push_back("n-octane(l) + 25/2 O2(g) -> 8 CO2(g) + 9 H2O(g)");
+    std::vector<std::string> fresh;
+    for (const auto& t : texts) {
+        try {
+            fresh.push_back(describe(parse_reaction(t)));
+        } catch (const ParseError& e) {
+            fresh.push_back(std::string("error ") + e.what());
+        }
+    }
+    CHECK(fresh[fresh.size() - 3].rfind("error ", 0) == 0);  // the two failures do fail
+    CHECK(fresh[fresh.size() - 2].rfind("error ", 0) == 0);
+    Reaction kept;
+    std::mt19937 rng(77u);
+    for (int round = 0; round < 4; ++round) {
+        std::vector<std::size_t> order(texts.size());
+        for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+        std::shuffle(order.begin(), order.end(), rng);
+        for (std::size_t i : order) {
+            std::string got;
+            try {
+                rxnheat::grammar::parse_reaction(texts[i], kept);
+                got = describe(kept);
+            } catch (const ParseError& e) {
+                got = std::string("error ") + e.what();
+            }
+            CHECK(got == fresh[i]);
+        }
+    }
 }
