@@ -855,9 +855,7 @@ std::string Engine::balance(std::string_view reaction, const Conditions& at) {
 
 std::string Engine::reverse(std::string_view reaction) {
     const auto p = impl_->prepare(reaction, nullptr);
-    std::vector<Rational> c;  // the sides swapped, written from the prepared reaction
-    c.reserve(p->terms.size());
-    for (std::size_t i = 0; i < p->terms.size(); ++i) c.push_back(p->coefficient(i));
+    const auto c = p->coefficients();  // the sides swapped, written from the prepared reaction
     return detail::reaction_text(*p, p->products(), c.data() + p->n_reactants, p->reactants(), c.data());
 }
 

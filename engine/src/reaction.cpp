@@ -424,8 +424,7 @@ double Prepared::dn_gas(double T) const {
 
 std::string Prepared::canonical(double T) const {
     require_thermo();
-    std::vector<Rational> c;
-    for (std::size_t i = 0; i < terms.size(); ++i) c.push_back(coefficient(i));
+    const PerTerm<Rational> c = coefficients();
     std::string out;
     {
         StackText text(out);

@@ -116,6 +116,12 @@ struct Prepared {
     Side products() const { return {n_reactants, terms.size() - n_reactants}; }
     /// The coefficient of term i as written (nu without its sign).
     Rational coefficient(std::size_t i) const { return i < n_reactants ? -nu[i] : nu[i]; }
+    /// Every term's, reactants then products.
+    PerTerm<Rational> coefficients() const {
+        PerTerm<Rational> c;
+        for (std::size_t i = 0; i < terms.size(); ++i) c.push_back(coefficient(i));
+        return c;
+    }
 
     /// The error require_thermo() throws, or null: for answers that are the error in words
     /// (RXNCHECK), without the cost of a throw (some 16,000 instructions a call).
